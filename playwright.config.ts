@@ -1,0 +1,48 @@
+import { defineConfig, devices } from "@playwright/test";
+
+const port = Number(process.env.TEST_APP_PORT ?? 3100);
+const baseURL = `http://127.0.0.1:${port}`;
+
+// Debian's Chromium, never a downloaded browser; flags keep it off the closed network.
+const chromium = {
+  executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
+  args: [
+    "--no-sandbox",
+    "--disable-gpu",
+    "--disable-quic",
+    "--no-first-run",
+    "--disable-background-networking",
+    "--disable-component-update",
+    "--disable-sync",
+  ],
+};
+
+export default defineConfig({
+  testDir: "./test/e2e",
+  fullyParallel: false,
+  workers: 1,
+  retries: 0,
+  forbidOnly: !!process.env.CI,
+  timeout: 30_000,
+  expect: { timeout: 10_000 },
+  outputDir: ".data/playwright",
+  reporter: "list",
+  use: {
+    baseURL,
+    trace: "retain-on-failure",
+    launchOptions: chromium,
+  },
+  projects: [
+    { name: "desktop", use: { ...devices["Desktop Chrome"], launchOptions: chromium } },
+    { name: "phone", use: { ...devices["Pixel 7"], launchOptions: chromium } },
+  ],
+  webServer: {
+    // `node …/next start`, not `npm run`, so Playwright stops the server itself.
+    command: `node node_modules/next/dist/bin/next start -p ${port} -H 127.0.0.1`,
+    url: `${baseURL}/api/health`,
+    reuseExistingServer: false,
+    timeout: 60_000,
+    stdout: "pipe",
+    stderr: "pipe",
+  },
+});

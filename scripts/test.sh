@@ -1,0 +1,64 @@
+#!/usr/bin/env bash
+# `npm test`: install what is missing, start a throwaway MariaDB (its own
+# datadir and port, never the demo one), migrate, seed, then typecheck, lint,
+# vitest, a production build and Playwright. Stops what it started, even when
+# a step fails, and ends with one line "N passed, N failed".
+set -uo pipefail
+cd "$(dirname "$0")/.."
+export NEXT_TELEMETRY_DISABLED=1
+
+bash scripts/ensure-deps.sh || exit 1
+if [ ! -x /usr/bin/chromium ]; then
+  echo "[test] installing Debian's chromium for the browser tests"
+  { apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends chromium >/dev/null; } || {
+    echo "[test] could not install chromium (needs root and Debian's package archive)"
+    exit 1
+  }
+fi
+
+export DB_DIR=.data/test-mariadb
+export DB_PORT="${TEST_DB_PORT:-3317}"
+export DB_NAME=framefork_test
+export DB_USER=framefork_test
+export DB_PASSWORD=framefork-test-only
+DATABASE_URL="$(bash scripts/db.sh url)"
+export DATABASE_URL
+export TEST_APP_PORT="${TEST_APP_PORT:-3100}"
+
+reports=.data/reports
+rm -rf "$reports" && mkdir -p "$reports"
+
+cleanup() { bash scripts/db.sh stop || true; }
+trap cleanup EXIT
+trap 'exit 130' INT TERM
+
+failed_steps=()
+step() {
+  local name="$1"
+  shift
+  echo
+  echo "━━ $name"
+  local started=$SECONDS
+  if "$@"; then
+    echo "━━ $name: ok ($((SECONDS - started)) s)"
+  else
+    echo "━━ $name: FAILED ($((SECONDS - started)) s)"
+    failed_steps+=("$name")
+    return 1
+  fi
+}
+
+step "database" bash -c 'bash scripts/db.sh start && bash scripts/db.sh reset && npm run --silent db:migrate && npm run --silent db:seed' || {
+  node scripts/test-summary.mjs "$reports" "database"
+  exit 1
+}
+step "typecheck" npm run --silent typecheck
+step "lint" npx eslint --max-warnings=0 .
+step "vitest" npx vitest run --reporter=default --reporter=json --outputFile="$reports/vitest.json"
+if step "build" node node_modules/next/dist/bin/next build; then
+  step "playwright" env PLAYWRIGHT_JSON_OUTPUT_FILE="$reports/playwright.json" npx playwright test --reporter=list,json
+else
+  echo "[test] build failed: browser tests not run"
+fi
+
+node scripts/test-summary.mjs "$reports" "${failed_steps[@]}"

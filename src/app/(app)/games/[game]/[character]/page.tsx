@@ -1,0 +1,77 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { MoveTable } from "@/components/moves/move-table";
+import { listEditions } from "@/server/db/queries/games";
+import { getMoveList } from "@/server/db/queries/moves";
+import { loadCharacter } from "../../data";
+
+type Props = PageProps<"/games/[game]/[character]">;
+
+export async function generateMetadata({ params }: Props): Promise<Metadata> {
+  const { game, character } = await params;
+  const found = await loadCharacter(game, character);
+  return { title: `${found.character.name} · ${found.game.name}` };
+}
+
+export default async function CharacterPage({ params, searchParams }: Props) {
+  const slugs = await params;
+  const { game, character } = await loadCharacter(slugs.game, slugs.character);
+  const editions = await listEditions({ gameId: game.id });
+  const wanted = (await searchParams).edition;
+  const edition = editions.find((e) => e.slug === wanted) ?? editions[0];
+  if (!edition) {
+    return <p className="text-ink-300">{game.name} has no Edition of frame data yet.</p>;
+  }
+  const list = await getMoveList({ characterId: character.id, editionId: edition.id });
+  const unknownEdition = typeof wanted === "string" && wanted !== edition.slug;
+
+  return (
+    <div className="space-y-6">
+      <nav aria-label="Breadcrumb" className="flex gap-2 text-sm text-ink-400">
+        <Link href="/games" className="hover:underline">
+          Games
+        </Link>
+        <span aria-hidden>/</span>
+        <Link href={`/games/${game.slug}`} className="hover:underline">
+          {game.name}
+        </Link>
+      </nav>
+      <header className="flex flex-wrap items-end justify-between gap-4">
+        <div className="space-y-1">
+          <h1 className="text-2xl font-semibold">{character.name}</h1>
+          {character.summary && <p className="max-w-3xl text-ink-300">{character.summary}</p>}
+          <p className="text-sm text-ink-400">
+            {list.moves.length} moves · {list.cancels.length} stance cancels · {list.stances.length} stances
+          </p>
+        </div>
+        <nav aria-label="Edition" className="flex flex-wrap items-center gap-2 text-sm">
+          <span className="text-ink-400">Edition</span>
+          {editions.map((e) => (
+            <Link
+              key={e.id}
+              href={`?edition=${e.slug}`}
+              aria-current={e.id === edition.id ? "page" : undefined}
+              className={`rounded border px-2 py-1 no-underline ${
+                e.id === edition.id ? "border-accent text-accent" : "border-ink-700 text-ink-300 hover:border-ink-400"
+              }`}
+            >
+              {e.name}
+            </Link>
+          ))}
+        </nav>
+      </header>
+      {unknownEdition && (
+        <p role="status" className="rounded border border-block-punishable/50 px-3 py-2 text-sm text-block-punishable">
+          No Edition named “{String(wanted)}”: showing {edition.name}, the newest.
+        </p>
+      )}
+      {list.moves.length === 0 ? (
+        <p className="rounded-lg border border-dashed border-ink-700 p-6 text-ink-300">
+          {character.name} has no frame data in {edition.name}.
+        </p>
+      ) : (
+        <MoveTable list={list} />
+      )}
+    </div>
+  );
+}

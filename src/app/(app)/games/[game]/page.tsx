@@ -1,0 +1,71 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { listCharacters, listEditions } from "@/server/db/queries/games";
+import { loadGame } from "../data";
+
+type Props = PageProps<"/games/[game]">;
+
+export async function generateMetadata({ params }: Props): Promise<Metadata> {
+  const game = await loadGame((await params).game);
+  return { title: game.name };
+}
+
+export default async function GamePage({ params }: Props) {
+  const game = await loadGame((await params).game);
+  const [characters, editions] = await Promise.all([
+    listCharacters({ gameId: game.id }),
+    listEditions({ gameId: game.id }),
+  ]);
+  return (
+    <div className="space-y-6">
+      <nav aria-label="Breadcrumb" className="text-sm text-ink-400">
+        <Link href="/games" className="hover:underline">
+          Games
+        </Link>
+      </nav>
+      <header className="space-y-1">
+        <h1 className="text-2xl font-semibold">{game.name}</h1>
+        {game.summary && <p className="max-w-3xl text-ink-300">{game.summary}</p>}
+        <p className="font-mono text-xs text-ink-400">
+          {game.fps} fps · fastest attack {game.fastest}f · launch punish from -{game.launchAt}
+        </p>
+      </header>
+      <section aria-labelledby="characters" className="space-y-3">
+        <h2 id="characters" className="text-sm font-semibold uppercase tracking-wider text-ink-400">
+          Characters
+        </h2>
+        {characters.length === 0 ? (
+          <p className="text-ink-300">This game has no characters yet.</p>
+        ) : (
+          <ul className="grid gap-3 sm:grid-cols-3">
+            {characters.map((c) => (
+              <li key={c.id}>
+                <Link
+                  href={`/games/${game.slug}/${c.slug}`}
+                  className="block h-full rounded-lg border border-ink-800 bg-ink-900 p-4 no-underline hover:border-accent-muted"
+                >
+                  <span className="font-medium text-ink-100">{c.name}</span>
+                  {c.summary && <span className="mt-1 block text-sm text-ink-300">{c.summary}</span>}
+                </Link>
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
+      <section aria-labelledby="editions" className="space-y-3">
+        <h2 id="editions" className="text-sm font-semibold uppercase tracking-wider text-ink-400">
+          Editions
+        </h2>
+        <ul className="space-y-1 text-sm">
+          {editions.map((e, i) => (
+            <li key={e.id} className="flex gap-3">
+              <span className="font-mono text-ink-400">{e.releasedOn}</span>
+              <span>{e.name}</span>
+              {i === 0 && <span className="text-xs text-accent">newest</span>}
+            </li>
+          ))}
+        </ul>
+      </section>
+    </div>
+  );
+}

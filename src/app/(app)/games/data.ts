@@ -1,0 +1,21 @@
+import "server-only";
+import { notFound } from "next/navigation";
+import { cache } from "react";
+import { getCharacterBySlug, getGameBySlug } from "@/server/db/queries/games";
+
+// Layouts check that the game and character exist before any page streams, so
+// an unknown address answers 404 rather than a 200 that later shows "not found".
+// `cache` lets the layout, the page and generateMetadata share one lookup.
+
+export const loadGame = cache(async (slug: string) => {
+  const game = await getGameBySlug({ slug });
+  if (!game) notFound();
+  return game;
+});
+
+export const loadCharacter = cache(async (gameSlug: string, characterSlug: string) => {
+  const game = await loadGame(gameSlug);
+  const character = await getCharacterBySlug({ gameId: game.id, slug: characterSlug });
+  if (!character) notFound();
+  return { game, character };
+});

@@ -1,0 +1,163 @@
+import type { CancelEntry, MoveEntry, MoveList } from "@/server/db/queries/moves";
+import { Frames } from "@/components/ui/frames";
+import { LevelBadge } from "@/components/ui/level-badge";
+import { formatFrames } from "@/lib/format";
+
+interface Section {
+  id: string;
+  title: string;
+  note: string | null;
+  moves: MoveEntry[];
+}
+
+function sections(list: MoveList): Section[] {
+  const neutral: Section = { id: "neutral", title: "Neutral", note: null, moves: [] };
+  const byStance = new Map<number, Section>(
+    list.stances.map((s) => [
+      s.id,
+      { id: `stance-${s.key}`, title: `From ${s.name} (${s.abbreviation})`, note: s.notes, moves: [] },
+    ]),
+  );
+  for (const m of list.moves) (m.stance ? byStance.get(m.stance.id) : neutral)?.moves.push(m);
+  return [neutral, ...byStance.values()].filter((s) => s.moves.length > 0);
+}
+
+const th = "px-2 py-2 text-left font-medium text-ink-400 whitespace-nowrap";
+const td = "px-2 py-1.5 align-top whitespace-nowrap";
+
+function GapCell({ move }: { move: MoveEntry }) {
+  const via = move.via;
+  if (via?.kind !== "follow") return <span className="text-ink-600">—</span>;
+  const jails = via.gapOnBlock <= 0;
+  return (
+    <span
+      className="font-mono tabular-nums"
+      title={
+        jails
+          ? `Jails: no gap on block before this hit (${via.gapOnBlock}).`
+          : `On block the defender is free for ${via.gapOnBlock} frame(s) before this hit.`
+      }
+    >
+      {jails ? "jail" : via.gapOnBlock}
+      {via.comboOnHit ? <span className="ml-1 text-block-plus" title="Combos if the previous hit connected">combo</span> : null}
+    </span>
+  );
+}
+
+function CancelRow({ cancel, from }: { cancel: CancelEntry; from: MoveEntry }) {
+  const saved =
+    typeof cancel.onBlock === "number" && typeof from.onBlock === "number" ? cancel.onBlock - from.onBlock : null;
+  return (
+    <tr data-cancel-key={cancel.key} className="border-t border-ink-850 bg-ink-900/40 text-ink-300">
+      <td className={`${td} sticky left-0 bg-ink-900 font-mono`} style={{ paddingLeft: `${0.5 + (from.depth + 1) * 1}rem` }}>
+        {from.input}
+        <span className="text-accent">{cancel.input}</span>
+      </td>
+      <td className={td}>
+        cancel into {cancel.stance.name}
+        {saved !== null && (
+          <span className="ml-2 font-mono text-xs text-ink-400" title={`${formatFrames(cancel.onBlock as number)} − (${formatFrames(from.onBlock as number)}) on block`}>
+            {saved >= 0 ? "saves" : "costs"} {Math.abs(saved)}f
+          </span>
+        )}
+      </td>
+      <td className={td} />
+      <td className={td} />
+      <td className={td} />
+      <td className={td} />
+      <td className={td}>
+        <Frames value={cancel.onBlock} />
+      </td>
+      <td className={td}>
+        <Frames value={cancel.onHit} />
+      </td>
+      <td className={td}>
+        <Frames value={cancel.onCounterHit} />
+      </td>
+      <td className={`${td} text-xs`}>
+        {cancel.autoGuard.length > 0 ? `auto-guard: ${cancel.autoGuard.join(", ")}` : ""}
+      </td>
+    </tr>
+  );
+}
+
+/** A character's move list in one edition: strings indented under their first hit, cancels under the hit they end. */
+export function MoveTable({ list }: { list: MoveList }) {
+  const cancelsFrom = new Map<number, CancelEntry[]>();
+  for (const c of list.cancels) cancelsFrom.set(c.fromId, [...(cancelsFrom.get(c.fromId) ?? []), c]);
+
+  return (
+    <div className="space-y-8">
+      {sections(list).map((section) => (
+        <section key={section.id} aria-labelledby={section.id} className="space-y-2">
+          <h2 id={section.id} className="text-sm font-semibold uppercase tracking-wider text-ink-400">
+            {section.title}
+          </h2>
+          {section.note && <p className="text-sm text-ink-300">{section.note}</p>}
+          <div className="overflow-x-auto rounded-lg border border-ink-800">
+            <table className="min-w-full text-sm">
+              <thead className="bg-ink-900">
+                <tr>
+                  <th scope="col" className={`${th} sticky left-0 bg-ink-900`}>Input</th>
+                  <th scope="col" className={th}>Name</th>
+                  <th scope="col" className={th}>Level</th>
+                  <th scope="col" className={th}>Damage</th>
+                  <th scope="col" className={th}>Startup</th>
+                  <th scope="col" className={th} title="Frames the defender is free on block before this hit">Gap</th>
+                  <th scope="col" className={th}>On block</th>
+                  <th scope="col" className={th}>On hit</th>
+                  <th scope="col" className={th}>On counter hit</th>
+                  <th scope="col" className={th}>Notes</th>
+                </tr>
+              </thead>
+              <tbody>
+                {section.moves.map((m) => (
+                  <MoveRows key={m.id} move={m} cancels={cancelsFrom.get(m.id) ?? []} />
+                ))}
+              </tbody>
+            </table>
+          </div>
+        </section>
+      ))}
+    </div>
+  );
+}
+
+function MoveRows({ move, cancels }: { move: MoveEntry; cancels: CancelEntry[] }) {
+  const notes = [move.range, ...move.tags].filter(Boolean).join(" · ");
+  return (
+    <>
+      <tr data-move-key={move.key} className="border-t border-ink-800 hover:bg-ink-900">
+        <th
+          scope="row"
+          className={`${td} sticky left-0 bg-ink-950 text-left font-mono font-normal text-ink-100`}
+          style={{ paddingLeft: `${0.5 + move.depth * 1}rem` }}
+        >
+          {move.input}
+        </th>
+        <td className={td}>{move.name}</td>
+        <td className={td}>
+          <LevelBadge level={move.level} />
+        </td>
+        <td className={`${td} font-mono tabular-nums`}>{move.damage}</td>
+        <td className={`${td} font-mono tabular-nums`}>{move.startup ?? <span className="text-ink-600">—</span>}</td>
+        <td className={td}>
+          <GapCell move={move} />
+        </td>
+        <td className={td} data-field="onBlock">
+          <Frames value={move.onBlock} />
+        </td>
+        <td className={td} data-field="onHit">
+          <Frames value={move.onHit} />
+        </td>
+        <td className={td} data-field="onCounterHit">
+          <Frames value={move.onCounterHit} />
+        </td>
+        <td className={`${td} text-xs text-ink-400`}>{notes}</td>
+      </tr>
+      {cancels.map((c) => (
+        <CancelRow key={c.id} cancel={c} from={move} />
+      ))}
+    </>
+  );
+}

@@ -1,0 +1,80 @@
+import "server-only";
+import { asc, desc, eq, and } from "drizzle-orm";
+import { getDb } from "../index";
+import { characters, editions, games } from "../schema";
+
+export interface GameSummary {
+  id: number;
+  slug: string;
+  name: string;
+  summary: string | null;
+  fps: number;
+  fastest: number;
+  launchAt: number;
+}
+
+export interface EditionSummary {
+  id: number;
+  slug: string;
+  name: string;
+  releasedOn: string;
+}
+
+export interface CharacterSummary {
+  id: number;
+  slug: string;
+  name: string;
+  summary: string | null;
+}
+
+const gameColumns = {
+  id: games.id,
+  slug: games.slug,
+  name: games.name,
+  summary: games.summary,
+  fps: games.fps,
+  fastest: games.fastest,
+  launchAt: games.launchAt,
+};
+
+export async function listGames(): Promise<GameSummary[]> {
+  return getDb().select(gameColumns).from(games).orderBy(asc(games.name));
+}
+
+export async function getGameBySlug({ slug }: { slug: string }): Promise<GameSummary | null> {
+  const [row] = await getDb().select(gameColumns).from(games).where(eq(games.slug, slug)).limit(1);
+  return row ?? null;
+}
+
+/** Newest first: the first edition is the one views default to. */
+export async function listEditions({ gameId }: { gameId: number }): Promise<EditionSummary[]> {
+  const rows = await getDb()
+    .select({ id: editions.id, slug: editions.slug, name: editions.name, releasedOn: editions.releasedOn })
+    .from(editions)
+    .where(eq(editions.gameId, gameId))
+    .orderBy(desc(editions.releasedOn), desc(editions.id));
+  return rows.map((r) => ({ ...r, releasedOn: r.releasedOn.toISOString().slice(0, 10) }));
+}
+
+export async function listCharacters({ gameId }: { gameId: number }): Promise<CharacterSummary[]> {
+  return getDb()
+    .select({ id: characters.id, slug: characters.slug, name: characters.name, summary: characters.summary })
+    .from(characters)
+    .where(eq(characters.gameId, gameId))
+    .orderBy(asc(characters.name));
+}
+
+export async function getCharacterBySlug({
+  gameId,
+  slug,
+}: {
+  gameId: number;
+  slug: string;
+}): Promise<CharacterSummary | null> {
+  const [row] = await getDb()
+    .select({ id: characters.id, slug: characters.slug, name: characters.name, summary: characters.summary })
+    .from(characters)
+    .where(and(eq(characters.gameId, gameId), eq(characters.slug, slug)))
+    .limit(1);
+  return row ?? null;
+}

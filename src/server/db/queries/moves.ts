@@ -1,0 +1,149 @@
+import "server-only";
+import { and, asc, eq } from "drizzle-orm";
+import type { Level, Outcome } from "@/lib/frame-data";
+import { getDb } from "../index";
+import { edges, moves, stances } from "../schema";
+
+export interface StanceEntry {
+  id: number;
+  key: string;
+  name: string;
+  abbreviation: string;
+  notes: string | null;
+}
+
+export interface MoveEntry {
+  id: number;
+  key: string;
+  input: string;
+  name: string;
+  level: Level;
+  damage: number;
+  startup: number | null;
+  onBlock: Outcome;
+  onHit: Outcome;
+  onCounterHit: Outcome;
+  range: string | null;
+  tags: string[];
+  notes: string | null;
+  /** The stance the move (or the string it belongs to) is done from. */
+  stance: StanceEntry | null;
+  /** How the move is reached: a follow-up of another hit, entered from a stance, or neither (a root). */
+  via:
+    | { kind: "follow"; fromId: number; input: string; gapOnBlock: number; comboOnHit: boolean; comboOnCounterHit: boolean }
+    | { kind: "enter"; input: string }
+    | null;
+  /** 0 for the first hit of a string, 1 for the next, and so on. */
+  depth: number;
+}
+
+export interface CancelEntry {
+  id: number;
+  key: string;
+  fromId: number;
+  input: string;
+  stance: StanceEntry;
+  onBlock: Outcome;
+  onHit: Outcome;
+  onCounterHit: Outcome;
+  autoGuard: Level[];
+}
+
+export interface MoveList {
+  stances: StanceEntry[];
+  moves: MoveEntry[];
+  cancels: CancelEntry[];
+}
+
+/** A character's frame data in one edition, in move-list order. */
+export async function getMoveList({
+  characterId,
+  editionId,
+}: {
+  characterId: number;
+  editionId: number;
+}): Promise<MoveList> {
+  const db = getDb();
+  const [stanceRows, moveRows, edgeRows] = await Promise.all([
+    db
+      .select({ id: stances.id, key: stances.key, name: stances.name, abbreviation: stances.abbreviation, notes: stances.notes })
+      .from(stances)
+      .where(and(eq(stances.characterId, characterId), eq(stances.editionId, editionId)))
+      .orderBy(asc(stances.id)),
+    db
+      .select()
+      .from(moves)
+      .where(and(eq(moves.characterId, characterId), eq(moves.editionId, editionId)))
+      .orderBy(asc(moves.sort), asc(moves.id)),
+    db
+      .select()
+      .from(edges)
+      .where(and(eq(edges.characterId, characterId), eq(edges.editionId, editionId)))
+      .orderBy(asc(edges.id)),
+  ]);
+
+  const stanceById = new Map(stanceRows.map((s) => [s.id, s]));
+  const incoming = new Map<number, MoveEntry["via"]>();
+  const cancels: CancelEntry[] = [];
+  for (const e of edgeRows) {
+    if (e.kind === "follow" && e.toMoveId !== null && e.fromMoveId !== null) {
+      incoming.set(e.toMoveId, {
+        kind: "follow",
+        fromId: e.fromMoveId,
+        input: e.input,
+        gapOnBlock: e.gapOnBlock ?? 0,
+        comboOnHit: e.comboOnHit ?? false,
+        comboOnCounterHit: e.comboOnCounterHit ?? false,
+      });
+    } else if (e.kind === "enter" && e.toMoveId !== null) {
+      incoming.set(e.toMoveId, { kind: "enter", input: e.input });
+    } else if (e.kind === "cancel" && e.fromMoveId !== null && e.toStanceId !== null) {
+      const stance = stanceById.get(e.toStanceId);
+      if (!stance || e.onBlock === null || e.onHit === null || e.onCounterHit === null) continue;
+      cancels.push({
+        id: e.id,
+        key: e.key,
+        fromId: e.fromMoveId,
+        input: e.input,
+        stance,
+        onBlock: e.onBlock,
+        onHit: e.onHit,
+        onCounterHit: e.onCounterHit,
+        autoGuard: e.autoGuard ?? [],
+      });
+    }
+  }
+
+  const depth = new Map<number, number>();
+  const depthOf = (id: number, guard = 0): number => {
+    const known = depth.get(id);
+    if (known !== undefined) return known;
+    const via = incoming.get(id);
+    const d = via?.kind === "follow" && guard < 64 ? depthOf(via.fromId, guard + 1) + 1 : 0;
+    depth.set(id, d);
+    return d;
+  };
+
+  return {
+    stances: stanceRows,
+    moves: moveRows.map((m) => ({
+      id: m.id,
+      key: m.key,
+      input: m.input,
+      name: m.name,
+      level: m.level,
+      damage: m.damage,
+      startup: m.startup,
+      onBlock: m.onBlock,
+      onHit: m.onHit,
+      onCounterHit: m.onCounterHit,
+      range: m.range,
+      tags: m.tags,
+      notes: m.notes,
+      stance: m.stanceId === null ? null : (stanceById.get(m.stanceId) ?? null),
+      via: incoming.get(m.id) ?? null,
+      depth: depthOf(m.id),
+    })),
+    cancels,
+  };
+}
