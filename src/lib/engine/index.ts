@@ -1,0 +1,54 @@
+/**
+ * Framefork's traversal engine: every path through a character's strings and stance
+ * cancels, with its frame outcome, block class, guards and guesses. Pure TypeScript:
+ * callers validate with the schemas here before exploring.
+ */
+export {
+  explorePaths,
+  explorePathsLimited,
+  iteratePaths,
+  countPaths,
+  createPathWalker,
+  resolveOptions,
+  PathWalker,
+} from "./walk";
+export { topPaths, rankings, type TopOptions } from "./top";
+export { compileGraph, CompiledGraph, EngineInputError } from "./compile";
+export {
+  classifyBlock,
+  classifyFrames,
+  followUp,
+  punishersFor,
+  guardsFor,
+  defenderStanceAfter,
+  outcomeFrames,
+  GUARDS,
+  DEFAULT_FASTEST,
+  DEFAULT_LAUNCH_AT,
+  type PunisherMove,
+} from "./frames";
+export { solveMatrixGame, type MatrixGameSolution } from "./solver";
+export {
+  graphSchema,
+  optionsSchema,
+  exploreRequestSchema,
+  nodeSchema,
+  edgeSchema,
+  moveNodeSchema,
+  stanceNodeSchema,
+  followEdgeSchema,
+  cancelEdgeSchema,
+  enterEdgeSchema,
+  outcomeSchema,
+  levelSchema,
+  stateSchema,
+  parseGraph,
+  parseOptions,
+  graphIssues,
+  LEVELS,
+  STATES,
+  MAX_DEPTH_LIMIT,
+  MAX_STANCE_VISITS_LIMIT,
+  type GraphIssue,
+} from "./schema";
+export type * from "./types";
