@@ -1,4 +1,4 @@
-import type { Outcome } from "./frame-data";
+import type { Outcome } from "./engine";
 
 /** `+3`, `0`, `-12`: the sign is always written, as frame advantage is read. */
 export function formatFrames(n: number): string {

@@ -1,4 +1,5 @@
 import type { CancelEntry, MoveEntry, MoveList } from "@/server/db/queries/moves";
+import { BlockClassTag, explainBlock, type BlockRules } from "@/components/ui/block-class";
 import { Frames } from "@/components/ui/frames";
 import { LevelBadge } from "@/components/ui/level-badge";
 import { formatFrames } from "@/lib/format";
@@ -44,7 +45,7 @@ function GapCell({ move }: { move: MoveEntry }) {
   );
 }
 
-function CancelRow({ cancel, from }: { cancel: CancelEntry; from: MoveEntry }) {
+function CancelRow({ cancel, from, rules }: { cancel: CancelEntry; from: MoveEntry; rules: BlockRules }) {
   const saved =
     typeof cancel.onBlock === "number" && typeof from.onBlock === "number" ? cancel.onBlock - from.onBlock : null;
   return (
@@ -66,7 +67,8 @@ function CancelRow({ cancel, from }: { cancel: CancelEntry; from: MoveEntry }) {
       <td className={td} />
       <td className={td} />
       <td className={td}>
-        <Frames value={cancel.onBlock} />
+        <Frames value={cancel.onBlock} title={explainBlock(cancel.onBlock, rules)} />
+        <BlockClassTag onBlock={cancel.onBlock} rules={rules} />
       </td>
       <td className={td}>
         <Frames value={cancel.onHit} />
@@ -82,7 +84,7 @@ function CancelRow({ cancel, from }: { cancel: CancelEntry; from: MoveEntry }) {
 }
 
 /** A character's move list in one edition: strings indented under their first hit, cancels under the hit they end. */
-export function MoveTable({ list }: { list: MoveList }) {
+export function MoveTable({ list, rules }: { list: MoveList; rules: BlockRules }) {
   const cancelsFrom = new Map<number, CancelEntry[]>();
   for (const c of list.cancels) cancelsFrom.set(c.fromId, [...(cancelsFrom.get(c.fromId) ?? []), c]);
 
@@ -112,7 +114,7 @@ export function MoveTable({ list }: { list: MoveList }) {
               </thead>
               <tbody>
                 {section.moves.map((m) => (
-                  <MoveRows key={m.id} move={m} cancels={cancelsFrom.get(m.id) ?? []} />
+                  <MoveRows key={m.id} move={m} cancels={cancelsFrom.get(m.id) ?? []} rules={rules} />
                 ))}
               </tbody>
             </table>
@@ -123,7 +125,7 @@ export function MoveTable({ list }: { list: MoveList }) {
   );
 }
 
-function MoveRows({ move, cancels }: { move: MoveEntry; cancels: CancelEntry[] }) {
+function MoveRows({ move, cancels, rules }: { move: MoveEntry; cancels: CancelEntry[]; rules: BlockRules }) {
   const notes = [move.range, ...move.tags].filter(Boolean).join(" · ");
   return (
     <>
@@ -144,8 +146,11 @@ function MoveRows({ move, cancels }: { move: MoveEntry; cancels: CancelEntry[] }
         <td className={td}>
           <GapCell move={move} />
         </td>
-        <td className={td} data-field="onBlock">
-          <Frames value={move.onBlock} />
+        <td className={td}>
+          <span data-field="onBlock">
+            <Frames value={move.onBlock} title={explainBlock(move.onBlock, rules)} />
+          </span>
+          <BlockClassTag onBlock={move.onBlock} rules={rules} />
         </td>
         <td className={td} data-field="onHit">
           <Frames value={move.onHit} />
@@ -156,7 +161,7 @@ function MoveRows({ move, cancels }: { move: MoveEntry; cancels: CancelEntry[] }
         <td className={`${td} text-xs text-ink-400`}>{notes}</td>
       </tr>
       {cancels.map((c) => (
-        <CancelRow key={c.id} cancel={c} from={move} />
+        <CancelRow key={c.id} cancel={c} from={move} rules={rules} />
       ))}
     </>
   );

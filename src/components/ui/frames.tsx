@@ -1,4 +1,4 @@
-import type { Outcome } from "@/lib/frame-data";
+import type { Outcome } from "@/lib/engine";
 import { formatOutcome } from "@/lib/format";
 
 /** A frame outcome in monospace; negative numbers and states are tinted, and always written out. */

@@ -1,4 +1,4 @@
-import type { Level } from "@/lib/frame-data";
+import type { Level } from "@/lib/engine";
 
 const LEVEL_STYLE: Record<Level, string> = {
   high: "border-level-high text-level-high",

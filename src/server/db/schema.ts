@@ -14,7 +14,7 @@ import {
   uniqueIndex,
   varchar,
 } from "drizzle-orm/mysql-core";
-import type { Level, Outcome } from "@/lib/frame-data";
+import type { Level, Outcome } from "@/lib/engine";
 
 // MariaDB rejects Drizzle's `serial()` ("serial AUTO_INCREMENT"), so every
 // key is an explicit unsigned bigint.

@@ -1,11 +1,7 @@
 import { describe, expect, test } from "vitest";
 import { DEMO_CHARACTERS, EDITIONS } from "@/server/db/seed/demo";
-import { flatten, type EdgeRow, type MoveRow } from "@/server/db/seed/dsl";
-
-// Block classes with the demo game's fastest attack (10) and launch threshold
-// (15): common practice, no source; DESIGN.md writes them down.
-const punishable = (a: number) => a <= -10;
-const safe = (a: number) => a > -10 && a < 0;
+import { classifyBlock, explorePaths, parseGraph } from "@/lib/engine";
+import { flatten, toMoveGraph, type EdgeRow } from "@/server/db/seed/dsl";
 
 function graph(character: (typeof DEMO_CHARACTERS)[number], edition: (typeof EDITIONS)[number]["slug"]) {
   const data = character.data(edition);
@@ -42,49 +38,56 @@ describe.each(DEMO_CHARACTERS.map((c) => [c.name, c] as const))("demo character 
     }
     expect(g.edges.some((e) => (e.cancel?.autoGuard.length ?? 0) > 0)).toBe(true);
   });
+
+  test.each(EDITIONS.map((e) => e.slug))("edition %s is a graph the engine accepts", (edition) => {
+    const parsed = parseGraph(toMoveGraph(character.data(edition)));
+    expect(parsed.error?.issues ?? []).toEqual([]);
+  });
 });
 
-describe("the demo scenario as a whole", () => {
-  const all = DEMO_CHARACTERS.flatMap((c) => EDITIONS.map((e) => graph(c, e.slug)));
-  const num = (o: MoveRow["hit"]["onBlock"]) => (typeof o === "number" ? o : null);
+describe("the demo scenario as a whole, read through the engine", () => {
+  // Every path from every root of every character in both editions.
+  const paths = DEMO_CHARACTERS.flatMap((c) =>
+    EDITIONS.flatMap((e) => {
+      const g = toMoveGraph(c.data(e.slug));
+      const targets = new Set(g.edges.map((edge) => edge.to));
+      const roots = g.nodes.filter((n) => n.kind === "move" && !targets.has(n.id));
+      const moveById = new Map(g.nodes.map((n) => [n.id, n]));
+      return roots.flatMap((r) => explorePaths(g, r.id).map((p) => ({ ...p, moveById })));
+    }),
+  );
 
   test("has a string with a mid/low guess", () => {
-    const found = all.some((g) =>
-      g.moves.some((m) => {
-        const next = new Set(g.follows(m.key).map((e) => g.move.get((e.to as { move: string }).move)?.hit.level));
-        return next.has("mid") && next.has("low");
+    const guess = paths.some((p) =>
+      p.mixupPoints.some((point) => {
+        const i = p.nodes.indexOf(point);
+        const next = p.nodes[i + 1];
+        const levels = paths
+          .filter((q) => q.nodes[i] === point && q.nodes.length > i + 1 && q.nodes[0] === p.nodes[0])
+          .map((q) => q.levels[i + 1]);
+        return next !== undefined && levels.includes("mid") && levels.includes("low");
       }),
     );
-    expect(found).toBe(true);
+    expect(guess).toBe(true);
   });
 
   test("has a cancel that turns a punishable ending safe, and one that turns minus into plus", () => {
-    const cancels = all.flatMap((g) =>
-      g.edges
-        .filter((e) => e.kind === "cancel")
-        .map((e) => ({ before: num(g.move.get((e.from as { move: string }).move)!.hit.onBlock), after: num(e.cancel!.onBlock) })),
-    );
-    expect(cancels.some((c) => c.before !== null && c.after !== null && punishable(c.before) && safe(c.after))).toBe(true);
-    expect(cancels.some((c) => c.before !== null && c.after !== null && c.before < 0 && c.after > 0)).toBe(true);
+    const cancels = paths.filter((p) => p.endsIn === "stance" && p.framesSaved !== null);
+    const before = (p: (typeof cancels)[number]) => (p.onBlock as number) - (p.framesSaved as number);
+    expect(cancels.some((p) => p.blockClass === "safe" && classifyBlock(before(p)) === "punishable")).toBe(true);
+    expect(cancels.some((p) => p.blockClass === "plus" && before(p) < 0)).toBe(true);
   });
 
-  test("has a natural combo of three hits and a string with a gap", () => {
-    const natural = all.some((g) =>
-      g.moves.some((m) => {
-        const chain = (key: string, n: number): boolean =>
-          n >= 3 || g.follows(key).some((e) => e.follow!.comboOnHit && chain((e.to as { move: string }).move, n + 1));
-        return chain(m.key, 1);
-      }),
-    );
-    expect(natural).toBe(true);
-    expect(all.some((g) => g.edges.some((e) => (e.follow?.gapOnBlock ?? 0) > 0))).toBe(true);
+  test("has a natural combo of three hits and a string with a gap the defender can act in", () => {
+    expect(paths.some((p) => p.naturalCombo && p.levels.length >= 3)).toBe(true);
+    expect(paths.some((p) => p.gaps.length > 0 && p.endsIn === "move")).toBe(true);
   });
 
   test("the two editions differ", () => {
-    for (const c of DEMO_CHARACTERS) {
+    const differs = DEMO_CHARACTERS.some((c) => {
       const [a, b] = EDITIONS.map((e) => JSON.stringify(flatten(c.data(e.slug))));
-      if (a !== b) return;
-    }
-    throw new Error("every character has the same data in both editions");
+      return a !== b;
+    });
+    expect(differs).toBe(true);
   });
 });

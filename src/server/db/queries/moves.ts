@@ -1,6 +1,6 @@
 import "server-only";
 import { and, asc, eq } from "drizzle-orm";
-import type { Level, Outcome } from "@/lib/frame-data";
+import type { Level, Outcome } from "@/lib/engine";
 import { getDb } from "../index";
 import { edges, moves, stances } from "../schema";
 

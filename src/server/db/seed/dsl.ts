@@ -1,4 +1,4 @@
-import type { Level, Outcome } from "@/lib/frame-data";
+import type { Level, MoveGraph, Outcome } from "@/lib/engine";
 
 /**
  * A small language for writing a character's frame data as the trade reads it:
@@ -194,4 +194,33 @@ export function flatten(data: CharacterData): { moves: MoveRow[]; edges: EdgeRow
     seen.add(m.key);
   }
   return { moves, edges };
+}
+
+/** The engine's graph of one character's rows: node ids are move keys and `stance:<key>`. */
+export function toMoveGraph(data: CharacterData): MoveGraph {
+  const { moves, edges } = flatten(data);
+  const end = (e: { move: string } | { stance: string }) => ("move" in e ? e.move : `stance:${e.stance}`);
+  return {
+    nodes: [
+      ...moves.map((m) => ({
+        id: m.key,
+        kind: "move" as const,
+        input: m.input,
+        name: m.hit.name,
+        level: m.hit.level,
+        damage: m.hit.damage,
+        ...(m.hit.startup === undefined ? {} : { startup: m.hit.startup }),
+        onBlock: m.hit.onBlock,
+        onHit: m.hit.onHit,
+        onCounterHit: m.hit.onCounterHit,
+      })),
+      ...data.stances.map((s) => ({ id: `stance:${s.key}`, kind: "stance" as const, name: s.name })),
+    ],
+    edges: edges.map((e) => {
+      const base = { id: e.key, from: end(e.from), to: end(e.to), input: e.input };
+      if (e.kind === "follow" && e.follow) return { ...base, kind: "follow" as const, ...e.follow };
+      if (e.kind === "cancel" && e.cancel) return { ...base, kind: "cancel" as const, ...e.cancel };
+      return { ...base, kind: "enter" as const };
+    }),
+  };
 }

@@ -70,7 +70,7 @@ export default async function CharacterPage({ params, searchParams }: Props) {
           {character.name} has no frame data in {edition.name}.
         </p>
       ) : (
-        <MoveTable list={list} />
+        <MoveTable list={list} rules={{ fastest: game.fastest, launchAt: game.launchAt }} />
       )}
     </div>
   );

@@ -1,0 +1,56 @@
+/**
+ * One error type for everything that crosses the network. Route handlers throw
+ * it; `toResponseBody` is what the client receives; the SWR fetcher turns the
+ * body back into an `AppError` with `fromResponseBody`.
+ */
+export const ERROR_STATUS = {
+  bad_request: 400,
+  unauthorized: 401,
+  forbidden: 403,
+  not_found: 404,
+  conflict: 409,
+  payload_too_large: 413,
+  unsupported_media_type: 415,
+  rate_limited: 429,
+  internal: 500,
+  unavailable: 503,
+} as const;
+
+export type ErrorCode = keyof typeof ERROR_STATUS;
+
+export interface ErrorIssue {
+  path: (string | number)[];
+  message: string;
+}
+
+export interface ErrorBody {
+  error: { code: ErrorCode; message: string; issues?: ErrorIssue[] };
+}
+
+export class AppError extends Error {
+  constructor(
+    readonly code: ErrorCode,
+    message: string,
+    readonly issues?: ErrorIssue[],
+  ) {
+    super(message);
+    this.name = "AppError";
+  }
+
+  get status(): number {
+    return ERROR_STATUS[this.code];
+  }
+
+  toResponseBody(): ErrorBody {
+    return { error: { code: this.code, message: this.message, ...(this.issues ? { issues: this.issues } : {}) } };
+  }
+
+  static fromResponseBody(body: unknown, status: number): AppError {
+    const error = (body as Partial<ErrorBody> | null)?.error;
+    if (error && typeof error.message === "string" && typeof error.code === "string" && error.code in ERROR_STATUS) {
+      return new AppError(error.code, error.message, error.issues);
+    }
+    const code = (Object.entries(ERROR_STATUS).find(([, s]) => s === status)?.[0] ?? "internal") as ErrorCode;
+    return new AppError(code, `The server answered ${status}.`);
+  }
+}
