@@ -47,15 +47,15 @@ export async function readJson<S extends z.ZodType>(
   } catch {
     throw new AppError("bad_request", "The body is not valid JSON.");
   }
-  const parsed = schema.safeParse(json);
+  return parseWith(schema, json, "body");
+}
+
+/** Validates path or query parameters: 400 with zod's issues when they do not fit. */
+export function parseWith<S extends z.ZodType>(schema: S, input: unknown, where: "body" | "path" | "query"): z.infer<S> {
+  const parsed = schema.safeParse(input);
   if (!parsed.success) {
     const issues = zodIssues(parsed.error);
-    const first = issues[0];
-    throw new AppError(
-      "bad_request",
-      first ? `Invalid request: ${first.path.length ? `${first.path.join(".")}: ` : ""}${first.message}` : "Invalid request.",
-      issues,
-    );
+    throw new AppError("bad_request", `Invalid ${where}: ${issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ")}`, issues);
   }
   return parsed.data;
 }

@@ -78,3 +78,20 @@ export async function getCharacterBySlug({
     .limit(1);
   return row ?? null;
 }
+
+export async function getCharacterById({
+  id,
+}: {
+  id: number;
+}): Promise<{ character: CharacterSummary; game: GameSummary } | null> {
+  const [row] = await getDb()
+    .select({
+      character: { id: characters.id, slug: characters.slug, name: characters.name, summary: characters.summary },
+      game: gameColumns,
+    })
+    .from(characters)
+    .innerJoin(games, eq(games.id, characters.gameId))
+    .where(eq(characters.id, id))
+    .limit(1);
+  return row ?? null;
+}

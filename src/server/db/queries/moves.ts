@@ -1,6 +1,6 @@
 import "server-only";
 import { and, asc, eq } from "drizzle-orm";
-import type { Level, Outcome } from "@/lib/engine";
+import type { GraphEdge, Level, MoveGraph, Outcome } from "@/lib/engine";
 import { getDb } from "../index";
 import { edges, moves, stances } from "../schema";
 
@@ -55,14 +55,10 @@ export interface MoveList {
   cancels: CancelEntry[];
 }
 
-/** A character's frame data in one edition, in move-list order. */
-export async function getMoveList({
-  characterId,
-  editionId,
-}: {
-  characterId: number;
-  editionId: number;
-}): Promise<MoveList> {
+type Scope = { characterId: number; editionId: number };
+
+/** The rows of one character in one edition: stances, moves in list order, edges. */
+async function loadRows({ characterId, editionId }: Scope) {
   const db = getDb();
   const [stanceRows, moveRows, edgeRows] = await Promise.all([
     db
@@ -81,7 +77,77 @@ export async function getMoveList({
       .where(and(eq(edges.characterId, characterId), eq(edges.editionId, editionId)))
       .orderBy(asc(edges.id)),
   ]);
+  return { stanceRows, moveRows, edgeRows };
+}
 
+/** Node id of a stance in the engine's graph; moves use their key as it is. */
+export const stanceNodeId = (key: string) => `stance:${key}`;
+
+/**
+ * One character's frame data in one edition as the engine's graph. Node and
+ * edge ids are the rows' keys, stable across editions, so a selected path
+ * means the same moves in every edition that has them.
+ */
+export async function getCharacterGraph(scope: Scope): Promise<{ graph: MoveGraph; roots: string[] }> {
+  const { stanceRows, moveRows, edgeRows } = await loadRows(scope);
+  const moveKey = new Map(moveRows.map((m) => [m.id, m.key]));
+  const stanceKey = new Map(stanceRows.map((s) => [s.id, stanceNodeId(s.key)]));
+  const end = (moveId: number | null, stanceId: number | null) =>
+    (moveId !== null ? moveKey.get(moveId) : stanceId !== null ? stanceKey.get(stanceId) : undefined) ?? "";
+
+  const graphEdges: GraphEdge[] = edgeRows.map((e) => {
+    const base = { id: e.key, from: end(e.fromMoveId, e.fromStanceId), to: end(e.toMoveId, e.toStanceId), input: e.input };
+    switch (e.kind) {
+      case "follow":
+        return {
+          ...base,
+          kind: "follow",
+          gapOnBlock: e.gapOnBlock ?? 0,
+          comboOnHit: e.comboOnHit ?? false,
+          comboOnCounterHit: e.comboOnCounterHit ?? false,
+        };
+      case "cancel":
+        return {
+          ...base,
+          kind: "cancel",
+          onBlock: e.onBlock ?? 0,
+          onHit: e.onHit ?? 0,
+          onCounterHit: e.onCounterHit ?? 0,
+          autoGuard: e.autoGuard ?? [],
+        };
+      case "enter":
+        return { ...base, kind: "enter" };
+    }
+  });
+  const graph: MoveGraph = {
+    nodes: [
+      ...moveRows.map((m) => ({
+        id: m.key,
+        kind: "move" as const,
+        input: m.input,
+        name: m.name,
+        level: m.level,
+        damage: m.damage,
+        ...(m.startup === null ? {} : { startup: m.startup }),
+        onBlock: m.onBlock,
+        onHit: m.onHit,
+        onCounterHit: m.onCounterHit,
+        ...(m.range === null ? {} : { range: m.range }),
+        tags: m.tags,
+        ...(m.notes === null ? {} : { notes: m.notes }),
+      })),
+      ...stanceRows.map((s) => ({ id: stanceNodeId(s.key), kind: "stance" as const, name: s.name })),
+    ],
+    edges: graphEdges,
+  };
+  const reached = new Set(graphEdges.filter((e) => e.kind === "follow").map((e) => e.to));
+  const roots = moveRows.filter((m) => !reached.has(m.key)).map((m) => m.key);
+  return { graph, roots };
+}
+
+/** A character's frame data in one edition, in move-list order. */
+export async function getMoveList(scope: Scope): Promise<MoveList> {
+  const { stanceRows, moveRows, edgeRows } = await loadRows(scope);
   const stanceById = new Map(stanceRows.map((s) => [s.id, s]));
   const incoming = new Map<number, MoveEntry["via"]>();
   const cancels: CancelEntry[] = [];

@@ -1,0 +1,56 @@
+import dagre from "@dagrejs/dagre";
+
+export interface LayoutNode {
+  id: string;
+  width: number;
+  height: number;
+}
+
+export interface LayoutEdge {
+  id: string;
+  source: string;
+  target: string;
+}
+
+export interface PlacedNode extends LayoutNode {
+  /** Top-left corner, as React Flow positions nodes. */
+  x: number;
+  y: number;
+}
+
+export type Direction = "LR" | "TB";
+
+export interface LayoutOptions {
+  /** Space between nodes of one rank. */
+  nodeSep?: number;
+  /** Space between ranks. */
+  rankSep?: number;
+}
+
+/**
+ * Places a graph with dagre: a fresh dagre graph per call (no state shared
+ * between layouts), measured sizes in, top-left positions out. Dagre reverses
+ * the back edges of cycles to rank the graph, so those are the only edges
+ * that may point against `direction`.
+ */
+export function layoutGraph(
+  nodes: readonly LayoutNode[],
+  edges: readonly LayoutEdge[],
+  direction: Direction = "LR",
+  { nodeSep = 24, rankSep = 72 }: LayoutOptions = {},
+): PlacedNode[] {
+  const g = new dagre.graphlib.Graph({ multigraph: true });
+  g.setGraph({ rankdir: direction, nodesep: nodeSep, ranksep: rankSep, marginx: 0, marginy: 0 });
+  g.setDefaultEdgeLabel(() => ({}));
+  for (const n of nodes) g.setNode(n.id, { width: n.width, height: n.height });
+  for (const e of edges) {
+    if (e.source === e.target) continue; // a self-loop does not change ranks or order
+    g.setEdge(e.source, e.target, {}, e.id);
+  }
+  dagre.layout(g);
+  return nodes.map((n) => {
+    const placed = g.node(n.id) as { x: number; y: number };
+    // dagre anchors at the centre; React Flow at the top-left corner.
+    return { ...n, x: placed.x - n.width / 2, y: placed.y - n.height / 2 };
+  });
+}

@@ -1,0 +1,84 @@
+import { fc, test } from "@fast-check/vitest";
+import { describe, expect } from "vitest";
+import { layoutGraph, type LayoutEdge, type LayoutNode } from "@/lib/layout-graph";
+
+const graphArb = fc
+  .integer({ min: 1, max: 40 })
+  .chain((n) =>
+    fc.record({
+      nodes: fc.tuple(
+        ...Array.from({ length: n }, (_, i) =>
+          fc.record({ id: fc.constant(`n${i}`), width: fc.integer({ min: 40, max: 220 }), height: fc.integer({ min: 20, max: 90 }) }),
+        ),
+      ),
+      edges: fc.array(fc.tuple(fc.nat(n - 1), fc.nat(n - 1)), { maxLength: n * 2 }),
+    }),
+  )
+  .map(({ nodes, edges }) => ({
+    nodes: nodes as LayoutNode[],
+    edges: edges.map(([a, b], i): LayoutEdge => ({ id: `e${i}`, source: `n${a}`, target: `n${b}` })),
+  }));
+
+/** Can `to` be reached from `from` along the edges? */
+function reaches(edges: LayoutEdge[], from: string, to: string): boolean {
+  const seen = new Set([from]);
+  const stack = [from];
+  while (stack.length) {
+    const v = stack.pop()!;
+    if (v === to) return true;
+    for (const e of edges) if (e.source === v && !seen.has(e.target)) (seen.add(e.target), stack.push(e.target));
+  }
+  return false;
+}
+
+describe("layoutGraph", () => {
+  test.prop([graphArb], { numRuns: 150 })("places every node, once, with its size", ({ nodes, edges }) => {
+    const placed = layoutGraph(nodes, edges);
+    expect(placed.map((p) => p.id)).toEqual(nodes.map((n) => n.id));
+    for (const [i, p] of placed.entries()) {
+      expect(Number.isFinite(p.x) && Number.isFinite(p.y)).toBe(true);
+      expect([p.width, p.height]).toEqual([nodes[i]!.width, nodes[i]!.height]);
+    }
+  });
+
+  test.prop([graphArb], { numRuns: 150 })("no two nodes overlap", ({ nodes, edges }) => {
+    const placed = layoutGraph(nodes, edges);
+    for (let i = 0; i < placed.length; i++) {
+      for (let j = i + 1; j < placed.length; j++) {
+        const a = placed[i]!;
+        const b = placed[j]!;
+        const apart = a.x + a.width <= b.x + 1e-6 || b.x + b.width <= a.x + 1e-6 || a.y + a.height <= b.y + 1e-6 || b.y + b.height <= a.y + 1e-6;
+        expect(apart, `${a.id} and ${b.id} overlap`).toBe(true);
+      }
+    }
+  });
+
+  test.prop([graphArb], { numRuns: 150 })("edges run left to right, except back edges of cycles", ({ nodes, edges }) => {
+    const placed = new Map(layoutGraph(nodes, edges, "LR").map((p) => [p.id, p]));
+    for (const e of edges) {
+      if (e.source === e.target) continue;
+      const s = placed.get(e.source)!;
+      const t = placed.get(e.target)!;
+      if (t.x + t.width / 2 <= s.x + s.width / 2) {
+        expect(reaches(edges, e.target, e.source), `${e.id} points left but is on no cycle`).toBe(true);
+      }
+    }
+  });
+
+  test("a string reads left to right, with its branches one column further", () => {
+    const node = (id: string): LayoutNode => ({ id, width: 100, height: 40 });
+    const placed = new Map(
+      layoutGraph(
+        [node("1"), node("1,2"), node("1,2,3"), node("1,2,4")],
+        [
+          { id: "a", source: "1", target: "1,2" },
+          { id: "b", source: "1,2", target: "1,2,3" },
+          { id: "c", source: "1,2", target: "1,2,4" },
+        ],
+      ).map((p) => [p.id, p]),
+    );
+    expect(placed.get("1")!.x).toBeLessThan(placed.get("1,2")!.x);
+    expect(placed.get("1,2,3")!.x).toBe(placed.get("1,2,4")!.x);
+    expect(placed.get("1,2,3")!.y).not.toBe(placed.get("1,2,4")!.y);
+  });
+});
