@@ -1,3 +1,4 @@
+import Link from "next/link";
 import type { CancelEntry, MoveEntry, MoveList } from "@/server/db/queries/moves";
 import { BlockClassTag, explainBlock, type BlockRules } from "@/components/ui/block-class";
 import { Frames } from "@/components/ui/frames";
@@ -84,7 +85,16 @@ function CancelRow({ cancel, from, rules }: { cancel: CancelEntry; from: MoveEnt
 }
 
 /** A character's move list in one edition: strings indented under their first hit, cancels under the hit they end. */
-export function MoveTable({ list, rules }: { list: MoveList; rules: BlockRules }) {
+export function MoveTable({
+  list,
+  rules,
+  exploreHref,
+}: {
+  list: MoveList;
+  rules: BlockRules;
+  /** Where the Explorer opens a string that starts with this move. */
+  exploreHref: (moveKey: string) => string;
+}) {
   const cancelsFrom = new Map<number, CancelEntry[]>();
   for (const c of list.cancels) cancelsFrom.set(c.fromId, [...(cancelsFrom.get(c.fromId) ?? []), c]);
 
@@ -114,7 +124,7 @@ export function MoveTable({ list, rules }: { list: MoveList; rules: BlockRules }
               </thead>
               <tbody>
                 {section.moves.map((m) => (
-                  <MoveRows key={m.id} move={m} cancels={cancelsFrom.get(m.id) ?? []} rules={rules} />
+                  <MoveRows key={m.id} move={m} cancels={cancelsFrom.get(m.id) ?? []} rules={rules} exploreHref={exploreHref} />
                 ))}
               </tbody>
             </table>
@@ -125,7 +135,17 @@ export function MoveTable({ list, rules }: { list: MoveList; rules: BlockRules }
   );
 }
 
-function MoveRows({ move, cancels, rules }: { move: MoveEntry; cancels: CancelEntry[]; rules: BlockRules }) {
+function MoveRows({
+  move,
+  cancels,
+  rules,
+  exploreHref,
+}: {
+  move: MoveEntry;
+  cancels: CancelEntry[];
+  rules: BlockRules;
+  exploreHref: (moveKey: string) => string;
+}) {
   const notes = [move.range, ...move.tags].filter(Boolean).join(" · ");
   return (
     <>
@@ -135,7 +155,13 @@ function MoveRows({ move, cancels, rules }: { move: MoveEntry; cancels: CancelEn
           className={`${td} sticky left-0 bg-ink-950 text-left font-mono font-normal text-ink-100`}
           style={{ paddingLeft: `${0.5 + move.depth * 1}rem` }}
         >
-          {move.input}
+          {move.depth === 0 ? (
+            <Link href={exploreHref(move.key)} className="text-ink-100 underline decoration-ink-600 hover:decoration-accent" title={`Open ${move.input} in the Explorer`}>
+              {move.input}
+            </Link>
+          ) : (
+            move.input
+          )}
         </th>
         <td className={td}>{move.name}</td>
         <td className={td}>

@@ -2,6 +2,7 @@ import "server-only";
 import { notFound } from "next/navigation";
 import { cache } from "react";
 import { getCharacterBySlug, getGameBySlug } from "@/server/db/queries/games";
+import { hasMove } from "@/server/db/queries/moves";
 
 // Layouts check that the game and character exist before any page streams, so
 // an unknown address answers 404 rather than a 200 that later shows "not found".
@@ -18,4 +19,10 @@ export const loadCharacter = cache(async (gameSlug: string, characterSlug: strin
   const character = await getCharacterBySlug({ gameId: game.id, slug: characterSlug });
   if (!character) notFound();
   return { game, character };
+});
+
+export const loadRootMove = cache(async (gameSlug: string, characterSlug: string, moveKey: string) => {
+  const found = await loadCharacter(gameSlug, characterSlug);
+  if (!(await hasMove({ characterId: found.character.id, key: moveKey }))) notFound();
+  return found;
 });

@@ -213,3 +213,13 @@ export async function getMoveList(scope: Scope): Promise<MoveList> {
     cancels,
   };
 }
+
+/** Whether the character has a move with this key in any Edition. */
+export async function hasMove({ characterId, key }: { characterId: number; key: string }): Promise<boolean> {
+  const [row] = await getDb()
+    .select({ id: moves.id })
+    .from(moves)
+    .where(and(eq(moves.characterId, characterId), eq(moves.key, key)))
+    .limit(1);
+  return row !== undefined;
+}

@@ -3,7 +3,7 @@ import Link from "next/link";
 import { MoveTable } from "@/components/moves/move-table";
 import { listEditions } from "@/server/db/queries/games";
 import { getMoveList } from "@/server/db/queries/moves";
-import { loadCharacter } from "../../data";
+import { loadCharacter } from "../../../data";
 
 type Props = PageProps<"/games/[game]/[character]">;
 
@@ -70,7 +70,11 @@ export default async function CharacterPage({ params, searchParams }: Props) {
           {character.name} has no frame data in {edition.name}.
         </p>
       ) : (
-        <MoveTable list={list} rules={{ fastest: game.fastest, launchAt: game.launchAt }} />
+        <MoveTable
+          list={list}
+          rules={{ fastest: game.fastest, launchAt: game.launchAt }}
+          exploreHref={(key) => `/games/${game.slug}/${character.slug}/explore/${encodeURIComponent(key)}?edition=${edition.slug}`}
+        />
       )}
     </div>
   );

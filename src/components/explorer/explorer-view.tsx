@@ -1,0 +1,110 @@
+"use client";
+
+import Link from "next/link";
+import { useEffect, useMemo } from "react";
+import useSWR from "swr";
+import { GraphCanvas } from "@/components/graph/graph-canvas";
+import { useExplorerStore } from "@/components/providers/explorer-store-provider";
+import type { AppError } from "@/lib/errors";
+import { computePaths, graphUrl, pathKey, reachableSubgraph, type GraphResponse } from "@/lib/explorer";
+import { fetcher } from "@/lib/fetcher";
+import { Legend } from "./legend";
+import { OptionsBar } from "./options-bar";
+import { PathCard } from "./path-card";
+
+export function ExplorerView({ characterId, root, edition }: { characterId: number; root: string; edition: string }) {
+  const { data, error, isLoading, mutate } = useSWR<GraphResponse, AppError>(graphUrl(characterId, edition), fetcher, {
+    keepPreviousData: true,
+  });
+  const selectedKey = useExplorerStore((s) => s.selected);
+  const options = useExplorerStore((s) => s.options);
+  const select = useExplorerStore((s) => s.select);
+
+  const sub = useMemo(() => (data ? reachableSubgraph(data.graph, root) : null), [data, root]);
+  const computed = useMemo(() => {
+    if (!sub || !data) return null;
+    return computePaths(sub, root, { ...options, launchAt: Math.max(data.game.launchAt, options.fastest) });
+  }, [sub, data, root, options]);
+
+  const selected = useMemo(
+    () => (selectedKey === null ? null : (computed?.paths.find((p) => pathKey(p) === selectedKey) ?? null)),
+    [computed, selectedKey],
+  );
+  const alternatives = selected ? (computed?.byEnd.get(selected.nodes[selected.nodes.length - 1]!) ?? []) : [];
+
+  // The view lives in the address too, so a reload or a copied link opens the same thing.
+  useEffect(() => {
+    const params = new URLSearchParams(window.location.search);
+    const set = (k: string, v: string | null) => (v === null ? params.delete(k) : params.set(k, v));
+    set("edition", edition);
+    set("path", selectedKey);
+    set("depth", options.maxDepth === 8 ? null : String(options.maxDepth));
+    set("visits", options.maxStanceVisits === 1 ? null : String(options.maxStanceVisits));
+    set("fastest", data && options.fastest === data.game.fastest ? null : String(options.fastest));
+    const next = `${window.location.pathname}?${params.toString()}`;
+    if (next !== `${window.location.pathname}${window.location.search}`) window.history.replaceState(null, "", next);
+  }, [edition, selectedKey, options, data]);
+
+  if (error && !data) {
+    return (
+      <div role="alert" className="rounded-lg border border-block-launch-punishable/50 p-4 text-sm">
+        <p className="text-ink-100">The graph could not be loaded: {error.message}</p>
+        <button type="button" onClick={() => void mutate()} className="mt-2 rounded bg-accent px-3 py-1 text-ink-950">
+          Try again
+        </button>
+      </div>
+    );
+  }
+  if (isLoading || !data || !sub || !computed) {
+    return (
+      <div role="status" className="h-[60vh] animate-pulse rounded-lg bg-ink-900">
+        <span className="sr-only">Loading the graph…</span>
+      </div>
+    );
+  }
+  if (!sub.nodes.some((n) => n.id === root)) {
+    return (
+      <p role="alert" className="rounded-lg border border-dashed border-ink-700 p-6 text-ink-300">
+        {data.edition.name} has no move “{root}” for {data.character.name}.{" "}
+        <Link href={`/games/${data.game.slug}/${data.character.slug}?edition=${data.edition.slug}`} className="text-accent underline">
+          Back to the move list
+        </Link>
+      </p>
+    );
+  }
+
+  const rules = { fastest: options.fastest, launchAt: Math.max(data.game.launchAt, options.fastest) };
+  const onSelectNode = (id: string) => {
+    const first = computed.byEnd.get(id)?.[0];
+    select(first ? pathKey(first) : null);
+  };
+
+  return (
+    <div className="space-y-3">
+      <OptionsBar editions={data.editions} edition={edition} pathCount={computed.paths.length} truncated={computed.truncated} />
+      <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_22rem]">
+        <div className="h-[55vh] min-h-80 overflow-hidden rounded-lg border border-ink-800 bg-ink-950 lg:h-[68vh]" data-testid="graph">
+          <GraphCanvas graph={sub} rules={rules} selected={selected} onSelectNode={onSelectNode} />
+        </div>
+        <div>
+          {selected ? (
+            <PathCard
+              path={selected}
+              graph={sub}
+              rules={rules}
+              alternatives={alternatives}
+              onPickAlternative={(p) => select(pathKey(p))}
+            />
+          ) : (
+            <div className="rounded-lg border border-dashed border-ink-700 p-4 text-sm text-ink-300" data-testid="path-card-empty">
+              {selectedKey !== null
+                ? "The selected path is not reachable with these options. Pick a node to choose another."
+                : "Pick a node in the graph: the path to it is selected and its outcome shows here."}
+            </div>
+          )}
+        </div>
+      </div>
+      <Legend />
+    </div>
+  );
+}

@@ -1,0 +1,56 @@
+import { LevelBadge } from "@/components/ui/level-badge";
+import { LEVELS } from "@/lib/engine";
+
+const BLOCK_WORDS: [string, string, string][] = [
+  ["plus", "text-block-plus", "you act first"],
+  ["even", "text-block-even", "both act at once"],
+  ["safe", "text-block-safe", "no punish"],
+  ["punishable", "text-block-punishable", "their fastest attack lands"],
+  ["launch punish", "text-block-launch-punishable", "a launcher lands"],
+];
+
+function Line({ dash, color, label }: { dash?: string; color: string; label: string }) {
+  return (
+    <li className="flex items-center gap-2">
+      <svg width="36" height="8" aria-hidden>
+        <line x1="0" y1="4" x2="36" y2="4" stroke={color} strokeWidth="2" strokeDasharray={dash} strokeLinecap="round" />
+      </svg>
+      {label}
+    </li>
+  );
+}
+
+/** Every colour and line style of the graph, in words. */
+export function Legend() {
+  return (
+    <details className="rounded-lg border border-ink-800 bg-ink-900 px-3 py-2 text-xs text-ink-300" open>
+      <summary className="cursor-pointer text-ink-400">Legend</summary>
+      <div className="mt-2 grid gap-3 sm:grid-cols-3">
+        <ul className="space-y-1">
+          <Line color="#7d8aa3" label="follow-up: the next hit of the string" />
+          <Line color="#f5c451" dash="6 4" label="stance cancel (label: input · frames saved)" />
+          <Line color="#6fd0b4" dash="1 4" label="move done from the stance" />
+          <Line color="#ffd873" label="the selected path" />
+        </ul>
+        <ul className="flex flex-wrap gap-1.5">
+          {LEVELS.map((l) => (
+            <li key={l}>
+              <LevelBadge level={l} />
+            </li>
+          ))}
+        </ul>
+        <ul className="space-y-0.5">
+          {BLOCK_WORDS.map(([word, cls, meaning]) => (
+            <li key={word}>
+              <span className={cls}>{word}</span> <span className="text-ink-400">— {meaning}</span>
+            </li>
+          ))}
+          <li>
+            <span className="inline-block rounded-full border-2 border-dashed border-ink-600 px-2">rounded, dashed</span>{" "}
+            <span className="text-ink-400">— a stance</span>
+          </li>
+        </ul>
+      </div>
+    </details>
+  );
+}

@@ -1,0 +1,107 @@
+"use client";
+
+import "@xyflow/react/dist/style.css";
+import { Background, Controls, MarkerType, MiniMap, ReactFlow, type Edge } from "@xyflow/react";
+import { useMemo } from "react";
+import type { BlockRules } from "@/components/ui/block-class";
+import type { MoveGraph, PathResult } from "@/lib/engine";
+import { layoutGraph } from "@/lib/layout-graph";
+import { MOVE_SIZE, STANCE_SIZE, nodeTypes, type MoveFlowNode, type StanceFlowNode } from "./nodes";
+
+export const EDGE_STYLE = {
+  follow: { stroke: "#7d8aa3", strokeWidth: 1.5 },
+  cancel: { stroke: "#f5c451", strokeWidth: 1.5, strokeDasharray: "6 4" },
+  enter: { stroke: "#6fd0b4", strokeWidth: 1.5, strokeDasharray: "1 4", strokeLinecap: "round" as const },
+};
+
+/** The frames a cancel saves over stopping at the hit it ends, when both are numbers. */
+export function cancelSaves(graph: MoveGraph, edge: MoveGraph["edges"][number]): number | null {
+  if (edge.kind !== "cancel" || typeof edge.onBlock !== "number") return null;
+  const from = graph.nodes.find((n) => n.id === edge.from);
+  return from?.kind === "move" && typeof from.onBlock === "number" ? edge.onBlock - from.onBlock : null;
+}
+
+export function GraphCanvas({
+  graph,
+  rules,
+  selected,
+  onSelectNode,
+}: {
+  graph: MoveGraph;
+  rules: BlockRules;
+  selected: PathResult | null;
+  onSelectNode: (nodeId: string) => void;
+}) {
+  const layout = useMemo(() => {
+    const placed = layoutGraph(
+      graph.nodes.map((n) => ({ id: n.id, ...(n.kind === "move" ? MOVE_SIZE : STANCE_SIZE) })),
+      graph.edges.map((e) => ({ id: e.id, source: e.from, target: e.to })),
+      "LR",
+      // Room between columns for a cancel's label (input · frames saved).
+      { rankSep: 120, nodeSep: 28 },
+    );
+    return new Map(placed.map((p) => [p.id, p]));
+  }, [graph]);
+
+  const onPathNodes = useMemo(() => new Set(selected?.nodes ?? []), [selected]);
+  const onPathEdges = useMemo(() => new Set(selected?.edges ?? []), [selected]);
+  const endNode = selected ? selected.nodes[selected.nodes.length - 1] : undefined;
+
+  const nodes = useMemo(
+    () =>
+      graph.nodes.map((n): MoveFlowNode | StanceFlowNode => {
+        const p = layout.get(n.id)!;
+        const marks = { onPath: onPathNodes.has(n.id), isEnd: n.id === endNode };
+        const common = { id: n.id, position: { x: p.x, y: p.y }, width: p.width, height: p.height, connectable: false, draggable: false };
+        return n.kind === "move"
+          ? { ...common, type: "move", data: { move: n, rules, ...marks }, ariaLabel: `${n.input}, ${n.level}` }
+          : { ...common, type: "stance", data: { stance: n, ...marks }, ariaLabel: `stance ${n.name}` };
+      }),
+    [graph, layout, onPathNodes, endNode, rules],
+  );
+
+  const edges = useMemo(
+    () =>
+      graph.edges.map((e): Edge => {
+        const on = onPathEdges.has(e.id);
+        const base = EDGE_STYLE[e.kind];
+        const saves = cancelSaves(graph, e);
+        return {
+          id: e.id,
+          source: e.from,
+          target: e.to,
+          type: e.kind === "follow" ? "default" : "smoothstep",
+          style: on ? { ...base, stroke: "#ffd873", strokeWidth: 3 } : base,
+          markerEnd: { type: MarkerType.ArrowClosed, color: on ? "#ffd873" : base.stroke, width: 16, height: 16 },
+          label: e.kind === "cancel" ? `${e.input}${saves === null ? "" : ` · ${saves >= 0 ? "saves" : "costs"} ${Math.abs(saves)}f`}` : e.input,
+          labelStyle: { fill: "#cfd6e4", fontFamily: '"JetBrains Mono", monospace', fontSize: 11 },
+          labelBgStyle: { fill: "#11141b" },
+          labelBgPadding: [4, 2],
+          focusable: false,
+          zIndex: on ? 1 : 0,
+        };
+      }),
+    [graph, onPathEdges],
+  );
+
+  return (
+    <ReactFlow
+      nodes={nodes}
+      edges={edges}
+      nodeTypes={nodeTypes}
+      colorMode="dark"
+      fitView
+      fitViewOptions={{ padding: 0.15 }}
+      minZoom={0.2}
+      nodesDraggable={false}
+      nodesConnectable={false}
+      elementsSelectable={false}
+      onNodeClick={(_, node) => onSelectNode(node.id)}
+      proOptions={{ hideAttribution: false }}
+    >
+      <Background color="#283040" gap={24} />
+      <Controls showInteractive={false} position="bottom-left" />
+      {graph.nodes.length > 24 && <MiniMap pannable zoomable position="bottom-right" nodeColor="#3a4458" maskColor="rgba(11,13,18,0.7)" />}
+    </ReactFlow>
+  );
+}

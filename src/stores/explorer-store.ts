@@ -1,0 +1,28 @@
+import { createStore } from "zustand/vanilla";
+
+export interface ExplorerOptions {
+  maxDepth: number;
+  maxStanceVisits: number;
+  fastest: number;
+}
+
+export interface ExplorerState {
+  /** The selected path, by its edge ids joined (see `pathKey`); "" is the root alone. */
+  selected: string | null;
+  options: ExplorerOptions;
+}
+
+export interface ExplorerActions {
+  select: (pathKey: string | null) => void;
+  setOption: <K extends keyof ExplorerOptions>(key: K, value: ExplorerOptions[K]) => void;
+}
+
+export type ExplorerStore = ExplorerState & ExplorerActions;
+
+/** One store per Explorer page (never global): the page's server data stays in SWR. */
+export const createExplorerStore = (initial: ExplorerState) =>
+  createStore<ExplorerStore>()((set) => ({
+    ...initial,
+    select: (selected) => set({ selected }),
+    setOption: (key, value) => set((s) => ({ options: { ...s.options, [key]: value } })),
+  }));

@@ -1,0 +1,28 @@
+import type { Locator, Page } from "@playwright/test";
+
+/** The Explorer: /games/[game]/[character]/explore/[move]. */
+export class ExplorerPage {
+  readonly graph: Locator;
+  readonly card: Locator;
+  readonly emptyCard: Locator;
+
+  constructor(private readonly page: Page) {
+    this.graph = page.getByTestId("graph");
+    this.card = page.getByTestId("path-card");
+    this.emptyCard = page.getByTestId("path-card-empty");
+  }
+
+  node(id: string): Locator {
+    return this.graph.locator(`[data-node-id="${id}"]`);
+  }
+
+  /** A figure of the Path card by its PathResult field name. */
+  field(name: string): Locator {
+    return this.card.locator(`[data-field="${name}"]`).first();
+  }
+
+  async setOption(label: string, value: number) {
+    const input = this.page.getByRole("spinbutton", { name: label });
+    await input.fill(String(value));
+  }
+}
