@@ -8,7 +8,20 @@ export interface GraphResponse {
   edition: EditionRef;
   editions: EditionRef[];
   roots: string[];
+  starters: Starter[];
+  cast: { id: number; slug: string; name: string }[];
   graph: MoveGraph;
+}
+
+/** See `Starter` in the move queries: the first hit of a string, or a stance move. */
+export interface Starter {
+  id: string;
+  input: string;
+  name: string;
+  startup: number;
+  damage: number;
+  from: "standing" | "crouching" | "any";
+  stance: string | null;
 }
 
 export interface EditionRef {
@@ -74,6 +87,7 @@ export const explorerSearchSchema = z.object({
   depth: z.coerce.number().int().min(1).max(16).optional().catch(undefined),
   visits: z.coerce.number().int().min(0).max(4).optional().catch(undefined),
   fastest: z.coerce.number().int().min(1).max(30).optional().catch(undefined),
+  vs: z.coerce.number().int().positive().optional().catch(undefined),
 });
 
 export type ExplorerSearch = z.infer<typeof explorerSearchSchema>;

@@ -10,9 +10,12 @@ export interface ExplorerState {
   /** The selected path, by its edge ids joined (see `pathKey`); "" is the root alone. */
   selected: string | null;
   options: ExplorerOptions;
+  /** The character whose moves punish the ending; null: the same character. */
+  opponent: number | null;
 }
 
 export interface ExplorerActions {
+  setOpponent: (characterId: number | null) => void;
   select: (pathKey: string | null) => void;
   setOption: <K extends keyof ExplorerOptions>(key: K, value: ExplorerOptions[K]) => void;
 }
@@ -24,5 +27,6 @@ export const createExplorerStore = (initial: ExplorerState) =>
   createStore<ExplorerStore>()((set) => ({
     ...initial,
     select: (selected) => set({ selected }),
+    setOpponent: (opponent) => set({ opponent }),
     setOption: (key, value) => set((s) => ({ options: { ...s.options, [key]: value } })),
   }));

@@ -78,3 +78,27 @@ test("an unknown move is a 404", async ({ page }) => {
   const response = await page.goto("/games/vesper-circuit/tarrow/explore/9%2C9%2C9");
   expect(response?.status()).toBe(404);
 });
+
+test("a blocked low leaves the defender crouching, and the card lists the punishers that come out of a crouch", async ({ page }) => {
+  const explorer = new ExplorerPage(page);
+  await page.goto("/games/vesper-circuit/tarrow/explore/1");
+  await explorer.node("1,2,4").click(); // ends in a low at -13
+  await expect(explorer.field("defenderStance")).toHaveText("crouching");
+
+  const panel = page.getByTestId("punish-panel");
+  await expect(panel.getByTestId("punish-verdict")).toContainText("crouching");
+  const startups = await query<{ input: string; startup: number; from_posture: string }>(
+    `select m.input, m.startup, m.from_posture from moves m join characters c on c.id = m.character_id
+       join editions e on e.id = m.edition_id
+     where c.slug = 'tarrow' and e.slug = '1-1' and m.startup is not null and m.stance_id is null`,
+  );
+  const listed = await panel.locator("[data-testid=punishers] [data-option]").evaluateAll((els) => els.map((e) => e.getAttribute("data-option")));
+  const expected = startups.filter((m) => m.startup <= 13 && m.from_posture !== "standing").map((m) => m.input);
+  expect(listed.sort()).toEqual(expected.sort());
+  expect(listed.length).toBeGreaterThan(0);
+
+  // Against another opponent the list is theirs.
+  await panel.getByRole("combobox", { name: "Opponent" }).selectOption({ label: "Velka" });
+  await expect(page).toHaveURL(/vs=\d+/);
+  await expect(panel.getByTestId("punish-verdict")).toContainText("Velka");
+});

@@ -11,6 +11,7 @@ import { fetcher } from "@/lib/fetcher";
 import { Legend } from "./legend";
 import { OptionsBar } from "./options-bar";
 import { PathCard } from "./path-card";
+import { PunishPanel } from "./punish-panel";
 
 export function ExplorerView({ characterId, root, edition }: { characterId: number; root: string; edition: string }) {
   const { data, error, isLoading, mutate } = useSWR<GraphResponse, AppError>(graphUrl(characterId, edition), fetcher, {
@@ -19,6 +20,7 @@ export function ExplorerView({ characterId, root, edition }: { characterId: numb
   const selectedKey = useExplorerStore((s) => s.selected);
   const options = useExplorerStore((s) => s.options);
   const select = useExplorerStore((s) => s.select);
+  const opponent = useExplorerStore((s) => s.opponent);
 
   const sub = useMemo(() => (data ? reachableSubgraph(data.graph, root) : null), [data, root]);
   const computed = useMemo(() => {
@@ -41,9 +43,10 @@ export function ExplorerView({ characterId, root, edition }: { characterId: numb
     set("depth", options.maxDepth === 8 ? null : String(options.maxDepth));
     set("visits", options.maxStanceVisits === 1 ? null : String(options.maxStanceVisits));
     set("fastest", data && options.fastest === data.game.fastest ? null : String(options.fastest));
+    set("vs", opponent === null ? null : String(opponent));
     const next = `${window.location.pathname}?${params.toString()}`;
     if (next !== `${window.location.pathname}${window.location.search}`) window.history.replaceState(null, "", next);
-  }, [edition, selectedKey, options, data]);
+  }, [edition, selectedKey, options, data, opponent]);
 
   if (error && !data) {
     return (
@@ -86,7 +89,7 @@ export function ExplorerView({ characterId, root, edition }: { characterId: numb
         <div className="h-[55vh] min-h-80 overflow-hidden rounded-lg border border-ink-800 bg-ink-950 lg:h-[68vh]" data-testid="graph">
           <GraphCanvas graph={sub} rules={rules} selected={selected} onSelectNode={onSelectNode} />
         </div>
-        <div>
+        <div className="space-y-4">
           {selected ? (
             <PathCard
               path={selected}
@@ -95,7 +98,8 @@ export function ExplorerView({ characterId, root, edition }: { characterId: numb
               alternatives={alternatives}
               onPickAlternative={(p) => select(pathKey(p))}
             />
-          ) : (
+          ) : null}
+          {selected ? <PunishPanel path={selected} data={data} fastest={options.fastest} /> : (
             <div className="rounded-lg border border-dashed border-ink-700 p-4 text-sm text-ink-300" data-testid="path-card-empty">
               {selectedKey !== null
                 ? "The selected path is not reachable with these options. Pick a node to choose another."

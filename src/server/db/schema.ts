@@ -27,6 +27,8 @@ const createdAt = () =>
 
 export const LEVELS = ["high", "mid", "low", "special-mid", "throw", "unblockable"] as const;
 export const EDGE_KINDS = ["follow", "cancel", "enter"] as const;
+/** Where a defender can do the move from: it decides which punishers apply after a high or a low. */
+export const POSTURES = ["standing", "crouching", "any"] as const;
 
 /** A game: its frame rate and the defaults the engine classifies with. */
 export const games = mysqlTable(
@@ -126,6 +128,7 @@ export const moves = mysqlTable(
     range: varchar("range", { length: 16 }),
     tags: json("tags").$type<string[]>().notNull(),
     notes: text("notes"),
+    fromPosture: mysqlEnum("from_posture", POSTURES).notNull().default("standing"),
     /** The stance the move is done from (entered by an `enter` edge); null in neutral. */
     stanceId: ref("stance_id").references(() => stances.id, { onDelete: "set null" }),
     /** Order in the move list. */

@@ -1,6 +1,7 @@
 import "server-only";
 import { and, asc, eq } from "drizzle-orm";
 import type { GraphEdge, Level, MoveGraph, Outcome } from "@/lib/engine";
+import type { Starter } from "@/lib/explorer";
 import { getDb } from "../index";
 import { edges, moves, stances } from "../schema";
 
@@ -57,6 +58,8 @@ export interface MoveList {
 
 type Scope = { characterId: number; editionId: number };
 
+
+
 /** The rows of one character in one edition: stances, moves in list order, edges. */
 async function loadRows({ characterId, editionId }: Scope) {
   const db = getDb();
@@ -88,7 +91,7 @@ export const stanceNodeId = (key: string) => `stance:${key}`;
  * edge ids are the rows' keys, stable across editions, so a selected path
  * means the same moves in every edition that has them.
  */
-export async function getCharacterGraph(scope: Scope): Promise<{ graph: MoveGraph; roots: string[] }> {
+export async function getCharacterGraph(scope: Scope): Promise<{ graph: MoveGraph; roots: string[]; starters: Starter[] }> {
   const { stanceRows, moveRows, edgeRows } = await loadRows(scope);
   const moveKey = new Map(moveRows.map((m) => [m.id, m.key]));
   const stanceKey = new Map(stanceRows.map((s) => [s.id, stanceNodeId(s.key)]));
@@ -141,8 +144,19 @@ export async function getCharacterGraph(scope: Scope): Promise<{ graph: MoveGrap
     edges: graphEdges,
   };
   const reached = new Set(graphEdges.filter((e) => e.kind === "follow").map((e) => e.to));
-  const roots = moveRows.filter((m) => !reached.has(m.key)).map((m) => m.key);
-  return { graph, roots };
+  const rootRows = moveRows.filter((m) => !reached.has(m.key));
+  const starters: Starter[] = rootRows
+    .filter((m) => m.startup !== null)
+    .map((m) => ({
+      id: m.key,
+      input: m.input,
+      name: m.name,
+      startup: m.startup ?? 0,
+      damage: m.damage,
+      from: m.fromPosture,
+      stance: m.stanceId === null ? null : (stanceKey.get(m.stanceId) ?? null),
+    }));
+  return { graph, roots: rootRows.map((m) => m.key), starters };
 }
 
 /** A character's frame data in one edition, in move-list order. */

@@ -15,6 +15,8 @@ export interface Hit {
   onCounterHit: Outcome;
   startup?: number;
   range?: "close" | "mid" | "far";
+  /** Where the move can be done from; by default read from the input (see `postureOf`). */
+  from?: "standing" | "crouching" | "any";
   tags?: string[];
   notes?: string;
 }
@@ -60,6 +62,17 @@ export interface StanceSpec {
 export interface CharacterData {
   stances: StanceSpec[];
   roots: Root[];
+}
+
+/**
+ * The demo game's rule for where a move can be done from: down-direction
+ * moves also come out of a crouch, rising (`uf+`) moves only out of one,
+ * everything else from standing.
+ */
+export function postureOf(input: string): "standing" | "crouching" | "any" {
+  if (/^(d|db|df)\+/.test(input)) return "any";
+  if (/^uf\+/.test(input)) return "crouching";
+  return "standing";
 }
 
 export const hit = (

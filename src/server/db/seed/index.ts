@@ -3,7 +3,7 @@ import type { MySqlTable } from "drizzle-orm/mysql-core";
 import type { Database } from "../index";
 import { characters, editions, edges, games, moves, stances, type NewEdge, type NewMove } from "../schema";
 import { DEMO_CHARACTERS, DEMO_GAME, EDITIONS } from "./demo";
-import { flatten } from "./dsl";
+import { flatten, postureOf } from "./dsl";
 
 type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
 
@@ -104,6 +104,7 @@ async function writeCharacterEdition(
     range: m.hit.range ?? null,
     tags: m.hit.tags ?? [],
     notes: m.hit.notes ?? null,
+    fromPosture: m.hit.from ?? postureOf(m.input),
     stanceId: m.stance === null ? null : (stanceId.get(m.stance) ?? null),
     sort: m.sort,
   }));

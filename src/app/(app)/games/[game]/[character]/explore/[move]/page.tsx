@@ -4,9 +4,8 @@ import { notFound } from "next/navigation";
 import { SWRConfig } from "swr";
 import { ExplorerView } from "@/components/explorer/explorer-view";
 import { ExplorerStoreProvider } from "@/components/providers/explorer-store-provider";
-import { graphUrl, parseExplorerSearch, type GraphResponse } from "@/lib/explorer";
-import { listEditions } from "@/server/db/queries/games";
-import { getCharacterGraph } from "@/server/db/queries/moves";
+import { graphUrl, parseExplorerSearch } from "@/lib/explorer";
+import { getExplorerData } from "@/server/db/queries/explorer";
 import { loadCharacter } from "../../../../data";
 
 type Props = PageProps<"/games/[game]/[character]/explore/[move]">;
@@ -23,21 +22,12 @@ export default async function ExplorePage({ params, searchParams }: Props) {
   const root = decodeURIComponent(slugs.move);
   const { game, character } = await loadCharacter(slugs.game, slugs.character);
   const search = parseExplorerSearch(await searchParams);
-  const editions = await listEditions({ gameId: game.id });
-  const edition = editions.find((e) => e.slug === search.edition) ?? editions[0];
-  if (!edition) notFound();
-
-  // A move missing from this Edition is explained by the view, with a way back.
-  const { graph, roots } = await getCharacterGraph({ characterId: character.id, editionId: edition.id });
-
-  const fallback: GraphResponse = {
-    game: { slug: game.slug, name: game.name, fps: game.fps, fastest: game.fastest, launchAt: game.launchAt },
-    character: { id: character.id, slug: character.slug, name: character.name },
-    edition,
-    editions,
-    roots,
-    graph,
-  };
+  // An unknown Edition falls back to the newest, as the move list does.
+  let found = await getExplorerData({ characterId: character.id, edition: search.edition });
+  if (!found.ok && found.missing === "edition") found = await getExplorerData({ characterId: character.id });
+  if (!found.ok) notFound();
+  const fallback = found.data;
+  const { graph, edition } = fallback;
   const rootMove = graph.nodes.find((n) => n.id === root);
 
   return (
@@ -63,6 +53,7 @@ export default async function ExplorePage({ params, searchParams }: Props) {
         <ExplorerStoreProvider
           initial={{
             selected: search.path ?? null,
+            opponent: search.vs !== undefined && fallback.cast.some((c) => c.id === search.vs) ? search.vs : null,
             options: {
               maxDepth: search.depth ?? 8,
               maxStanceVisits: search.visits ?? 1,

@@ -1,0 +1,1 @@
+ALTER TABLE `moves` ADD `from_posture` enum('standing','crouching','any') DEFAULT 'standing' NOT NULL;
