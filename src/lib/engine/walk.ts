@@ -37,22 +37,108 @@ export function resolveOptions(options?: ExploreOptions): ResolvedOptions {
   return parsed.data;
 }
 
+// Per-depth info word: hit count, gap count and the combo and jail flags, so a step
+// writes one slot for all four. Hits and gaps are at most MAX_DEPTH_LIMIT (64): 7 bits each.
+const HITS = 0x7f;
+const GAP_SHIFT = 7;
+const GAP_ONE = 1 << GAP_SHIFT;
+const COMBO = 1 << 14;
+const JAIL = 1 << 15;
+const FLAGS = COMBO | JAIL;
+if (schema.MAX_DEPTH_LIMIT > HITS) throw new Error("info word too narrow for MAX_DEPTH_LIMIT");
+
+/** What a step into a hit does to the info word: flags it keeps, and one more gap if it leaves one. */
+function stepBits(gap: number, combo: boolean): number {
+  return (combo ? COMBO : 0) | (gap <= 0 ? JAIL : 0) | (gap > 0 ? GAP_ONE : 0);
+}
+
+/**
+ * Everything about a graph that is fixed for given `fastest` and `launchAt`, so reading
+ * a path's block class or frames saved is one array read. Kept per compiled graph, as a
+ * caller may run many short walks (a limited explore, a top-k) over one graph.
+ */
+interface WalkTables {
+  readonly fastest: number;
+  readonly launchAt: number;
+  /**
+   * What a path's end decides, by its tail: move n ends at tail n, a stance entered by
+   * the cancel in slot s at tail nodeCount + s. Frames are NaN for a state or none.
+   */
+  readonly tailClass: readonly BlockClass[];
+  readonly tailSaved: Float64Array;
+  readonly tailFrames: Float64Array;
+  readonly tailOutcome: readonly StepOutcome[];
+  /** stepBits of the follow in slot s. */
+  readonly followStep: Int32Array;
+}
+
+const tablesByGraph = new WeakMap<CompiledGraph, WalkTables[]>();
+
+function walkTables(g: CompiledGraph, fastest: number, launchAt: number): WalkTables {
+  let list = tablesByGraph.get(g);
+  if (list === undefined) tablesByGraph.set(g, (list = []));
+  for (const t of list) if (t.fastest === fastest && t.launchAt === launchAt) return t;
+  const nodes = g.nodeCount;
+  const tails = nodes + g.slotEdge.length;
+  const tailClass = new Array<BlockClass>(tails);
+  const tailSaved = new Float64Array(tails).fill(Number.NaN);
+  const tailFrames = new Float64Array(tails).fill(Number.NaN);
+  // Tails that never end a path (stances, slots that are not cancels) get a move's outcome.
+  const tailOutcome = new Array<StepOutcome>(tails);
+  const followStep = new Int32Array(g.slotEdge.length);
+  const anyOutcome = g.nodeOutcome.find((o) => o !== undefined) as StepOutcome;
+  for (let n = 0; n < nodes; n++) {
+    tailFrames[n] = g.blockFrames[n]!;
+    tailClass[n] = classifyFrames(g.blockFrames[n]!, fastest, launchAt);
+    tailOutcome[n] = g.nodeOutcome[n] ?? anyOutcome;
+    for (let s = g.slotStart[n]!; s < g.slotStart[n + 1]!; s++) {
+      const e = g.slotEdge[s]!;
+      tailFrames[nodes + s] = g.edgeBlockFrames[e]!;
+      tailClass[nodes + s] = classifyFrames(g.edgeBlockFrames[e]!, fastest, launchAt);
+      tailOutcome[nodes + s] = g.edgeOutcome[e] ?? anyOutcome;
+      if (g.slotKind[s] === CANCEL) tailSaved[nodes + s] = g.edgeBlockFrames[e]! - g.blockFrames[n]!;
+      else if (g.slotKind[s] === FOLLOW) followStep[s] = stepBits(g.edgeGap[e]!, g.edgeCombo[e] === 1);
+    }
+  }
+  const t: WalkTables = { fastest, launchAt, tailClass, tailSaved, tailFrames, tailOutcome, followStep };
+  // A handful of option pairs per graph at most in practice; keep the newest few.
+  if (list.length >= 4) list.shift();
+  list.push(t);
+  return t;
+}
+
 /**
  * A depth-first walk over every place a path may stop, one place per `advance()`.
  *
  * The walker is itself the cursor: after `advance()` returns true its fields describe the
- * current path. All running annotations live on explicit per-depth stacks, so going one
- * step deeper writes one slot and going back is free: a depth's list lengths and flags
- * are read from its own slot, and whatever lies beyond them is simply overwritten later.
- * Array-valued fields are built only when read; `toResult()` builds a detached copy.
+ * current path. A step deeper writes five slots of per-depth stacks (node, tail, next
+ * out-slot, info word, damage) and going back is free. Everything else is derived from those when
+ * read: the edge into depth i is the out-slot its parent last took (`sNext[i - 1] - 1`),
+ * and lists (gaps, guards, auto-guard...) are rebuilt from the nodes and edges on the
+ * path, as only materialising reads them. `toResult()` builds a detached copy.
  */
 export class PathWalker implements PathView {
   private readonly g: CompiledGraph;
   private readonly root: number;
   private readonly maxDepth: number;
   private readonly maxStanceVisits: number;
-  private readonly fastest: number;
-  private readonly launchAt: number;
+
+  // The compiled arrays the walk reads, one property load away instead of two.
+  private readonly isMove: Uint8Array;
+  private readonly level: Uint8Array;
+  private readonly nodeDamage: Float64Array;
+  private readonly startup: Float64Array;
+  private readonly slotStart: Int32Array;
+  private readonly slotEdge: Int32Array;
+  private readonly slotTo: Int32Array;
+  private readonly slotKind: Uint8Array;
+  private readonly edgeBlockFrames: Float64Array;
+  private readonly edgeHitFrames: Float64Array;
+  private readonly tailClass: readonly BlockClass[];
+  private readonly tailSaved: Float64Array;
+  private readonly tailFrames: Float64Array;
+  private readonly tailOutcome: readonly StepOutcome[];
+  private readonly followStep: Int32Array;
 
   /** Index of the path's last node on the stacks; -1 before the first or after the last path. */
   private d = -1;
@@ -60,34 +146,21 @@ export class PathWalker implements PathView {
 
   // Per depth.
   private readonly sNode: Int32Array;
-  private readonly sEdge: Int32Array;
+  /** The path's end so far, as a WalkTables tail: the end's getters read one table slot. */
+  private readonly sTail: Int32Array;
   private readonly sNext: Int32Array;
-  private readonly sMoves: Int32Array;
+  private readonly sInfo: Int32Array;
   private readonly sDamage: Float64Array;
-  private readonly sCombo: Uint8Array;
-  private readonly sJail: Uint8Array;
-  private readonly sGapLen: Int32Array;
-  private readonly sDuckLen: Int32Array;
-  private readonly sMixLen: Int32Array;
-  private readonly sAgLen: Int32Array;
-  private readonly sAgMask: Int32Array;
-
-  // Lists whose current length is kept per depth above.
-  private readonly hitNode: Int32Array;
-  private readonly gapAfter: Int32Array;
-  private readonly gapFrames: Float64Array;
-  private readonly duckIdx: Int32Array;
-  private readonly mixNode: Int32Array;
-  private readonly agOrder: Uint8Array;
 
   private readonly visits: Int32Array;
+  private readonly agOrder: Uint8Array;
 
   // The input of each depth's path, kept once built: a child's input is its parent's plus
-  // one edge, so materialising in walk order costs one string per path. A depth's cache is
-  // valid while its stamp equals the push that put the current node there.
-  private pushes = 0;
-  private readonly sStamp: Float64Array;
-  private readonly inputStamp: Float64Array;
+  // one edge, so materialising in walk order costs one string per path. The cache of
+  // depth i holds while the out-slots taken at depths 0 .. i - 1 are those it was built
+  // on (inputKey[1 .. i]): checked when read, so walking costs nothing for it. Rebuilding
+  // depth i voids depth i + 1, so a matching key also means a matching prefix.
+  private readonly inputKey: Int32Array;
   private readonly inputAt: string[];
 
   constructor(graph: MoveGraph | CompiledGraph, rootId: string, options?: ExploreOptions) {
@@ -97,32 +170,35 @@ export class PathWalker implements PathView {
     this.root = g.require(rootId);
     this.maxDepth = o.maxDepth;
     this.maxStanceVisits = o.maxStanceVisits;
-    this.fastest = o.fastest;
-    this.launchAt = o.launchAt;
+    const t = walkTables(g, o.fastest, o.launchAt);
+    this.isMove = g.isMove;
+    this.level = g.level;
+    this.nodeDamage = g.damage;
+    this.startup = g.startup;
+    this.slotStart = g.slotStart;
+    this.slotEdge = g.slotEdge;
+    this.slotTo = g.slotTo;
+    this.slotKind = g.slotKind;
+    this.edgeBlockFrames = g.edgeBlockFrames;
+    this.edgeHitFrames = g.edgeHitFrames;
+    this.tailClass = t.tailClass;
+    this.tailSaved = t.tailSaved;
+    this.tailFrames = t.tailFrames;
+    this.tailOutcome = t.tailOutcome;
+    this.followStep = t.followStep;
     // At most maxDepth moves, each stance is preceded by a move except a stance root.
     const size = 2 * o.maxDepth + 2;
     this.sNode = new Int32Array(size);
-    this.sEdge = new Int32Array(size);
+    this.sTail = new Int32Array(size);
     this.sNext = new Int32Array(size);
-    this.sMoves = new Int32Array(size);
+    this.sInfo = new Int32Array(size);
     this.sDamage = new Float64Array(size);
-    this.sCombo = new Uint8Array(size);
-    this.sJail = new Uint8Array(size);
-    this.sGapLen = new Int32Array(size);
-    this.sDuckLen = new Int32Array(size);
-    this.sMixLen = new Int32Array(size);
-    this.sAgLen = new Int32Array(size);
-    this.sAgMask = new Int32Array(size);
-    this.hitNode = new Int32Array(o.maxDepth);
-    this.gapAfter = new Int32Array(o.maxDepth);
-    this.gapFrames = new Float64Array(o.maxDepth);
-    this.duckIdx = new Int32Array(o.maxDepth);
-    this.mixNode = new Int32Array(o.maxDepth);
-    this.agOrder = new Uint8Array(LEVELS.length);
     this.visits = new Int32Array(g.nodeCount);
-    this.sStamp = new Float64Array(size);
-    this.inputStamp = new Float64Array(size).fill(-1);
+    this.agOrder = new Uint8Array(LEVELS.length);
+    this.inputKey = new Int32Array(size).fill(-1);
     this.inputAt = new Array<string>(size).fill("");
+    const first = g.nodes[this.root]!;
+    this.inputAt[0] = first.kind === "move" ? first.input : "";
   }
 
   /** Starts the walk over, so one walker can serve several passes. */
@@ -144,26 +220,14 @@ export class PathWalker implements PathView {
   }
 
   private pushRoot(): boolean {
-    const g = this.g;
     const r = this.root;
     this.sNode[0] = r;
-    this.sEdge[0] = -1;
-    this.sNext[0] = g.slotStart[r]!;
-    this.sCombo[0] = 1;
-    this.sJail[0] = 1;
-    this.sGapLen[0] = 0;
-    this.sMixLen[0] = 0;
-    this.sAgLen[0] = 0;
-    this.sAgMask[0] = 0;
-    this.sStamp[0] = ++this.pushes;
+    this.sTail[0] = r;
+    this.sNext[0] = this.slotStart[r]!;
     this.d = 0;
-    if (g.isMove[r]) {
-      this.sMoves[0] = 1;
-      this.hitNode[0] = r;
-      this.sDamage[0] = g.damage[r]!;
-      this.sDuckLen[0] = g.level[r] === HIGH ? 1 : 0;
-      this.duckIdx[0] = 0;
-      if (g.mixup[r]) this.mixNode[this.sMixLen[0]++] = r;
+    if (this.isMove[r]) {
+      this.sInfo[0] = FLAGS | 1;
+      this.sDamage[0] = this.nodeDamage[r]!;
       return true;
     }
     // A stance root alone has no hit and so no outcome: it is not a path, only a start.
@@ -172,20 +236,23 @@ export class PathWalker implements PathView {
       return false;
     }
     this.visits[r] = 1;
-    this.sMoves[0] = 0;
+    // The path's first hit opens it, with nothing before it to combo or jail with.
+    this.sInfo[0] = FLAGS;
     this.sDamage[0] = 0;
-    this.sDuckLen[0] = 0;
     return this.descend();
   }
 
+  // One function for the whole step, pushes included: it runs once per path.
   private descend(): boolean {
-    const g = this.g;
-    const slotStart = g.slotStart;
-    const slotKind = g.slotKind;
-    const slotTo = g.slotTo;
+    const slotStart = this.slotStart;
+    const slotKind = this.slotKind;
+    const slotTo = this.slotTo;
     const sNode = this.sNode;
+    const sTail = this.sTail;
     const sNext = this.sNext;
-    const sMoves = this.sMoves;
+    const sInfo = this.sInfo;
+    const cancelTail = this.isMove.length;
+    const sDamage = this.sDamage;
     const visits = this.visits;
     const maxDepth = this.maxDepth;
     const maxVisits = this.maxStanceVisits;
@@ -199,112 +266,64 @@ export class PathWalker implements PathView {
         const to = slotTo[slot]!;
         if (kind === CANCEL) {
           if (visits[to]! < maxVisits) {
+            visits[to]!++;
             sNext[d] = slot + 1;
-            this.pushStance(d, slot, to);
+            sNode[d + 1] = to;
+            sTail[d + 1] = cancelTail + slot;
+            sNext[d + 1] = slotStart[to]!;
+            sInfo[d + 1] = sInfo[d]!;
+            sDamage[d + 1] = sDamage[d]!;
+            this.d = d + 1;
             return true;
           }
-        } else if (sMoves[d]! < maxDepth) {
-          sNext[d] = slot + 1;
-          this.pushMove(d, slot, to, kind);
-          return true;
+        } else {
+          const info = sInfo[d]!;
+          if ((info & HITS) < maxDepth) {
+            sNext[d] = slot + 1;
+            let step: number;
+            if ((info & HITS) === 0) step = FLAGS;
+            else if (kind === FOLLOW) step = this.followStep[slot]!;
+            else step = this.enterStep(sNext[d - 1]! - 1, to);
+            sNode[d + 1] = to;
+            sTail[d + 1] = to;
+            sNext[d + 1] = slotStart[to]!;
+            sInfo[d + 1] = (info & (step | ~FLAGS)) + 1 + (step & GAP_ONE);
+            sDamage[d + 1] = sDamage[d]! + this.nodeDamage[to]!;
+            this.d = d + 1;
+            return true;
+          }
         }
         slot++;
       }
-      if (!g.isMove[n]) visits[n]!--;
+      if (!this.isMove[n]) visits[n]!--;
       d--;
     }
     this.d = -1;
     return false;
   }
 
-  private pushMove(d: number, slot: number, t: number, kind: number): void {
-    const g = this.g;
-    const e = g.slotEdge[slot]!;
-    const nd = d + 1;
-    this.d = nd;
-    this.sStamp[nd] = ++this.pushes;
-    this.sNode[nd] = t;
-    this.sEdge[nd] = e;
-    this.sNext[nd] = g.slotStart[t]!;
-    const hit = this.sMoves[d]!;
-    this.sMoves[nd] = hit + 1;
-    this.hitNode[hit] = t;
-    this.sDamage[nd] = this.sDamage[d]! + g.damage[t]!;
-
-    // NaN marks "no gap known": it fails every comparison below.
-    let gap: number;
-    let combo: number;
-    if (kind === FOLLOW) {
-      gap = g.edgeGap[e]!;
-      combo = g.edgeCombo[e]!;
-    } else {
-      const cancel = this.sEdge[d]!;
-      if (cancel >= 0) {
-        const s = g.startup[t]!;
-        gap = s - g.edgeBlockFrames[cancel]! - 1;
-        combo = s <= g.edgeHitFrames[cancel]! ? 1 : 0;
-      } else {
-        gap = Number.NaN;
-        combo = 0;
-      }
-    }
-
-    let gapLen = this.sGapLen[d]!;
-    let duckLen = this.sDuckLen[d]!;
-    if (hit === 0) {
-      // The path's first hit (from a stance root) opens the path: nothing before it to combo or jail.
-      this.sCombo[nd] = 1;
-      this.sJail[nd] = 1;
-      if (g.level[t] === HIGH) this.duckIdx[duckLen++] = 0;
-    } else {
-      this.sCombo[nd] = this.sCombo[d]! & combo;
-      this.sJail[nd] = this.sJail[d]! & (gap <= 0 ? 1 : 0);
-      if (gap > 0) {
-        this.gapAfter[gapLen] = hit - 1;
-        this.gapFrames[gapLen] = gap;
-        gapLen++;
-        if (g.level[t] === HIGH) this.duckIdx[duckLen++] = hit;
-      }
-    }
-    this.sGapLen[nd] = gapLen;
-    this.sDuckLen[nd] = duckLen;
-    let mixLen = this.sMixLen[d]!;
-    if (g.mixup[t]) this.mixNode[mixLen++] = t;
-    this.sMixLen[nd] = mixLen;
-    this.sAgLen[nd] = this.sAgLen[d]!;
-    this.sAgMask[nd] = this.sAgMask[d]!;
+  /**
+   * stepBits of an enter into move t right after the cancel in slot c: a follow-up at the
+   * cancel's advantage (NaN frames for a state: no gap known, no combo).
+   */
+  private enterStep(c: number, t: number): number {
+    const e = this.slotEdge[c]!;
+    const s = this.startup[t]!;
+    return stepBits(s - this.edgeBlockFrames[e]! - 1, s <= this.edgeHitFrames[e]!);
   }
 
-  private pushStance(d: number, slot: number, t: number): void {
-    const g = this.g;
-    const e = g.slotEdge[slot]!;
-    const nd = d + 1;
-    this.d = nd;
-    this.sStamp[nd] = ++this.pushes;
-    this.visits[t]!++;
-    this.sNode[nd] = t;
-    this.sEdge[nd] = e;
-    this.sNext[nd] = g.slotStart[t]!;
-    this.sMoves[nd] = this.sMoves[d]!;
-    this.sDamage[nd] = this.sDamage[d]!;
-    this.sCombo[nd] = this.sCombo[d]!;
-    this.sJail[nd] = this.sJail[d]!;
-    this.sGapLen[nd] = this.sGapLen[d]!;
-    this.sDuckLen[nd] = this.sDuckLen[d]!;
-    this.sMixLen[nd] = this.sMixLen[d]!;
-    let mask = this.sAgMask[d]!;
-    let len = this.sAgLen[d]!;
-    const end = g.agStart[e + 1]!;
-    for (let k = g.agStart[e]!; k < end; k++) {
-      const level = g.agLevels[k]!;
-      const bit = 1 << level;
-      if ((mask & bit) === 0) {
-        mask |= bit;
-        this.agOrder[len++] = level;
-      }
-    }
-    this.sAgMask[nd] = mask;
-    this.sAgLen[nd] = len;
+  /** Info-word bits of the step into the move at depth i >= 1, when it is not the path's first hit. */
+  private stepInto(i: number): number {
+    const slot = this.sNext[i - 1]! - 1;
+    return this.slotKind[slot] === FOLLOW ? this.followStep[slot]! : this.enterStep(this.sNext[i - 2]! - 1, this.sNode[i]!);
+  }
+
+  /** The gap on block of that step (NaN: none known). */
+  private gapInto(i: number): number {
+    const slot = this.sNext[i - 1]! - 1;
+    const e = this.slotEdge[slot]!;
+    if (this.slotKind[slot] === FOLLOW) return this.g.edgeGap[e]!;
+    return this.startup[this.sNode[i]!]! - this.edgeBlockFrames[this.slotEdge[this.sNext[i - 2]! - 1]!]! - 1;
   }
 
   // ---- The current path. Scalars are O(1); arrays are built on read. ----
@@ -316,7 +335,7 @@ export class PathWalker implements PathView {
 
   /** Number of hits (move nodes) on the current path. */
   get hitCount(): number {
-    return this.sMoves[this.d]!;
+    return this.sInfo[this.d]! & HITS;
   }
 
   get damage(): number {
@@ -324,12 +343,11 @@ export class PathWalker implements PathView {
   }
 
   get endsIn(): "move" | "stance" {
-    return this.g.isMove[this.sNode[this.d]!] ? "move" : "stance";
+    return this.isMove[this.sNode[this.d]!] ? "move" : "stance";
   }
 
   private lastStep(): StepOutcome {
-    const n = this.sNode[this.d]!;
-    return (this.g.isMove[n] ? this.g.nodeOutcome[n] : this.g.edgeOutcome[this.sEdge[this.d]!]) as StepOutcome;
+    return this.tailOutcome[this.sTail[this.d]!]!;
   }
 
   get onBlock(): Outcome {
@@ -346,118 +364,173 @@ export class PathWalker implements PathView {
 
   /** The numeric on-block advantage, NaN for a state: cheap to rank by. */
   get onBlockFrames(): number {
-    const n = this.sNode[this.d]!;
-    return this.g.isMove[n] ? this.g.blockFrames[n]! : this.g.edgeBlockFrames[this.sEdge[this.d]!]!;
+    return this.tailFrames[this.sTail[this.d]!]!;
   }
 
   get framesSaved(): number | null {
-    const d = this.d;
-    const n = this.sNode[d]!;
-    if (this.g.isMove[n] || d === 0) return null;
-    const saved = this.g.edgeBlockFrames[this.sEdge[d]!]! - this.g.blockFrames[this.sNode[d - 1]!]!;
+    const saved = this.tailSaved[this.sTail[this.d]!]!;
     return saved === saved ? saved : null;
   }
 
   get blockClass(): BlockClass {
-    return classifyFrames(this.onBlockFrames, this.fastest, this.launchAt);
+    return this.tailClass[this.sTail[this.d]!]!;
   }
 
   get defenderStance(): DefenderStance {
-    const hits = this.sMoves[this.d]!;
-    return hits > 0 && this.g.level[this.hitNode[hits - 1]!] === LOW ? "crouching" : "standing";
+    const d = this.d;
+    if ((this.sInfo[d]! & HITS) === 0) return "standing";
+    const n = this.sNode[d]!;
+    // A stance on a path is entered by a cancel, right after a hit.
+    const last = this.isMove[n] ? n : this.sNode[d - 1]!;
+    return this.level[last] === LOW ? "crouching" : "standing";
   }
 
   get naturalCombo(): boolean {
-    return this.sCombo[this.d] === 1;
+    return (this.sInfo[this.d]! & COMBO) !== 0;
   }
 
   get jails(): boolean {
-    return this.sJail[this.d] === 1;
+    return (this.sInfo[this.d]! & JAIL) !== 0;
   }
 
   get gapCount(): number {
-    return this.sGapLen[this.d]!;
+    return (this.sInfo[this.d]! >> GAP_SHIFT) & HITS;
   }
 
   get nodes(): string[] {
     const ids = this.g.nodeIds;
+    const d = this.d;
     // Sized up front: a pushed-into array over-allocates, and materialised paths are many.
-    const out = new Array<string>(this.d + 1);
-    for (let i = 0; i <= this.d; i++) out[i] = ids[this.sNode[i]!]!;
+    const out = new Array<string>(d + 1);
+    for (let i = 0; i <= d; i++) out[i] = ids[this.sNode[i]!]!;
     return out;
   }
 
   get edges(): readonly string[] {
-    if (this.d === 0) return EMPTY;
+    const d = this.d;
+    if (d === 0) return EMPTY;
     const ids = this.g.edgeIds;
-    const out = new Array<string>(this.d);
-    for (let i = 1; i <= this.d; i++) out[i - 1] = ids[this.sEdge[i]!]!;
+    const out = new Array<string>(d);
+    for (let i = 1; i <= d; i++) out[i - 1] = ids[this.slotEdge[this.sNext[i - 1]! - 1]!]!;
     return out;
   }
 
   get input(): string {
-    return this.inputOf(this.d);
-  }
-
-  private inputOf(d: number): string {
-    if (this.inputStamp[d] === this.sStamp[d]) return this.inputAt[d]!;
-    let s: string;
-    if (d === 0) {
-      const first = this.g.nodes[this.sNode[0]!]!;
-      s = first.kind === "move" ? first.input : "";
-    } else {
-      s = this.inputOf(d - 1) + this.g.edgeInputs[this.sEdge[d]!]!;
+    const d = this.d;
+    const sNext = this.sNext;
+    const key = this.inputKey;
+    const at = this.inputAt;
+    let i = 1;
+    while (i <= d && key[i] === sNext[i - 1]) i++;
+    if (i > d) return at[d]!;
+    const inputs = this.g.edgeInputs;
+    for (; i <= d; i++) {
+      const taken = sNext[i - 1]!;
+      at[i] = at[i - 1]! + inputs[this.slotEdge[taken - 1]!]!;
+      key[i] = taken;
     }
-    this.inputAt[d] = s;
-    this.inputStamp[d] = this.sStamp[d]!;
-    return s;
+    // Deeper caches were built on the old prefix.
+    if (d + 1 < key.length) key[d + 1] = -1;
+    return at[d]!;
   }
 
   get levels(): Level[] {
-    const hits = this.sMoves[this.d]!;
+    const hits = this.sInfo[this.d]! & HITS;
     const out = new Array<Level>(hits);
-    for (let i = 0; i < hits; i++) out[i] = LEVELS[this.g.level[this.hitNode[i]!]!]!;
+    let h = 0;
+    for (let i = 0; h < hits; i++) {
+      const n = this.sNode[i]!;
+      if (this.isMove[n]) out[h++] = LEVELS[this.level[n]!]!;
+    }
     return out;
   }
 
   /** The per-hit guard lists are shared frozen arrays, one per level. */
   get guards(): (readonly Guard[])[] {
-    const hits = this.sMoves[this.d]!;
+    const hits = this.sInfo[this.d]! & HITS;
     const out = new Array<readonly Guard[]>(hits);
-    for (let i = 0; i < hits; i++) out[i] = GUARDS_BY_CODE[this.g.level[this.hitNode[i]!]!]!;
+    let h = 0;
+    for (let i = 0; h < hits; i++) {
+      const n = this.sNode[i]!;
+      if (this.isMove[n]) out[h++] = GUARDS_BY_CODE[this.level[n]!]!;
+    }
     return out;
   }
 
   get gaps(): readonly Readonly<Gap>[] {
-    const len = this.sGapLen[this.d]!;
+    const len = (this.sInfo[this.d]! >> GAP_SHIFT) & HITS;
     if (len === 0) return EMPTY;
-    const out: Gap[] = [];
-    for (let i = 0; i < len; i++) out.push({ after: this.gapAfter[i]!, frames: this.gapFrames[i]! });
+    const out = new Array<Gap>(len);
+    let k = 0;
+    let h = 0;
+    for (let i = 0; k < len; i++) {
+      if (!this.isMove[this.sNode[i]!]) continue;
+      if (h > 0 && (this.stepInto(i) & GAP_ONE) !== 0) out[k++] = { after: h - 1, frames: this.gapInto(i) };
+      h++;
+    }
     return out;
   }
 
   get duckable(): readonly number[] {
-    const len = this.sDuckLen[this.d]!;
-    if (len === 0) return EMPTY;
-    const out: number[] = [];
-    for (let i = 0; i < len; i++) out.push(this.duckIdx[i]!);
+    const d = this.d;
+    // Counted first so the list is allocated at its size: a pushed-into array over-allocates.
+    let count = 0;
+    for (let i = 0, h = 0; i <= d; i++) {
+      const n = this.sNode[i]!;
+      if (!this.isMove[n]) continue;
+      if (this.level[n] === HIGH && (h === 0 || (this.stepInto(i) & GAP_ONE) !== 0)) count++;
+      h++;
+    }
+    if (count === 0) return EMPTY;
+    const out = new Array<number>(count);
+    for (let i = 0, h = 0, k = 0; k < count; i++) {
+      const n = this.sNode[i]!;
+      if (!this.isMove[n]) continue;
+      if (this.level[n] === HIGH && (h === 0 || (this.stepInto(i) & GAP_ONE) !== 0)) out[k++] = h;
+      h++;
+    }
     return out;
   }
 
   get mixupPoints(): readonly string[] {
-    const len = this.sMixLen[this.d]!;
-    if (len === 0) return EMPTY;
+    const d = this.d;
+    const mixup = this.g.mixup;
+    let count = 0;
+    for (let i = 0; i <= d; i++) count += mixup[this.sNode[i]!]!;
+    if (count === 0) return EMPTY;
     const ids = this.g.nodeIds;
-    const out: string[] = [];
-    for (let i = 0; i < len; i++) out.push(ids[this.mixNode[i]!]!);
+    const out = new Array<string>(count);
+    let k = 0;
+    for (let i = 0; k < count; i++) {
+      const n = this.sNode[i]!;
+      if (mixup[n]) out[k++] = ids[n]!;
+    }
     return out;
   }
 
   get autoGuard(): readonly Level[] {
-    const len = this.sAgLen[this.d]!;
-    if (len === 0) return EMPTY;
-    const out: Level[] = [];
-    for (let i = 0; i < len; i++) out.push(LEVELS[this.agOrder[i]!]!);
+    const d = this.d;
+    const g = this.g;
+    // Levels in first-seen order, kept in a small buffer, then copied out at their count.
+    const order = this.agOrder;
+    let count = 0;
+    let mask = 0;
+    for (let i = 1; i <= d; i++) {
+      if (this.isMove[this.sNode[i]!]) continue;
+      const e = this.slotEdge[this.sNext[i - 1]! - 1]!;
+      const end = g.agStart[e + 1]!;
+      for (let k = g.agStart[e]!; k < end; k++) {
+        const level = g.agLevels[k]!;
+        const bit = 1 << level;
+        if ((mask & bit) === 0) {
+          mask |= bit;
+          order[count++] = level;
+        }
+      }
+    }
+    if (count === 0) return EMPTY;
+    const out = new Array<Level>(count);
+    for (let k = 0; k < count; k++) out[k] = LEVELS[order[k]!]!;
     return out;
   }
 
