@@ -102,3 +102,62 @@ test("a blocked low leaves the defender crouching, and the card lists the punish
   await expect(page).toHaveURL(/vs=\d+/);
   await expect(panel.getByTestId("punish-verdict")).toContainText("Velka");
 });
+
+test("the table of all paths filters, and selecting a row selects the path in the graph and back", async ({ page }) => {
+  const explorer = new ExplorerPage(page);
+  await page.goto("/games/vesper-circuit/tarrow/explore/2");
+  const table = page.getByTestId("paths-table");
+  const rows = table.locator("tr[data-path-key]");
+  await expect(rows.first()).toBeVisible();
+  const total = await rows.count();
+  expect(total).toBeGreaterThan(3);
+
+  await table.getByLabel(/stance only/i).check();
+  await expect(rows).not.toHaveCount(total);
+  const inStance = await rows.locator('[data-field="endsIn"]').allTextContents();
+  expect(inStance.length).toBeGreaterThan(0);
+  expect(new Set(inStance.map((t) => t.trim()))).toEqual(new Set(["stance"]));
+
+  await rows.filter({ hasText: "2,2,3~f" }).first().click();
+  await expect(explorer.field("input")).toContainText("2,2,3~f");
+  await expect(explorer.node("stance:ember")).toHaveAttribute("data-on-path", "true");
+
+  await table.getByLabel(/stance only/i).uncheck();
+  await explorer.node("2,2").click();
+  await expect(table.locator('tr[aria-selected="true"]')).toContainText("2,2");
+});
+
+test("the graph works from the keyboard: arrows move, Enter selects, Escape clears", async ({ page }) => {
+  const explorer = new ExplorerPage(page);
+  await page.goto("/games/vesper-circuit/tarrow/explore/2");
+  const canvas = page.getByRole("group", { name: /Move graph/ });
+  await canvas.focus();
+  await page.keyboard.press("ArrowRight");
+  await expect(explorer.node("2,2")).toHaveAttribute("data-focus", "true");
+  await page.keyboard.press("Enter");
+  await expect(explorer.field("input")).toHaveText("2,2");
+
+  await page.keyboard.press("ArrowRight");
+  const first = await explorer.graph.locator("[data-focus]").getAttribute("data-node-id");
+  await page.keyboard.press("ArrowDown");
+  const second = await explorer.graph.locator("[data-focus]").getAttribute("data-node-id");
+  expect(new Set([first, second])).toEqual(new Set(["2,2,3", "2,2,1+2"]));
+  await page.keyboard.press("Enter");
+  await expect(explorer.field("input")).toHaveText(second!);
+
+  await page.keyboard.press("Escape");
+  await expect(explorer.emptyCard).toBeVisible();
+});
+
+test("the graph exports as a PNG", async ({ page }) => {
+  await page.goto("/games/vesper-circuit/tarrow/explore/2");
+  const download = page.waitForEvent("download");
+  await page.getByRole("button", { name: "Export PNG" }).click();
+  const file = await download;
+  expect(file.suggestedFilename()).toMatch(/^framefork-tarrow-2-1-1\.png$/);
+  const path = await file.path();
+  const { readFileSync } = await import("node:fs");
+  const bytes = readFileSync(path);
+  expect(bytes.subarray(1, 4).toString()).toBe("PNG");
+  expect(bytes.length).toBeGreaterThan(5_000);
+});

@@ -8,9 +8,11 @@ import { useExplorerStore } from "@/components/providers/explorer-store-provider
 import type { AppError } from "@/lib/errors";
 import { computePaths, graphUrl, pathKey, reachableSubgraph, type GraphResponse } from "@/lib/explorer";
 import { fetcher } from "@/lib/fetcher";
+import { FrameTimeline } from "./frame-timeline";
 import { Legend } from "./legend";
 import { OptionsBar } from "./options-bar";
 import { PathCard } from "./path-card";
+import { PathsTable } from "./paths-table";
 import { PunishPanel } from "./punish-panel";
 
 export function ExplorerView({ characterId, root, edition }: { characterId: number; root: string; edition: string }) {
@@ -86,20 +88,32 @@ export function ExplorerView({ characterId, root, edition }: { characterId: numb
     <div className="space-y-3">
       <OptionsBar editions={data.editions} edition={edition} pathCount={computed.paths.length} truncated={computed.truncated} />
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_22rem]">
-        <div className="h-[55vh] min-h-80 overflow-hidden rounded-lg border border-ink-800 bg-ink-950 lg:h-[68vh]" data-testid="graph">
-          <GraphCanvas graph={sub} rules={rules} selected={selected} onSelectNode={onSelectNode} />
+        <div className="min-w-0 space-y-3">
+          <div className="h-[55vh] min-h-80 overflow-hidden rounded-lg border border-ink-800 bg-ink-950 lg:h-[68vh]" data-testid="graph">
+            <GraphCanvas
+              graph={sub}
+              rules={rules}
+              selected={selected}
+              onSelectNode={onSelectNode}
+              onClear={() => select(null)}
+              exportName={`framefork-${data.character.slug}-${root}-${data.edition.slug}.png`.replace(/[^\w.+-]+/g, "_")}
+            />
+          </div>
+          {selected ? <FrameTimeline path={selected} graph={sub} rules={rules} /> : null}
         </div>
         <div className="space-y-4">
           {selected ? (
-            <PathCard
-              path={selected}
-              graph={sub}
-              rules={rules}
-              alternatives={alternatives}
-              onPickAlternative={(p) => select(pathKey(p))}
-            />
-          ) : null}
-          {selected ? <PunishPanel path={selected} data={data} fastest={options.fastest} /> : (
+            <>
+              <PathCard
+                path={selected}
+                graph={sub}
+                rules={rules}
+                alternatives={alternatives}
+                onPickAlternative={(p) => select(pathKey(p))}
+              />
+              <PunishPanel path={selected} data={data} fastest={options.fastest} />
+            </>
+          ) : (
             <div className="rounded-lg border border-dashed border-ink-700 p-4 text-sm text-ink-300" data-testid="path-card-empty">
               {selectedKey !== null
                 ? "The selected path is not reachable with these options. Pick a node to choose another."
@@ -108,6 +122,7 @@ export function ExplorerView({ characterId, root, edition }: { characterId: numb
           )}
         </div>
       </div>
+      <PathsTable paths={computed.paths} selectedKey={selectedKey} onSelect={select} rules={rules} />
       <Legend />
     </div>
   );

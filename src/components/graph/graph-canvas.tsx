@@ -2,7 +2,8 @@
 
 import "@xyflow/react/dist/style.css";
 import { Background, Controls, MarkerType, MiniMap, ReactFlow, type Edge } from "@xyflow/react";
-import { useMemo } from "react";
+import { useMemo, useState, type KeyboardEvent } from "react";
+import { ExportButton } from "./export-button";
 import type { BlockRules } from "@/components/ui/block-class";
 import type { MoveGraph, PathResult } from "@/lib/engine";
 import { layoutGraph } from "@/lib/layout-graph";
@@ -26,11 +27,16 @@ export function GraphCanvas({
   rules,
   selected,
   onSelectNode,
+  onClear,
+  exportName,
 }: {
   graph: MoveGraph;
   rules: BlockRules;
   selected: PathResult | null;
   onSelectNode: (nodeId: string) => void;
+  onClear: () => void;
+  /** File name of the PNG export. */
+  exportName: string;
 }) {
   const layout = useMemo(() => {
     const placed = layoutGraph(
@@ -43,6 +49,26 @@ export function GraphCanvas({
     return new Map(placed.map((p) => [p.id, p]));
   }, [graph]);
 
+  const [focused, setFocused] = useState<string | null>(null);
+  const current = focused ?? selected?.nodes[selected.nodes.length - 1] ?? graph.nodes[0]?.id ?? null;
+  const onKeyDown = (event: KeyboardEvent<HTMLDivElement>) => {
+    if (current === null) return;
+    if (event.key === "Enter" || event.key === " ") {
+      event.preventDefault();
+      onSelectNode(current);
+      return;
+    }
+    if (event.key === "Escape") {
+      onClear();
+      return;
+    }
+    const next = stepFocus(graph, layout, current, event.key, selected);
+    if (next !== null) {
+      event.preventDefault();
+      setFocused(next);
+    }
+  };
+
   const onPathNodes = useMemo(() => new Set(selected?.nodes ?? []), [selected]);
   const onPathEdges = useMemo(() => new Set(selected?.edges ?? []), [selected]);
   const endNode = selected ? selected.nodes[selected.nodes.length - 1] : undefined;
@@ -51,13 +77,13 @@ export function GraphCanvas({
     () =>
       graph.nodes.map((n): MoveFlowNode | StanceFlowNode => {
         const p = layout.get(n.id)!;
-        const marks = { onPath: onPathNodes.has(n.id), isEnd: n.id === endNode };
+        const marks = { onPath: onPathNodes.has(n.id), isEnd: n.id === endNode, hasFocus: n.id === current };
         const common = { id: n.id, position: { x: p.x, y: p.y }, width: p.width, height: p.height, connectable: false, draggable: false };
         return n.kind === "move"
           ? { ...common, type: "move", data: { move: n, rules, ...marks }, ariaLabel: `${n.input}, ${n.level}` }
           : { ...common, type: "stance", data: { stance: n, ...marks }, ariaLabel: `stance ${n.name}` };
       }),
-    [graph, layout, onPathNodes, endNode, rules],
+    [graph, layout, onPathNodes, endNode, rules, current],
   );
 
   const edges = useMemo(
@@ -84,24 +110,76 @@ export function GraphCanvas({
     [graph, onPathEdges],
   );
 
+  const focusedNode = graph.nodes.find((n) => n.id === current);
   return (
-    <ReactFlow
-      nodes={nodes}
-      edges={edges}
-      nodeTypes={nodeTypes}
-      colorMode="dark"
-      fitView
-      fitViewOptions={{ padding: 0.15 }}
-      minZoom={0.2}
-      nodesDraggable={false}
-      nodesConnectable={false}
-      elementsSelectable={false}
-      onNodeClick={(_, node) => onSelectNode(node.id)}
-      proOptions={{ hideAttribution: false }}
+    <div
+      className="h-full w-full outline-none focus-visible:ring-2 focus-visible:ring-accent"
+      tabIndex={0}
+      role="group"
+      aria-label="Move graph. Arrow keys move between moves, Enter selects the path, Escape clears."
+      aria-describedby="graph-focus"
+      onKeyDown={onKeyDown}
     >
-      <Background color="#283040" gap={24} />
-      <Controls showInteractive={false} position="bottom-left" />
-      {graph.nodes.length > 24 && <MiniMap pannable zoomable position="bottom-right" nodeColor="#3a4458" maskColor="rgba(11,13,18,0.7)" />}
-    </ReactFlow>
+      <span id="graph-focus" className="sr-only" aria-live="polite">
+        {focusedNode ? (focusedNode.kind === "move" ? `${focusedNode.input}, ${focusedNode.level}` : `stance ${focusedNode.name}`) : ""}
+      </span>
+      <ReactFlow
+        nodes={nodes}
+        edges={edges}
+        nodeTypes={nodeTypes}
+        colorMode="dark"
+        fitView
+        fitViewOptions={{ padding: 0.15 }}
+        minZoom={0.2}
+        nodesDraggable={false}
+        nodesConnectable={false}
+        elementsSelectable={false}
+        onNodeClick={(_, node) => onSelectNode(node.id)}
+        proOptions={{ hideAttribution: false }}
+      >
+        <Background color="#283040" gap={24} />
+        <Controls showInteractive={false} position="bottom-left" />
+        <ExportButton fileName={exportName} />
+        {graph.nodes.length > 24 && <MiniMap pannable zoomable position="bottom-right" nodeColor="#3a4458" maskColor="rgba(11,13,18,0.7)" />}
+      </ReactFlow>
+    </div>
   );
+}
+
+/**
+ * Keyboard moves through the graph: right to the first next step, left back
+ * to where this node was reached from (along the selected path when it is on
+ * it), up and down across the siblings that share that parent.
+ */
+export function stepFocus(
+  graph: MoveGraph,
+  layout: Map<string, { y: number }>,
+  current: string,
+  key: string,
+  selected: PathResult | null,
+): string | null {
+  const out = (id: string) => graph.edges.filter((e) => e.from === id).map((e) => e.to);
+  const parentOf = (id: string) => {
+    const i = selected?.nodes.indexOf(id) ?? -1;
+    if (selected && i > 0) return selected.nodes[i - 1]!;
+    return graph.edges.find((e) => e.to === id && e.from !== id)?.from ?? null;
+  };
+  const byY = (ids: string[]) => [...new Set(ids)].sort((a, b) => (layout.get(a)?.y ?? 0) - (layout.get(b)?.y ?? 0));
+  switch (key) {
+    case "ArrowRight":
+      return byY(out(current).filter((t) => t !== current))[0] ?? null;
+    case "ArrowLeft":
+      return parentOf(current);
+    case "ArrowUp":
+    case "ArrowDown": {
+      const parent = parentOf(current);
+      if (parent === null) return null;
+      const siblings = byY(out(parent).filter((t) => t !== parent));
+      const i = siblings.indexOf(current);
+      const j = key === "ArrowUp" ? i - 1 : i + 1;
+      return siblings[j] ?? null;
+    }
+    default:
+      return null;
+  }
 }

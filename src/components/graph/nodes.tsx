@@ -14,13 +14,17 @@ export const STANCE_SIZE = { width: 168, height: 44 };
 type Marks = {
   onPath: boolean;
   isEnd: boolean;
+  /** The keyboard's place in the graph. */
+  hasFocus: boolean;
 };
 
 export type MoveFlowNode = Node<{ move: EngineMove; rules: BlockRules } & Marks, "move">;
 export type StanceFlowNode = Node<{ stance: EngineStance } & Marks, "stance">;
 
 const ring = (m: Marks) =>
-  m.isEnd ? "border-accent ring-2 ring-accent/50" : m.onPath ? "border-accent-muted" : "border-ink-700";
+  `${m.isEnd ? "border-accent ring-2 ring-accent/50" : m.onPath ? "border-accent-muted" : "border-ink-700"} ${
+    m.hasFocus ? "outline-2 outline-offset-2 outline-dashed outline-ink-200" : ""
+  }`;
 
 function MoveNodeView({ data }: NodeProps<MoveFlowNode>) {
   const { move, rules } = data;
@@ -28,6 +32,7 @@ function MoveNodeView({ data }: NodeProps<MoveFlowNode>) {
     <div
       data-node-id={move.id}
       data-on-path={data.onPath || undefined}
+      data-focus={data.hasFocus || undefined}
       className={`flex h-full w-full flex-col justify-between rounded-md border bg-ink-900 px-2 py-1.5 text-left ${ring(data)}`}
       title={move.name}
     >
@@ -51,6 +56,7 @@ function StanceNodeView({ data }: NodeProps<StanceFlowNode>) {
     <div
       data-node-id={data.stance.id}
       data-on-path={data.onPath || undefined}
+      data-focus={data.hasFocus || undefined}
       className={`flex h-full w-full items-center justify-center rounded-full border-2 border-dashed bg-ink-850 px-3 text-sm ${ring(data)}`}
     >
       <Handle type="target" position={Position.Left} className="!h-2 !w-2 !border-0 !bg-ink-600" />

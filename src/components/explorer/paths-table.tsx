@@ -1,0 +1,471 @@
+"use client";
+
+import { useEffect, useMemo, useRef, useState, type JSX, type KeyboardEvent } from "react";
+import {
+  createColumnHelper,
+  createSortedRowModel,
+  rowSortingFeature,
+  tableFeatures,
+  useTable,
+  type SortFn,
+  type SortingState,
+} from "@tanstack/react-table";
+import { explainBlock, type BlockRules } from "@/components/ui/block-class";
+import { Frames } from "@/components/ui/frames";
+import { LevelBadge } from "@/components/ui/level-badge";
+import type { BlockClass, PathResult } from "@/lib/engine";
+import { pathKey } from "@/lib/explorer";
+import { formatFrames, formatOutcome } from "@/lib/format";
+import {
+  BLOCK_CLASSES,
+  compareOutcome,
+  filterPaths,
+  hasFilters,
+  NO_FILTERS,
+  ON_HIT_KINDS,
+  outcomeSortValue,
+  type OnHitKind,
+  type PathFilters,
+} from "@/lib/paths-filter";
+
+/** Past this many rows the DOM, not the engine, becomes the slow part; no virtualiser needed below it. */
+export const PATHS_TABLE_ROW_LIMIT = 500;
+
+const features = tableFeatures({ rowSortingFeature, sortedRowModel: createSortedRowModel() });
+type Features = typeof features;
+const col = createColumnHelper<Features, PathResult>();
+
+// The words beside each class's colour. Read from the path's own `blockClass`, which the engine
+// computed with the rules the paths were explored with, so the tag always agrees with the filter.
+const CLASS_WORD: Record<BlockClass, string> = {
+  plus: "plus",
+  even: "even",
+  safe: "safe",
+  punishable: "punishable",
+  "launch-punishable": "launch punish",
+  state: "state",
+};
+const CLASS_STYLE: Record<BlockClass, string> = {
+  plus: "text-block-plus",
+  even: "text-block-even",
+  safe: "text-block-safe",
+  punishable: "text-block-punishable",
+  "launch-punishable": "text-block-launch-punishable",
+  state: "text-block-state",
+};
+
+// The accessors of outcome columns give `undefined` for a state, so `sortUndefined: "last"` keeps
+// states below every number whichever way the column is sorted; numbers are ordered by compareOutcome.
+const byOutcome =
+  (field: "onBlock" | "onHit"): SortFn<Features, PathResult> =>
+  (a, b) =>
+    compareOutcome(a.original[field], b.original[field]);
+const byNumber: SortFn<Features, PathResult> = (a, b, id) => a.getValue<number>(id) - b.getValue<number>(id);
+
+function gapsTitle(p: PathResult): string {
+  if (p.gaps.length === 0) return "No gap on block: the defender is never free between hits.";
+  return p.gaps.map((g) => `after hit ${g.after + 1}: free for ${g.frames}f`).join("; ");
+}
+
+function buildColumns(rules: BlockRules) {
+  return col.columns([
+    col.accessor((p) => p.input, {
+      id: "input",
+      header: "Input",
+      enableSorting: false,
+      cell: (c) => <span className="font-mono text-ink-100">{c.row.original.input}</span>,
+    }),
+    col.display({
+      id: "levels",
+      header: "Hits",
+      cell: (c) => (
+        <span className="flex gap-0.5" aria-label={c.row.original.levels.join(", ")}>
+          {c.row.original.levels.map((l, i) => (
+            <LevelBadge key={i} level={l} />
+          ))}
+        </span>
+      ),
+    }),
+    col.accessor((p) => p.damage, {
+      id: "damage",
+      header: "Damage",
+      sortFn: byNumber,
+      cell: (c) => (
+        <span className="font-mono tabular-nums" title="The sum of the hits' damage, with no scaling.">
+          {c.row.original.damage}
+        </span>
+      ),
+    }),
+    col.accessor((p) => outcomeSortValue(p.onBlock), {
+      id: "onBlock",
+      header: "On block",
+      sortFn: byOutcome("onBlock"),
+      sortUndefined: "last",
+      cell: (c) => <Frames value={c.row.original.onBlock} title={explainBlock(c.row.original.onBlock, rules)} />,
+    }),
+    col.accessor((p) => p.blockClass, {
+      id: "blockClass",
+      header: "Block class",
+      enableSorting: false,
+      cell: (c) => {
+        const cls = c.row.original.blockClass;
+        return <span className={`text-[11px] ${CLASS_STYLE[cls]}`}>{CLASS_WORD[cls]}</span>;
+      },
+    }),
+    col.accessor((p) => outcomeSortValue(p.onHit), {
+      id: "onHit",
+      header: "On hit",
+      sortFn: byOutcome("onHit"),
+      sortUndefined: "last",
+      cell: (c) => <Frames value={c.row.original.onHit} title={`If the last hit lands: ${formatOutcome(c.row.original.onHit)}.`} />,
+    }),
+    col.display({
+      id: "onCounterHit",
+      header: "On counter hit",
+      cell: (c) => (
+        <Frames
+          value={c.row.original.onCounterHit}
+          title={`If the last hit lands as a counter hit: ${formatOutcome(c.row.original.onCounterHit)}.`}
+        />
+      ),
+    }),
+    col.accessor((p) => p.framesSaved ?? undefined, {
+      id: "framesSaved",
+      header: "Frames saved",
+      sortFn: byNumber,
+      sortUndefined: "last",
+      cell: (c) => {
+        const p = c.row.original;
+        if (p.framesSaved === null) return <span className="text-ink-600">—</span>;
+        const raw = (p.onBlock as number) - p.framesSaved;
+        return (
+          <span
+            className="font-mono tabular-nums"
+            title={`Cancelled: ${formatFrames(p.onBlock as number)} on block instead of ${formatFrames(raw)} when stopping at the hit.`}
+          >
+            {p.framesSaved}f
+          </span>
+        );
+      },
+    }),
+    col.display({
+      id: "endsIn",
+      header: "Ends in",
+      cell: (c) => <span className={c.row.original.endsIn === "stance" ? "text-ink-100" : "text-ink-400"}>{c.row.original.endsIn}</span>,
+    }),
+    col.display({
+      id: "naturalCombo",
+      header: "Natural combo",
+      cell: (c) =>
+        c.row.original.naturalCombo ? (
+          <span className="text-block-plus" title="Every hit after the first is guaranteed once the previous one connects.">
+            yes
+          </span>
+        ) : (
+          <span className="text-ink-400">no</span>
+        ),
+    }),
+    col.display({
+      id: "gaps",
+      header: "Gaps",
+      cell: (c) => (
+        <span className={`font-mono tabular-nums ${c.row.original.gaps.length === 0 ? "text-ink-400" : ""}`} title={gapsTitle(c.row.original)}>
+          {c.row.original.gaps.length}
+        </span>
+      ),
+    }),
+  ]);
+}
+
+const HEADER_HINT: Partial<Record<string, string>> = {
+  levels: "Hit level of each hit, in order",
+  onBlock: "Frame advantage if the last step is blocked, and its block class",
+  framesSaved: "On block, how much better the cancel leaves you than stopping at the hit",
+  endsIn: "Whether the path stops on a hit or in a stance",
+  naturalCombo: "Every hit after the first is guaranteed once the previous one connects",
+  gaps: "Steps on block where the defender is free before the next hit",
+};
+
+const ARIA_SORT = { asc: "ascending", desc: "descending" } as const;
+const ARROW = { asc: "▲", desc: "▼" } as const;
+
+const CLASS_OPTION: Record<BlockClass, string> = {
+  plus: "plus",
+  even: "even",
+  safe: "safe",
+  punishable: "punishable",
+  "launch-punishable": "launch-punishable",
+  state: "state (no number)",
+};
+
+const control = "rounded border border-ink-700 bg-ink-900 px-1.5 py-0.5 text-ink-100";
+
+/** The form keeps the damage field as typed, so an empty or half-typed number does not fight the user. */
+type FormState = Omit<PathFilters, "minDamage"> & { minDamage: string };
+const EMPTY_FORM: FormState = { ...NO_FILTERS, minDamage: "" };
+
+function toFilters(form: FormState): PathFilters {
+  const text = form.minDamage.trim();
+  const n = Number(text);
+  return { ...form, minDamage: text === "" || !Number.isFinite(n) ? null : n };
+}
+
+/** Every path from this root in one sortable, filterable table; picking a row selects the path. */
+export function PathsTable(props: {
+  paths: PathResult[];
+  selectedKey: string | null;
+  onSelect: (pathKey: string) => void;
+  rules: { fastest: number; launchAt: number };
+}): JSX.Element {
+  const { paths, selectedKey, onSelect } = props;
+  const { fastest, launchAt } = props.rules;
+
+  const [form, setForm] = useState<FormState>(EMPTY_FORM);
+  const [sorting, setSorting] = useState<SortingState>([]);
+  const filters = useMemo(() => toFilters(form), [form]);
+  const data = useMemo(() => filterPaths(paths, filters), [paths, filters]);
+  // Keyed on the numbers: callers often pass a fresh rules object on every render.
+  const columns = useMemo(() => buildColumns({ fastest, launchAt }), [fastest, launchAt]);
+
+  const table = useTable({
+    features,
+    columns,
+    data,
+    getRowId: (p) => pathKey(p),
+    state: { sorting },
+    onSortingChange: setSorting,
+    enableMultiSort: false,
+    // Players look for the most damage and the best advantage first.
+    sortDescFirst: true,
+  });
+
+  const rows = table.getRowModel().rows.slice(0, PATHS_TABLE_ROW_LIMIT);
+  const filtered = hasFilters(filters);
+  const selectedShown = selectedKey !== null && rows.some((r) => r.id === selectedKey);
+
+  const scrollRef = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    const box = scrollRef.current;
+    if (selectedKey === null || !box) return;
+    const row = box.querySelector<HTMLElement>(`tr[data-path-key="${CSS.escape(selectedKey)}"]`);
+    if (!row) return;
+    // Scrolls only this container (scrollIntoView would move the page too), and keeps the row
+    // clear of the sticky header.
+    const head = box.querySelector("thead")?.getBoundingClientRect().height ?? 0;
+    const top = box.getBoundingClientRect().top + box.clientTop;
+    const r = row.getBoundingClientRect();
+    if (r.top < top + head) box.scrollTop -= top + head - r.top;
+    else if (r.bottom > top + box.clientHeight) box.scrollTop += r.bottom - (top + box.clientHeight);
+  }, [selectedKey]);
+
+  const set = <K extends keyof FormState>(key: K, value: FormState[K]) => setForm((f) => ({ ...f, [key]: value }));
+  const clear = () => setForm(EMPTY_FORM);
+
+  const onRowKey = (e: KeyboardEvent<HTMLTableRowElement>, key: string) => {
+    if (e.key === "Enter" || e.key === " ") {
+      e.preventDefault();
+      onSelect(key);
+    } else if (e.key === "ArrowDown" || e.key === "ArrowUp") {
+      const next = e.key === "ArrowDown" ? e.currentTarget.nextElementSibling : e.currentTarget.previousElementSibling;
+      if (next instanceof HTMLElement) {
+        e.preventDefault();
+        next.focus();
+      }
+    }
+  };
+
+  return (
+    <section aria-labelledby="paths-table-title" className="space-y-2" data-testid="paths-table">
+      <div className="flex flex-wrap items-baseline justify-between gap-2">
+        <h2 id="paths-table-title" className="text-xs uppercase tracking-wider text-ink-400">
+          All paths from this root
+        </h2>
+        <p className="text-xs text-ink-400" aria-live="polite" data-testid="paths-count">
+          <span className="font-mono text-ink-200">{data.length}</span> of <span className="font-mono text-ink-200">{paths.length}</span> paths
+          {data.length > PATHS_TABLE_ROW_LIMIT && (
+            <span className="ml-2 text-accent">
+              showing first {PATHS_TABLE_ROW_LIMIT} of {data.length}
+            </span>
+          )}
+        </p>
+      </div>
+
+      <form
+        aria-label="Filter paths"
+        className="flex flex-wrap items-center gap-x-4 gap-y-2 text-sm"
+        onSubmit={(e) => e.preventDefault()}
+      >
+        <label className="flex items-center gap-2">
+          <span className="text-ink-400">Ending class</span>
+          <select
+            value={form.blockClass}
+            onChange={(e) => set("blockClass", e.target.value as FormState["blockClass"])}
+            className={control}
+          >
+            <option value="any">any</option>
+            {BLOCK_CLASSES.map((c) => (
+              <option key={c} value={c}>
+                {CLASS_OPTION[c]}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex items-center gap-2">
+          <span className="text-ink-400">Min. damage</span>
+          <input
+            type="number"
+            inputMode="numeric"
+            min={0}
+            step={1}
+            value={form.minDamage}
+            onChange={(e) => set("minDamage", e.target.value)}
+            className={`${control} w-16 font-mono`}
+          />
+        </label>
+        <label className="flex items-center gap-2">
+          <span className="text-ink-400">On hit</span>
+          <select
+            value={form.onHit}
+            onChange={(e) => set("onHit", e.target.value as OnHitKind | "any")}
+            className={control}
+          >
+            <option value="any">any</option>
+            {ON_HIT_KINDS.map((k) => (
+              <option key={k} value={k}>
+                {k === "numeric" ? "a number" : k}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex items-center gap-2">
+          <input
+            type="checkbox"
+            checked={form.stanceOnly}
+            onChange={(e) => set("stanceOnly", e.target.checked)}
+            className="accent-accent"
+          />
+          <span className="text-ink-300">Ends in stance only</span>
+        </label>
+        <label className="flex items-center gap-2">
+          <input
+            type="checkbox"
+            checked={form.naturalOnly}
+            onChange={(e) => set("naturalOnly", e.target.checked)}
+            className="accent-accent"
+          />
+          <span className="text-ink-300">Natural combos only</span>
+        </label>
+        <button
+          type="button"
+          onClick={clear}
+          disabled={!filtered && form.minDamage === ""}
+          className="rounded border border-ink-700 px-2 py-0.5 text-xs text-ink-300 hover:border-ink-600 hover:text-ink-100 disabled:opacity-40"
+        >
+          Clear filters
+        </button>
+      </form>
+
+      {selectedKey !== null && !selectedShown && data.length > 0 && (
+        <p className="text-xs text-ink-400">The selected path is not in this list (filtered out, or past the first {PATHS_TABLE_ROW_LIMIT}).</p>
+      )}
+
+      <div ref={scrollRef} className="max-h-96 overflow-auto rounded-lg border border-ink-800 bg-ink-900">
+        {rows.length === 0 ? (
+          <div className="flex flex-col items-start gap-2 p-4 text-sm text-ink-300" role="status">
+            <p>{filtered ? "No path matches these filters" : "No paths from this root"}</p>
+            {filtered && (
+              <button
+                type="button"
+                onClick={clear}
+                className="rounded border border-accent-muted px-2 py-0.5 text-xs text-accent hover:border-accent"
+              >
+                Clear filters
+              </button>
+            )}
+          </div>
+        ) : (
+          <table className="min-w-full border-separate border-spacing-0 text-sm" aria-labelledby="paths-table-title">
+            <thead>
+              {table.getHeaderGroups().map((group) => (
+                <tr key={group.id}>
+                  {group.headers.map((header) => {
+                    const id = header.column.id;
+                    // The class word sits under the "On block" heading, which spans both cells.
+                    if (id === "blockClass") return null;
+                    const sorted = header.column.getIsSorted();
+                    const canSort = header.column.getCanSort();
+                    const base =
+                      "sticky top-0 whitespace-nowrap border-b border-ink-700 bg-ink-900 px-2 py-1.5 text-left text-xs font-medium text-ink-400";
+                    return (
+                      <th
+                        key={header.id}
+                        scope="col"
+                        colSpan={id === "onBlock" ? 2 : undefined}
+                        aria-sort={canSort ? (sorted ? ARIA_SORT[sorted] : "none") : undefined}
+                        title={HEADER_HINT[id]}
+                        className={`${base} ${id === "input" ? "left-0 z-20" : "z-10"}`}
+                      >
+                        {canSort ? (
+                          <button
+                            type="button"
+                            onClick={header.column.getToggleSortingHandler()}
+                            className={`inline-flex items-center gap-1 rounded hover:text-ink-100 focus-visible:outline focus-visible:outline-1 focus-visible:outline-accent ${sorted ? "text-ink-100" : ""}`}
+                          >
+                            <table.FlexRender header={header} />
+                            <span aria-hidden="true" className={sorted ? "text-accent" : "text-ink-600"}>
+                              {sorted ? ARROW[sorted] : "↕"}
+                            </span>
+                          </button>
+                        ) : (
+                          <table.FlexRender header={header} />
+                        )}
+                      </th>
+                    );
+                  })}
+                </tr>
+              ))}
+            </thead>
+            <tbody>
+              {rows.map((row) => {
+                const key = row.id;
+                const selected = key === selectedKey;
+                // The sticky input cell needs its own opaque background to hide what scrolls under it.
+                const bg = selected ? "bg-ink-800" : "bg-ink-900 hover:bg-ink-850";
+                const stickyBg = selected ? "bg-ink-800" : "bg-ink-900 group-hover:bg-ink-850";
+                return (
+                  <tr
+                    key={key}
+                    data-path-key={key}
+                    tabIndex={0}
+                    aria-selected={selected}
+                    onClick={() => onSelect(key)}
+                    onKeyDown={(e) => onRowKey(e, key)}
+                    className={`group cursor-pointer focus-visible:outline focus-visible:outline-2 focus-visible:-outline-offset-2 focus-visible:outline-accent ${bg}`}
+                  >
+                    {row.getAllCells().map((cell) => {
+                      const id = cell.column.id;
+                      const first = id === "input";
+                      return (
+                        <td
+                          key={cell.id}
+                          data-field={id}
+                          className={`whitespace-nowrap border-t border-ink-850 px-2 py-1 align-middle ${
+                            first
+                              ? `sticky left-0 z-[1] border-l-2 ${selected ? "border-l-accent" : "border-l-transparent"} ${stickyBg}`
+                              : ""
+                          } ${id === "blockClass" ? "pl-0" : ""}`}
+                        >
+                          <table.FlexRender cell={cell} />
+                        </td>
+                      );
+                    })}
+                  </tr>
+                );
+              })}
+            </tbody>
+          </table>
+        )}
+      </div>
+    </section>
+  );
+}
