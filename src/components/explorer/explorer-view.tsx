@@ -8,6 +8,7 @@ import { useExplorerStore } from "@/components/providers/explorer-store-provider
 import type { AppError } from "@/lib/errors";
 import { computePaths, graphUrl, pathKey, reachableSubgraph, type GraphResponse } from "@/lib/explorer";
 import { fetcher } from "@/lib/fetcher";
+import { finishTimingAfterPaint, startTiming } from "@/lib/timing";
 import { FrameTimeline } from "./frame-timeline";
 import { Legend } from "./legend";
 import { OptionsBar } from "./options-bar";
@@ -24,17 +25,23 @@ export function ExplorerView({ characterId, root, edition }: { characterId: numb
   const select = useExplorerStore((s) => s.select);
   const opponent = useExplorerStore((s) => s.opponent);
 
+  const launchAt = Math.max(data?.game.launchAt ?? 15, options.fastest);
+  // One object per rule change: graph nodes and table columns are memoised on it.
+  const rules = useMemo(() => ({ fastest: options.fastest, launchAt }), [options.fastest, launchAt]);
   const sub = useMemo(() => (data ? reachableSubgraph(data.graph, root) : null), [data, root]);
   const computed = useMemo(() => {
     if (!sub || !data) return null;
-    return computePaths(sub, root, { ...options, launchAt: Math.max(data.game.launchAt, options.fastest) });
-  }, [sub, data, root, options]);
+    return computePaths(sub, root, { ...options, launchAt });
+  }, [sub, data, root, options, launchAt]);
 
   const selected = useMemo(
     () => (selectedKey === null ? null : (computed?.paths.find((p) => pathKey(p) === selectedKey) ?? null)),
     [computed, selectedKey],
   );
   const alternatives = selected ? (computed?.byEnd.get(selected.nodes[selected.nodes.length - 1]!) ?? []) : [];
+
+  useEffect(() => finishTimingAfterPaint("select"), [selected]);
+  useEffect(() => finishTimingAfterPaint("recompute"), [computed]);
 
   // The view lives in the address too, so a reload or a copied link opens the same thing.
   useEffect(() => {
@@ -78,8 +85,8 @@ export function ExplorerView({ characterId, root, edition }: { characterId: numb
     );
   }
 
-  const rules = { fastest: options.fastest, launchAt: Math.max(data.game.launchAt, options.fastest) };
   const onSelectNode = (id: string) => {
+    startTiming("select");
     const first = computed.byEnd.get(id)?.[0];
     select(first ? pathKey(first) : null);
   };
@@ -89,7 +96,7 @@ export function ExplorerView({ characterId, root, edition }: { characterId: numb
       <OptionsBar editions={data.editions} edition={edition} pathCount={computed.paths.length} truncated={computed.truncated} />
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="min-w-0 space-y-3">
-          <div className="h-[55vh] min-h-80 overflow-hidden rounded-lg border border-ink-800 bg-ink-950 lg:h-[68vh]" data-testid="graph">
+          <div className="h-[55vh] min-h-80 overflow-hidden rounded-lg border border-ink-800 bg-ink-950 [contain:strict] lg:h-[68vh]" data-testid="graph">
             <GraphCanvas
               graph={sub}
               rules={rules}

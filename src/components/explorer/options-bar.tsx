@@ -3,6 +3,7 @@
 import { useExplorerStore } from "@/components/providers/explorer-store-provider";
 import type { EditionRef } from "@/lib/explorer";
 import { useRouter } from "next/navigation";
+import { startTiming } from "@/lib/timing";
 
 function NumberField({
   label,
@@ -51,7 +52,11 @@ export function OptionsBar({
 }) {
   const router = useRouter();
   const options = useExplorerStore((s) => s.options);
-  const setOption = useExplorerStore((s) => s.setOption);
+  const setOptionNow = useExplorerStore((s) => s.setOption);
+  const setOption: typeof setOptionNow = (key, value) => {
+    startTiming("recompute");
+    setOptionNow(key, value);
+  };
   return (
     <form className="flex flex-wrap items-center gap-x-5 gap-y-2 text-sm" onSubmit={(e) => e.preventDefault()} aria-label="Explorer options">
       <label className="flex items-center gap-2">

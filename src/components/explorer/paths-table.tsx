@@ -1,12 +1,14 @@
 "use client";
 
-import { useEffect, useMemo, useRef, useState, type JSX, type KeyboardEvent } from "react";
+import { memo, useEffect, useMemo, useRef, useState, type JSX, type KeyboardEvent } from "react";
 import {
   createColumnHelper,
   createSortedRowModel,
   rowSortingFeature,
   tableFeatures,
   useTable,
+  FlexRender,
+  type Row,
   type SortFn,
   type SortingState,
 } from "@tanstack/react-table";
@@ -32,6 +34,7 @@ import {
 export const PATHS_TABLE_ROW_LIMIT = 500;
 
 const features = tableFeatures({ rowSortingFeature, sortedRowModel: createSortedRowModel() });
+type PathRowModel = Row<typeof features, PathResult>;
 type Features = typeof features;
 const col = createColumnHelper<Features, PathResult>();
 
@@ -261,18 +264,6 @@ export function PathsTable(props: {
   const set = <K extends keyof FormState>(key: K, value: FormState[K]) => setForm((f) => ({ ...f, [key]: value }));
   const clear = () => setForm(EMPTY_FORM);
 
-  const onRowKey = (e: KeyboardEvent<HTMLTableRowElement>, key: string) => {
-    if (e.key === "Enter" || e.key === " ") {
-      e.preventDefault();
-      onSelect(key);
-    } else if (e.key === "ArrowDown" || e.key === "ArrowUp") {
-      const next = e.key === "ArrowDown" ? e.currentTarget.nextElementSibling : e.currentTarget.previousElementSibling;
-      if (next instanceof HTMLElement) {
-        e.preventDefault();
-        next.focus();
-      }
-    }
-  };
 
   return (
     <section aria-labelledby="paths-table-title" className="space-y-2" data-testid="paths-table">
@@ -369,7 +360,7 @@ export function PathsTable(props: {
         <p className="text-xs text-ink-400">The selected path is not in this list (filtered out, or past the first {PATHS_TABLE_ROW_LIMIT}).</p>
       )}
 
-      <div ref={scrollRef} className="max-h-96 overflow-auto rounded-lg border border-ink-800 bg-ink-900">
+      <div ref={scrollRef} className="max-h-96 overflow-auto rounded-lg border border-ink-800 bg-ink-900 [contain:content]">
         {rows.length === 0 ? (
           <div className="flex flex-col items-start gap-2 p-4 text-sm text-ink-300" role="status">
             <p>{filtered ? "No path matches these filters" : "No paths from this root"}</p>
@@ -426,42 +417,9 @@ export function PathsTable(props: {
               ))}
             </thead>
             <tbody>
-              {rows.map((row) => {
-                const key = row.id;
-                const selected = key === selectedKey;
-                // The sticky input cell needs its own opaque background to hide what scrolls under it.
-                const bg = selected ? "bg-ink-800" : "bg-ink-900 hover:bg-ink-850";
-                const stickyBg = selected ? "bg-ink-800" : "bg-ink-900 group-hover:bg-ink-850";
-                return (
-                  <tr
-                    key={key}
-                    data-path-key={key}
-                    tabIndex={0}
-                    aria-selected={selected}
-                    onClick={() => onSelect(key)}
-                    onKeyDown={(e) => onRowKey(e, key)}
-                    className={`group cursor-pointer focus-visible:outline focus-visible:outline-2 focus-visible:-outline-offset-2 focus-visible:outline-accent ${bg}`}
-                  >
-                    {row.getAllCells().map((cell) => {
-                      const id = cell.column.id;
-                      const first = id === "input";
-                      return (
-                        <td
-                          key={cell.id}
-                          data-field={id}
-                          className={`whitespace-nowrap border-t border-ink-850 px-2 py-1 align-middle ${
-                            first
-                              ? `sticky left-0 z-[1] border-l-2 ${selected ? "border-l-accent" : "border-l-transparent"} ${stickyBg}`
-                              : ""
-                          } ${id === "blockClass" ? "pl-0" : ""}`}
-                        >
-                          <table.FlexRender cell={cell} />
-                        </td>
-                      );
-                    })}
-                  </tr>
-                );
-              })}
+              {rows.map((row) => (
+                <PathRow key={row.id} row={row} selected={row.id === selectedKey} onSelect={onSelect} />
+              ))}
             </tbody>
           </table>
         )}
@@ -469,3 +427,63 @@ export function PathsTable(props: {
     </section>
   );
 }
+
+function onRowKey(e: KeyboardEvent<HTMLTableRowElement>, key: string, onSelect: (key: string) => void) {
+  if (e.key === "Enter" || e.key === " ") {
+    e.preventDefault();
+    onSelect(key);
+  } else if (e.key === "ArrowDown" || e.key === "ArrowUp") {
+    const next = e.key === "ArrowDown" ? e.currentTarget.nextElementSibling : e.currentTarget.previousElementSibling;
+    if (next instanceof HTMLElement) {
+      e.preventDefault();
+      next.focus();
+    }
+  }
+}
+
+/**
+ * One row, memoised: selecting a path re-renders the two rows whose
+ * selection changed, not all of them (the row objects are stable while the
+ * data and sorting are).
+ */
+const PathRow = memo(function PathRow({
+  row,
+  selected,
+  onSelect,
+}: {
+  row: PathRowModel;
+  selected: boolean;
+  onSelect: (key: string) => void;
+}) {
+  const key = row.id;
+  // The sticky input cell needs its own opaque background to hide what scrolls under it.
+  const bg = selected ? "bg-ink-800" : "bg-ink-900 hover:bg-ink-850";
+  const stickyBg = selected ? "bg-ink-800" : "bg-ink-900 group-hover:bg-ink-850";
+  return (
+    <tr
+      data-path-key={key}
+      tabIndex={0}
+      aria-selected={selected}
+      onClick={() => onSelect(key)}
+      onKeyDown={(e) => onRowKey(e, key, onSelect)}
+      // Rows scrolled out of the box are neither styled nor painted until they scroll in.
+      className={`group cursor-pointer [content-visibility:auto] [contain-intrinsic-size:auto_29px] focus-visible:outline focus-visible:outline-2 focus-visible:-outline-offset-2 focus-visible:outline-accent ${bg}`}
+    >
+      {row.getAllCells().map((cell) => {
+        const id = cell.column.id;
+        const first = id === "input";
+        return (
+          <td
+            key={cell.id}
+            data-field={id}
+            className={`whitespace-nowrap border-t border-ink-850 px-2 py-1 align-middle ${
+              first ? `sticky left-0 z-[1] border-l-2 ${selected ? "border-l-accent" : "border-l-transparent"} ${stickyBg}` : ""
+            } ${id === "blockClass" ? "pl-0" : ""}`}
+          >
+            <FlexRender cell={cell} />
+          </td>
+        );
+      })}
+    </tr>
+  );
+});

@@ -39,6 +39,9 @@ export function GraphCanvas({
   exportName: string;
 }) {
   const layout = useMemo(() => {
+    // Timing only (npm run bench:ui): reading the clock does not change what renders.
+    // eslint-disable-next-line react-hooks/purity
+    const started = performance.now();
     const placed = layoutGraph(
       graph.nodes.map((n) => ({ id: n.id, ...(n.kind === "move" ? MOVE_SIZE : STANCE_SIZE) })),
       graph.edges.map((e) => ({ id: e.id, source: e.from, target: e.to })),
@@ -46,6 +49,8 @@ export function GraphCanvas({
       // Room between columns for a cancel's label (input · frames saved).
       { rankSep: 120, nodeSep: 28 },
     );
+    // eslint-disable-next-line react-hooks/purity
+    performance.measure("framefork:layout", { start: started, end: performance.now() });
     return new Map(placed.map((p) => [p.id, p]));
   }, [graph]);
 
@@ -73,23 +78,33 @@ export function GraphCanvas({
   const onPathEdges = useMemo(() => new Set(selected?.edges ?? []), [selected]);
   const endNode = selected ? selected.nodes[selected.nodes.length - 1] : undefined;
 
-  const nodes = useMemo(
+  // Base objects keep their identity across selections, so React Flow re-renders only the
+  // few nodes and edges whose marks change, not all of them.
+  const baseNodes = useMemo(
     () =>
       graph.nodes.map((n): MoveFlowNode | StanceFlowNode => {
         const p = layout.get(n.id)!;
-        const marks = { onPath: onPathNodes.has(n.id), isEnd: n.id === endNode, hasFocus: n.id === current };
+        const marks = { onPath: false, isEnd: false, hasFocus: false };
         const common = { id: n.id, position: { x: p.x, y: p.y }, width: p.width, height: p.height, connectable: false, draggable: false };
         return n.kind === "move"
           ? { ...common, type: "move", data: { move: n, rules, ...marks }, ariaLabel: `${n.input}, ${n.level}` }
           : { ...common, type: "stance", data: { stance: n, ...marks }, ariaLabel: `stance ${n.name}` };
       }),
-    [graph, layout, onPathNodes, endNode, rules, current],
+    [graph, layout, rules],
+  );
+  const nodes = useMemo(
+    () =>
+      baseNodes.map((n) => {
+        const marks = { onPath: onPathNodes.has(n.id), isEnd: n.id === endNode, hasFocus: n.id === current };
+        if (!marks.onPath && !marks.isEnd && !marks.hasFocus) return n;
+        return { ...n, data: { ...n.data, ...marks } } as MoveFlowNode | StanceFlowNode;
+      }),
+    [baseNodes, onPathNodes, endNode, current],
   );
 
-  const edges = useMemo(
+  const baseEdges = useMemo(
     () =>
       graph.edges.map((e): Edge => {
-        const on = onPathEdges.has(e.id);
         const base = EDGE_STYLE[e.kind];
         const saves = cancelSaves(graph, e);
         return {
@@ -97,17 +112,32 @@ export function GraphCanvas({
           source: e.from,
           target: e.to,
           type: e.kind === "follow" ? "default" : "smoothstep",
-          style: on ? { ...base, stroke: "#ffd873", strokeWidth: 3 } : base,
-          markerEnd: { type: MarkerType.ArrowClosed, color: on ? "#ffd873" : base.stroke, width: 16, height: 16 },
-          label: e.kind === "cancel" ? `${e.input}${saves === null ? "" : ` · ${saves >= 0 ? "saves" : "costs"} ${Math.abs(saves)}f`}` : e.input,
+          style: base,
+          markerEnd: { type: MarkerType.ArrowClosed, color: base.stroke, width: 16, height: 16 },
+          // Follow-ups need no label (the next node shows its whole input); a cancel's says what it saves.
+          label: e.kind === "cancel" ? `${e.input}${saves === null ? "" : ` · ${saves >= 0 ? "saves" : "costs"} ${Math.abs(saves)}f`}` : e.kind === "enter" ? e.input : undefined,
           labelStyle: { fill: "#cfd6e4", fontFamily: '"JetBrains Mono", monospace', fontSize: 11 },
           labelBgStyle: { fill: "#11141b" },
           labelBgPadding: [4, 2],
           focusable: false,
-          zIndex: on ? 1 : 0,
+          zIndex: 0,
         };
       }),
-    [graph, onPathEdges],
+    [graph],
+  );
+  const edges = useMemo(
+    () =>
+      baseEdges.map((e) =>
+        onPathEdges.has(e.id)
+          ? {
+              ...e,
+              style: { ...e.style, stroke: "#ffd873", strokeWidth: 3 },
+              markerEnd: { type: MarkerType.ArrowClosed, color: "#ffd873", width: 16, height: 16 },
+              zIndex: 1,
+            }
+          : e,
+      ),
+    [baseEdges, onPathEdges],
   );
 
   const focusedNode = graph.nodes.find((n) => n.id === current);

@@ -2,8 +2,8 @@ import { and, eq, getTableColumns, notInArray, sql, type SQL } from "drizzle-orm
 import type { MySqlTable } from "drizzle-orm/mysql-core";
 import type { Database } from "../index";
 import { characters, editions, edges, games, moves, stances, type NewEdge, type NewMove } from "../schema";
-import { DEMO_CHARACTERS, DEMO_GAME, EDITIONS } from "./demo";
-import { flatten, postureOf } from "./dsl";
+import { DEMO_CHARACTERS, DEMO_GAME, EDITIONS, type DemoCharacter, type EditionSlug } from "./demo";
+import { flatten, postureOf, type CharacterData } from "./dsl";
 
 type Tx = Parameters<Parameters<Database["transaction"]>[0]>[0];
 
@@ -75,7 +75,7 @@ async function writeCharacterEdition(
   tx: Tx,
   editionId: number,
   characterId: number,
-  data: ReturnType<(typeof DEMO_CHARACTERS)[number]["data"]>,
+  data: CharacterData,
 ) {
   const { moves: moveRows, edges: edgeRows } = flatten(data);
   const scope = { editionId, characterId };
@@ -153,4 +153,28 @@ async function writeCharacterEdition(
   await tx.delete(stances).where(and(inScope(stances), notInArray(stances.key, data.stances.map((s) => s.key))));
 
   return { stances: data.stances.length, moves: moveRows.length, edges: edgeRows.length };
+}
+
+/**
+ * Writes one more character into an existing game, in every Edition it has
+ * (the UI bench adds a generated one to the demo game this way).
+ */
+export async function seedCharacter(db: Database, gameSlug: string, character: DemoCharacter): Promise<number> {
+  return db.transaction(async (tx) => {
+    const [game] = await tx.select({ id: games.id }).from(games).where(eq(games.slug, gameSlug));
+    if (!game) throw new Error(`no game ${gameSlug}`);
+    await tx
+      .insert(characters)
+      .values({ gameId: game.id, slug: character.slug, name: character.name, summary: character.summary })
+      .onDuplicateKeyUpdate({ set: updateAllBut(characters, ["id", "gameId", "slug", "createdAt"]) });
+    const [row] = await tx
+      .select({ id: characters.id })
+      .from(characters)
+      .where(and(eq(characters.gameId, game.id), eq(characters.slug, character.slug)));
+    if (!row) throw new Error(`character ${character.slug} was not written`);
+    for (const edition of await tx.select().from(editions).where(eq(editions.gameId, game.id))) {
+      await writeCharacterEdition(tx, edition.id, row.id, character.data(edition.slug as EditionSlug));
+    }
+    return row.id;
+  });
 }

@@ -1,0 +1,58 @@
+import type { Level } from "../../src/lib/engine";
+import type { DemoCharacter } from "../../src/server/db/seed/demo";
+import { cancel, first, follow, fromStance, hit, root, type Root, type Step } from "../../src/server/db/seed/dsl";
+
+/** mulberry32: a small seeded generator, so every bench run draws the same graph. */
+function rng(seed: number) {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+const LEVELS: Level[] = ["high", "mid", "low", "mid", "special-mid"];
+const STANCES = ["s1", "s2", "s3", "s4"];
+
+/**
+ * An invented character for the UI bench: one string that branches three
+ * ways to five hits (121 moves), cancels into four stances, and eleven
+ * stance strings of two hits per stance (176 moves): 301 nodes in all.
+ */
+export function benchCharacter(seed = 7): DemoCharacter {
+  const r = rng(seed);
+  const int = (lo: number, hi: number) => lo + Math.floor(r() * (hi - lo + 1));
+  const pick = <T,>(xs: readonly T[]) => xs[Math.floor(r() * xs.length)]!;
+  const h = (name: string) => hit(name, pick(LEVELS), int(5, 20), [int(-16, 3), int(-2, 8), int(0, 10)]);
+
+  let cancels = 0;
+  const tree = (depth: number, label: string): Step[] => {
+    if (depth === 5) return [];
+    const steps: Step[] = [1, 2, 3].map((b) =>
+      follow(`,${b}`, { gap: int(-2, 6), combo: r() < 0.5 }, h(`${label}-${b}`), tree(depth + 1, `${label}-${b}`)),
+    );
+    if (depth >= 2 && depth <= 3 && r() < 0.4) {
+      steps.push(cancel("~b", STANCES[cancels++ % STANCES.length]!, [int(-6, 3), int(0, 8), int(2, 10)], r() < 0.3 ? ["high"] : []));
+    }
+    return steps;
+  };
+
+  const stanceMoves: Root[] = STANCES.flatMap((s) =>
+    Array.from({ length: 11 }, (_, i) =>
+      fromStance(s, `:${i + 1}`, first(int(10, 20), h(`${s}-${i}`)), [1, 2, 3].map((b) => follow(`,${b}`, { gap: int(-1, 5), combo: r() < 0.5 }, h(`${s}-${i}-${b}`)))),
+    ),
+  );
+
+  return {
+    slug: "bench-grid",
+    name: "Bench Grid",
+    summary: "Generated for the Explorer speed bench.",
+    data: () => ({
+      stances: STANCES.map((key, i) => ({ key, name: `Grid Stance ${i + 1}`, abbreviation: `G${i + 1}` })),
+      roots: [root("1", first(10, h("grid")), tree(1, "grid")), ...stanceMoves],
+    }),
+  };
+}

@@ -1,0 +1,26 @@
+/**
+ * User-timing marks for the Explorer's speed bench (`npm run bench:ui`):
+ * `start` when the user acts, `finish` after the next paint. Both are no-ops
+ * where the Performance API is missing, and cost one entry otherwise.
+ */
+const PREFIX = "framefork:";
+
+export function startTiming(name: "select" | "recompute" | "layout"): void {
+  if (typeof performance === "undefined") return;
+  performance.mark(`${PREFIX}${name}:start`);
+}
+
+/** Measures from the last `startTiming(name)` to the paint after this call, once. */
+export function finishTimingAfterPaint(name: "select" | "recompute" | "layout"): void {
+  if (typeof performance === "undefined" || typeof requestAnimationFrame === "undefined") return;
+  const start = `${PREFIX}${name}:start`;
+  if (performance.getEntriesByName(start, "mark").length === 0) return;
+  // The frame after the next animation frame has been painted.
+  requestAnimationFrame(() =>
+    setTimeout(() => {
+      if (performance.getEntriesByName(start, "mark").length === 0) return;
+      performance.measure(`${PREFIX}${name}`, start);
+      performance.clearMarks(start);
+    }, 0),
+  );
+}
