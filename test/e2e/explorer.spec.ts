@@ -161,3 +161,62 @@ test("the graph exports as a PNG", async ({ page }) => {
   expect(bytes.subarray(1, 4).toString()).toBe("PNG");
   expect(bytes.length).toBeGreaterThan(5_000);
 });
+
+test("the Path card reads each hit's level and the path's damage from the data", async ({ page }) => {
+  const explorer = new ExplorerPage(page);
+  await page.goto("/games/vesper-circuit/tarrow/explore/1");
+  await explorer.node("1,2,3").click();
+  const rows = await query<{ key: string; level: string; damage: number }>(
+    `select m.\`key\`, m.level, m.damage from moves m join characters c on c.id = m.character_id join editions e on e.id = m.edition_id
+     where c.slug = 'tarrow' and e.slug = '1-1' and m.\`key\` in ('1', '1,2', '1,2,3')`,
+  );
+  const byKey = new Map(rows.map((r) => [r.key, r]));
+  const levels = await explorer.card.locator("ol [data-level]").evaluateAll((els) => els.map((e) => e.getAttribute("data-level")));
+  expect(levels).toEqual(["1", "1,2", "1,2,3"].map((k) => byKey.get(k)?.level));
+  const damage = ["1", "1,2", "1,2,3"].reduce((sum, k) => sum + (byKey.get(k)?.damage ?? 0), 0);
+  await expect(explorer.field("damage")).toHaveText(String(damage));
+});
+
+test("a safe ending says so plainly in the punish panel", async ({ page }) => {
+  const explorer = new ExplorerPage(page);
+  await page.goto("/games/vesper-circuit/tarrow/explore/1");
+  await explorer.node("1,2").click(); // -3 on block
+  const panel = page.getByTestId("punish-panel");
+  await panel.getByRole("combobox", { name: "Opponent" }).selectOption({ label: "Brannoch" });
+  await expect(panel.getByTestId("punish-verdict")).toContainText(/^Safe/);
+  await expect(panel.getByTestId("punishers")).toHaveCount(0);
+});
+
+test("sorting the table by damage puts the most damaging path first", async ({ page }) => {
+  await page.goto("/games/vesper-circuit/tarrow/explore/2");
+  const table = page.getByTestId("paths-table");
+  await expect(table.locator("tr[data-path-key]").first()).toBeVisible();
+  await table.getByRole("button", { name: /^Damage/ }).click();
+  await expect(table.getByRole("columnheader", { name: /Damage/ })).toHaveAttribute("aria-sort", "descending");
+  const shown = (await table.locator('tr[data-path-key] [data-field="damage"]').allTextContents()).map(Number);
+  expect(shown.length).toBeGreaterThan(3);
+  expect(shown).toEqual([...shown].sort((a, b) => b - a));
+});
+
+test("on a phone the Path card sits below the graph", async ({ browser }) => {
+  const page = await browser.newPage({ viewport: { width: 390, height: 844 } });
+  const explorer = new ExplorerPage(page);
+  await page.goto("/games/vesper-circuit/tarrow/explore/2");
+  await explorer.node("2,2").click();
+  await expect(explorer.card).toBeVisible();
+  const graph = await explorer.graph.boundingBox();
+  const card = await explorer.card.boundingBox();
+  expect(graph && card && card.y >= graph.y + graph.height).toBe(true);
+  await page.close();
+});
+
+test("the Explorer has no serious or critical accessibility violations", async ({ page }) => {
+  const explorer = new ExplorerPage(page);
+  await page.goto("/games/vesper-circuit/tarrow/explore/2");
+  await explorer.node("2,2,3").click();
+  await expect(explorer.card).toBeVisible();
+  const { default: AxeBuilder } = await import("@axe-core/playwright");
+  const results = await new AxeBuilder({ page }).analyze();
+  const bad = results.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
+  expect(bad.map((v) => `${v.id}: ${v.nodes.length} node(s), e.g. ${v.nodes[0]?.target.join(" ")}`)).toEqual([]);
+});

@@ -44,17 +44,23 @@ export function ExplorerView({ characterId, root, edition }: { characterId: numb
   useEffect(() => finishTimingAfterPaint("recompute"), [computed]);
 
   // The view lives in the address too, so a reload or a copied link opens the same thing.
+  // Written after the paint, once per burst of changes (the router re-renders on every
+  // replaceState), and read at that moment: an Edition switch navigates through the
+  // router meanwhile, and owns the `edition` parameter.
   useEffect(() => {
-    const params = new URLSearchParams(window.location.search);
-    const set = (k: string, v: string | null) => (v === null ? params.delete(k) : params.set(k, v));
-    set("edition", edition);
-    set("path", selectedKey);
-    set("depth", options.maxDepth === 8 ? null : String(options.maxDepth));
-    set("visits", options.maxStanceVisits === 1 ? null : String(options.maxStanceVisits));
-    set("fastest", data && options.fastest === data.game.fastest ? null : String(options.fastest));
-    set("vs", opponent === null ? null : String(opponent));
-    const next = `${window.location.pathname}?${params.toString()}`;
-    if (next !== `${window.location.pathname}${window.location.search}`) window.history.replaceState(null, "", next);
+    const timer = window.setTimeout(() => {
+      const params = new URLSearchParams(window.location.search);
+      const set = (k: string, v: string | null) => (v === null ? params.delete(k) : params.set(k, v));
+      if (!params.has("edition")) set("edition", edition);
+      set("path", selectedKey);
+      set("depth", options.maxDepth === 8 ? null : String(options.maxDepth));
+      set("visits", options.maxStanceVisits === 1 ? null : String(options.maxStanceVisits));
+      set("fastest", data && options.fastest === data.game.fastest ? null : String(options.fastest));
+      set("vs", opponent === null ? null : String(opponent));
+      const next = `${window.location.pathname}?${params.toString()}`;
+      if (next !== `${window.location.pathname}${window.location.search}`) window.history.replaceState(null, "", next);
+    }, 200);
+    return () => window.clearTimeout(timer);
   }, [edition, selectedKey, options, data, opponent]);
 
   if (error && !data) {
