@@ -7,6 +7,8 @@ export interface ExplorerOptions {
 }
 
 export interface ExplorerState {
+  /** The Edition's slug; switching it fetches that Edition's graph, without a navigation. */
+  edition: string;
   /** The selected path, by its edge ids joined (see `pathKey`); "" is the root alone. */
   selected: string | null;
   options: ExplorerOptions;
@@ -15,6 +17,7 @@ export interface ExplorerState {
 }
 
 export interface ExplorerActions {
+  setEdition: (slug: string) => void;
   setOpponent: (characterId: number | null) => void;
   select: (pathKey: string | null) => void;
   setOption: <K extends keyof ExplorerOptions>(key: K, value: ExplorerOptions[K]) => void;
@@ -27,6 +30,7 @@ export const createExplorerStore = (initial: ExplorerState) =>
   createStore<ExplorerStore>()((set) => ({
     ...initial,
     select: (selected) => set({ selected }),
+    setEdition: (edition) => set({ edition }),
     setOpponent: (opponent) => set({ opponent }),
     setOption: (key, value) => set((s) => ({ options: { ...s.options, [key]: value } })),
   }));

@@ -16,7 +16,8 @@ import { PathCard } from "./path-card";
 import { PathsTable } from "./paths-table";
 import { PunishPanel } from "./punish-panel";
 
-export function ExplorerView({ characterId, root, edition }: { characterId: number; root: string; edition: string }) {
+export function ExplorerView({ characterId, root }: { characterId: number; root: string }) {
+  const edition = useExplorerStore((s) => s.edition);
   const { data, error, isLoading, mutate } = useSWR<GraphResponse, AppError>(graphUrl(characterId, edition), fetcher, {
     keepPreviousData: true,
   });
@@ -44,14 +45,13 @@ export function ExplorerView({ characterId, root, edition }: { characterId: numb
   useEffect(() => finishTimingAfterPaint("recompute"), [computed]);
 
   // The view lives in the address too, so a reload or a copied link opens the same thing.
-  // Written after the paint, once per burst of changes (the router re-renders on every
-  // replaceState), and read at that moment: an Edition switch navigates through the
-  // router meanwhile, and owns the `edition` parameter.
+  // Written after the paint, once per burst of changes: the router re-renders on every
+  // replaceState.
   useEffect(() => {
     const timer = window.setTimeout(() => {
       const params = new URLSearchParams(window.location.search);
       const set = (k: string, v: string | null) => (v === null ? params.delete(k) : params.set(k, v));
-      if (!params.has("edition")) set("edition", edition);
+      set("edition", edition);
       set("path", selectedKey);
       set("depth", options.maxDepth === 8 ? null : String(options.maxDepth));
       set("visits", options.maxStanceVisits === 1 ? null : String(options.maxStanceVisits));

@@ -2,7 +2,6 @@
 
 import { useExplorerStore } from "@/components/providers/explorer-store-provider";
 import type { EditionRef } from "@/lib/explorer";
-import { useRouter } from "next/navigation";
 import { startTiming } from "@/lib/timing";
 
 function NumberField({
@@ -50,7 +49,7 @@ export function OptionsBar({
   pathCount: number;
   truncated: boolean;
 }) {
-  const router = useRouter();
+  const setEdition = useExplorerStore((s) => s.setEdition);
   const options = useExplorerStore((s) => s.options);
   const setOptionNow = useExplorerStore((s) => s.setOption);
   const setOption: typeof setOptionNow = (key, value) => {
@@ -64,9 +63,8 @@ export function OptionsBar({
         <select
           value={edition}
           onChange={(e) => {
-            const params = new URLSearchParams(window.location.search);
-            params.set("edition", e.target.value);
-            router.replace(`?${params.toString()}`, { scroll: false });
+            startTiming("recompute");
+            setEdition(e.target.value);
           }}
           className="rounded border border-ink-700 bg-ink-900 px-1.5 py-0.5 text-ink-100"
         >

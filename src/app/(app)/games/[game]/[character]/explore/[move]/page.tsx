@@ -52,6 +52,7 @@ export default async function ExplorePage({ params, searchParams }: Props) {
       <SWRConfig value={{ fallback: { [graphUrl(character.id, edition.slug)]: fallback } }}>
         <ExplorerStoreProvider
           initial={{
+            edition: edition.slug,
             selected: search.path ?? null,
             opponent: search.vs !== undefined && fallback.cast.some((c) => c.id === search.vs) ? search.vs : null,
             options: {
@@ -61,7 +62,7 @@ export default async function ExplorePage({ params, searchParams }: Props) {
             },
           }}
         >
-          <ExplorerView characterId={character.id} root={root} edition={edition.slug} />
+          <ExplorerView characterId={character.id} root={root} />
         </ExplorerStoreProvider>
       </SWRConfig>
     </div>
