@@ -174,6 +174,9 @@ function runChild(kind: Case, stances: number, seed: number): ChildResult {
   const times: number[] = [];
   let paths = first.paths;
   const sum = first.kept ? checksum(first.kept) : "";
+  // Let the warm-up's results go before timing, for engine and peer alike: a million kept
+  // results would otherwise weigh on every timed run's garbage collection.
+  first.kept = undefined;
   for (let r = 0; r < reps; r++) {
     globalThis.gc?.();
     const t0 = process.hrtime.bigint();
