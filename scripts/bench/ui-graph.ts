@@ -1,18 +1,7 @@
 import type { Level } from "../../src/lib/engine";
 import type { DemoCharacter } from "../../src/server/db/seed/demo";
 import { cancel, first, follow, fromStance, hit, root, type Root, type Step } from "../../src/server/db/seed/dsl";
-
-/** mulberry32: a small seeded generator, so every bench run draws the same graph. */
-function rng(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { rng } from "./generate";
 
 const LEVELS: Level[] = ["high", "mid", "low", "mid", "special-mid"];
 const STANCES = ["s1", "s2", "s3", "s4"];

@@ -12,7 +12,7 @@ import {
   type SortFn,
   type SortingState,
 } from "@tanstack/react-table";
-import { explainBlock, type BlockRules } from "@/components/ui/block-class";
+import { BLOCK_CLASS_STYLE, BLOCK_CLASS_WORD, explainBlock, type BlockRules } from "@/components/ui/block-class";
 import { Frames } from "@/components/ui/frames";
 import { LevelBadge } from "@/components/ui/level-badge";
 import type { BlockClass, PathResult } from "@/lib/engine";
@@ -38,24 +38,10 @@ type PathRowModel = Row<typeof features, PathResult>;
 type Features = typeof features;
 const col = createColumnHelper<Features, PathResult>();
 
-// The words beside each class's colour. Read from the path's own `blockClass`, which the engine
-// computed with the rules the paths were explored with, so the tag always agrees with the filter.
-const CLASS_WORD: Record<BlockClass, string> = {
-  plus: "plus",
-  even: "even",
-  safe: "safe",
-  punishable: "punishable",
-  "launch-punishable": "launch punish",
-  state: "state",
-};
-const CLASS_STYLE: Record<BlockClass, string> = {
-  plus: "text-block-plus",
-  even: "text-block-even",
-  safe: "text-block-safe",
-  punishable: "text-block-punishable",
-  "launch-punishable": "text-block-launch-punishable",
-  state: "text-block-state",
-};
+// The words and colours beside each class are the move list's, read from the path's own
+// `blockClass`: the engine computed it with the rules the paths were explored with.
+const CLASS_WORD = BLOCK_CLASS_WORD;
+const CLASS_STYLE = BLOCK_CLASS_STYLE;
 
 // The accessors of outcome columns give `undefined` for a state, so `sortUndefined: "last"` keeps
 // states below every number whichever way the column is sorted; numbers are ordered by compareOutcome.

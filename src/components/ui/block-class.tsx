@@ -1,7 +1,7 @@
 import { classifyBlock, type BlockClass, type Outcome } from "@/lib/engine";
 import { formatOutcome } from "@/lib/format";
 
-const STYLE: Record<BlockClass, string> = {
+export const BLOCK_CLASS_STYLE: Record<BlockClass, string> = {
   plus: "text-block-plus",
   even: "text-block-even",
   safe: "text-block-safe",
@@ -10,7 +10,7 @@ const STYLE: Record<BlockClass, string> = {
   state: "text-block-state",
 };
 
-const LABEL: Record<BlockClass, string> = {
+export const BLOCK_CLASS_WORD: Record<BlockClass, string> = {
   plus: "plus",
   even: "even",
   safe: "safe",
@@ -49,8 +49,8 @@ export function BlockClassTag({ onBlock, rules }: { onBlock: Outcome; rules: Blo
   const cls = classifyBlock(onBlock, rules);
   if (cls === "state") return null;
   return (
-    <span data-block-class={cls} className={`ml-2 text-[11px] ${STYLE[cls]}`}>
-      {LABEL[cls]}
+    <span data-block-class={cls} className={`ml-2 text-[11px] ${BLOCK_CLASS_STYLE[cls]}`}>
+      {BLOCK_CLASS_WORD[cls]}
     </span>
   );
 }

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { Breadcrumb } from "@/components/ui/breadcrumb";
 import { listCharacters, listEditions } from "@/server/db/queries/games";
 import { loadGame } from "../data";
 
@@ -18,11 +19,7 @@ export default async function GamePage({ params }: Props) {
   ]);
   return (
     <div className="space-y-6">
-      <nav aria-label="Breadcrumb" className="text-sm text-ink-400">
-        <Link href="/games" className="hover:underline">
-          Games
-        </Link>
-      </nav>
+      <Breadcrumb trail={[{ href: "/games", label: "Games" }]} />
       <header className="space-y-1">
         <h1 className="text-2xl font-semibold">{game.name}</h1>
         {game.summary && <p className="max-w-3xl text-ink-300">{game.summary}</p>}

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { Breadcrumb } from "@/components/ui/breadcrumb";
 import { MoveTable } from "@/components/moves/move-table";
 import { listEditions } from "@/server/db/queries/games";
 import { getMoveList } from "@/server/db/queries/moves";
@@ -27,15 +28,10 @@ export default async function CharacterPage({ params, searchParams }: Props) {
 
   return (
     <div className="space-y-6">
-      <nav aria-label="Breadcrumb" className="flex gap-2 text-sm text-ink-400">
-        <Link href="/games" className="hover:underline">
-          Games
-        </Link>
-        <span aria-hidden>/</span>
-        <Link href={`/games/${game.slug}`} className="hover:underline">
-          {game.name}
-        </Link>
-      </nav>
+      <Breadcrumb trail={[
+          { href: "/games", label: "Games" },
+          { href: `/games/${game.slug}`, label: game.name },
+        ]} />
       <header className="flex flex-wrap items-end justify-between gap-4">
         <div className="space-y-1">
           <h1 className="text-2xl font-semibold">{character.name}</h1>

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { Breadcrumb } from "@/components/ui/breadcrumb";
 import { notFound } from "next/navigation";
 import { SWRConfig } from "swr";
 import { ExplorerView } from "@/components/explorer/explorer-view";
@@ -32,19 +32,11 @@ export default async function ExplorePage({ params, searchParams }: Props) {
 
   return (
     <div className="space-y-4">
-      <nav aria-label="Breadcrumb" className="flex flex-wrap gap-2 text-sm text-ink-400">
-        <Link href="/games" className="hover:underline">
-          Games
-        </Link>
-        <span aria-hidden>/</span>
-        <Link href={`/games/${game.slug}`} className="hover:underline">
-          {game.name}
-        </Link>
-        <span aria-hidden>/</span>
-        <Link href={`/games/${game.slug}/${character.slug}?edition=${edition.slug}`} className="hover:underline">
-          {character.name}
-        </Link>
-      </nav>
+      <Breadcrumb trail={[
+          { href: "/games", label: "Games" },
+          { href: `/games/${game.slug}`, label: game.name },
+          { href: `/games/${game.slug}/${character.slug}?edition=${edition.slug}`, label: character.name },
+        ]} />
       <h1 className="text-xl font-semibold">
         Explorer · <span className="font-mono">{root}</span>
         {rootMove?.kind === "move" && rootMove.name && <span className="ml-2 text-base font-normal text-ink-300">{rootMove.name}</span>}
