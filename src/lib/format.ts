@@ -1,4 +1,4 @@
-import type { Outcome } from "./engine";
+import type { BlockClass, Outcome } from "./engine";
 
 /** `+3`, `0`, `-12`: the sign is always written, as frame advantage is read. */
 export function formatFrames(n: number): string {
@@ -14,3 +14,13 @@ export function formatOutcome(o: Outcome): string {
 export function outcomeNumber(o: Outcome): number | null {
   return typeof o === "number" ? o : null;
 }
+
+/** The block class as the UI writes it beside its colour. */
+export const BLOCK_CLASS_WORD: Record<BlockClass, string> = {
+  plus: "plus",
+  even: "even",
+  safe: "safe",
+  punishable: "punishable",
+  "launch-punishable": "launch punish",
+  state: "state",
+};

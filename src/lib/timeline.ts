@@ -1,5 +1,5 @@
 import type { BlockClass, CancelEdge, GraphEdge, GraphNode, Level, MoveGraph, MoveNode, Outcome, PathResult } from "@/lib/engine";
-import { formatFrames, formatOutcome } from "@/lib/format";
+import { BLOCK_CLASS_WORD, formatFrames, formatOutcome } from "@/lib/format";
 
 /**
  * The frame timeline of one path as positioned segments, in SVG user units that are
@@ -101,14 +101,7 @@ export interface EndSegment {
 
 export type TimelineSegment = HitSegment | GapSegment | CancelSegment | StartSegment | EndSegment;
 
-export const BLOCK_WORD: Record<BlockClass, string> = {
-  plus: "plus",
-  even: "even",
-  safe: "safe",
-  punishable: "punishable",
-  "launch-punishable": "launch punish",
-  state: "state",
-};
+export const BLOCK_WORD = BLOCK_CLASS_WORD;
 
 const hitOrdinal = (i: number) => `hit ${i + 1}`;
 

@@ -2,23 +2,18 @@ import { expect, test } from "@playwright/test";
 import { query } from "./db";
 import { ExplorerPage } from "./pages/explorer-page";
 
-async function onBlock(key: string, edition = "1-1"): Promise<number> {
+/** A move's (or, with `edges`, a cancel's) on-block frames as MariaDB holds them. */
+async function onBlockIn(table: "moves" | "edges", key: string, edition: string): Promise<number> {
   const [row] = await query<{ on_block: string }>(
-    `select m.on_block from moves m join characters c on c.id = m.character_id join editions e on e.id = m.edition_id
-     where c.slug = 'tarrow' and e.slug = ? and m.\`key\` = ?`,
-    [edition, key],
-  );
-  return Number(row?.on_block);
-}
-
-async function cancelOnBlock(key: string, edition = "1-1"): Promise<number> {
-  const [row] = await query<{ on_block: string }>(
-    `select x.on_block from edges x join characters c on c.id = x.character_id join editions e on e.id = x.edition_id
+    `select x.on_block from ${table} x join characters c on c.id = x.character_id join editions e on e.id = x.edition_id
      where c.slug = 'tarrow' and e.slug = ? and x.\`key\` = ?`,
     [edition, key],
   );
   return Number(row?.on_block);
 }
+
+const onBlock = (key: string, edition = "1-1") => onBlockIn("moves", key, edition);
+const cancelOnBlock = (key: string, edition = "1-1") => onBlockIn("edges", key, edition);
 
 const signed = (n: number) => (n > 0 ? `+${n}` : String(n));
 

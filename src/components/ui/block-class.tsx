@@ -1,5 +1,7 @@
 import { classifyBlock, type BlockClass, type Outcome } from "@/lib/engine";
-import { formatOutcome } from "@/lib/format";
+import { BLOCK_CLASS_WORD, formatOutcome } from "@/lib/format";
+
+export { BLOCK_CLASS_WORD };
 
 export const BLOCK_CLASS_STYLE: Record<BlockClass, string> = {
   plus: "text-block-plus",
@@ -10,14 +12,6 @@ export const BLOCK_CLASS_STYLE: Record<BlockClass, string> = {
   state: "text-block-state",
 };
 
-export const BLOCK_CLASS_WORD: Record<BlockClass, string> = {
-  plus: "plus",
-  even: "even",
-  safe: "safe",
-  punishable: "punishable",
-  "launch-punishable": "launch punish",
-  state: "state",
-};
 
 export interface BlockRules {
   fastest: number;
