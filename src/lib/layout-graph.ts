@@ -25,7 +25,18 @@ export interface LayoutOptions {
   nodeSep?: number;
   /** Space between ranks. */
   rankSep?: number;
+  /**
+   * How hard dagre works on the order within each rank. `"minimise"` runs its
+   * crossing-reduction sweeps and network-simplex ranking; `"fast"` keeps the
+   * depth-first order (no crossings within a tree, which most strings are)
+   * and ranks with a tight tree, for about a third of the time. The default
+   * picks `"fast"` from {@link FAST_LAYOUT_FROM} nodes up.
+   */
+  effort?: "minimise" | "fast";
 }
+
+/** From this many nodes, the default layout effort is `"fast"`. */
+export const FAST_LAYOUT_FROM = 150;
 
 /**
  * Places a graph with dagre: a fresh dagre graph per call (no state shared
@@ -37,17 +48,18 @@ export function layoutGraph(
   nodes: readonly LayoutNode[],
   edges: readonly LayoutEdge[],
   direction: Direction = "LR",
-  { nodeSep = 24, rankSep = 72 }: LayoutOptions = {},
+  { nodeSep = 24, rankSep = 72, effort = nodes.length >= FAST_LAYOUT_FROM ? "fast" : "minimise" }: LayoutOptions = {},
 ): PlacedNode[] {
+  const fast = effort === "fast";
   const g = new dagre.graphlib.Graph({ multigraph: true });
-  g.setGraph({ rankdir: direction, nodesep: nodeSep, ranksep: rankSep, marginx: 0, marginy: 0 });
+  g.setGraph({ rankdir: direction, nodesep: nodeSep, ranksep: rankSep, marginx: 0, marginy: 0, ranker: fast ? "tight-tree" : "network-simplex" });
   g.setDefaultEdgeLabel(() => ({}));
   for (const n of nodes) g.setNode(n.id, { width: n.width, height: n.height });
   for (const e of edges) {
     if (e.source === e.target) continue; // a self-loop does not change ranks or order
     g.setEdge(e.source, e.target, {}, e.id);
   }
-  dagre.layout(g);
+  dagre.layout(g, { disableOptimalOrderHeuristic: fast });
   return nodes.map((n) => {
     const placed = g.node(n.id) as { x: number; y: number };
     // dagre anchors at the centre; React Flow at the top-left corner.

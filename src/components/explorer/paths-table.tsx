@@ -1,5 +1,6 @@
 "use client";
 
+import { useVirtualizer, type Virtualizer } from "@tanstack/react-virtual";
 import { memo, useEffect, useMemo, useRef, useState, type JSX, type KeyboardEvent } from "react";
 import {
   createColumnHelper,
@@ -30,8 +31,10 @@ import {
   type PathFilters,
 } from "@/lib/paths-filter";
 
-/** Past this many rows the DOM, not the engine, becomes the slow part; no virtualiser needed below it. */
-export const PATHS_TABLE_ROW_LIMIT = 500;
+/** Height of one row in pixels: one line of text-sm, py-1 and a 1px top border (every cell is nowrap). */
+const ROW_HEIGHT = 29;
+/** Rows drawn beyond each edge of the box, so a quick scroll does not show blanks. */
+const OVERSCAN = 8;
 
 const features = tableFeatures({ rowSortingFeature, sortedRowModel: createSortedRowModel() });
 type PathRowModel = Row<typeof features, PathResult>;
@@ -228,24 +231,30 @@ export function PathsTable(props: {
     sortDescFirst: true,
   });
 
-  const rows = table.getRowModel().rows.slice(0, PATHS_TABLE_ROW_LIMIT);
+  const rows = table.getRowModel().rows;
   const filtered = hasFilters(filters);
-  const selectedShown = selectedKey !== null && rows.some((r) => r.id === selectedKey);
+  const selectedIndex = selectedKey === null ? -1 : rows.findIndex((r) => r.id === selectedKey);
 
+  // Only the rows in view (and a few either side) are in the DOM: a root can have thousands of
+  // paths, and every row drawn costs style and layout on each selection.
   const scrollRef = useRef<HTMLDivElement>(null);
+  // The compiler leaves this component unmemoised because of the virtualiser; PathRow is memoised by hand.
+  // eslint-disable-next-line react-hooks/incompatible-library
+  const virtualizer = useVirtualizer({
+    count: rows.length,
+    getScrollElement: () => scrollRef.current,
+    estimateSize: () => ROW_HEIGHT,
+    getItemKey: (i) => rows[i]!.id,
+    overscan: OVERSCAN,
+    // Server render and the first paint before the box is measured: a screenful of rows.
+    initialRect: { width: 0, height: 384 },
+  });
   useEffect(() => {
-    const box = scrollRef.current;
-    if (selectedKey === null || !box) return;
-    const row = box.querySelector<HTMLElement>(`tr[data-path-key="${CSS.escape(selectedKey)}"]`);
-    if (!row) return;
-    // Scrolls only this container (scrollIntoView would move the page too), and keeps the row
-    // clear of the sticky header.
-    const head = box.querySelector("thead")?.getBoundingClientRect().height ?? 0;
-    const top = box.getBoundingClientRect().top + box.clientTop;
-    const r = row.getBoundingClientRect();
-    if (r.top < top + head) box.scrollTop -= top + head - r.top;
-    else if (r.bottom > top + box.clientHeight) box.scrollTop += r.bottom - (top + box.clientHeight);
-  }, [selectedKey]);
+    if (selectedIndex >= 0) keepRowInView(virtualizer, selectedIndex);
+  }, [selectedIndex, virtualizer]);
+  const items = virtualizer.getVirtualItems();
+  const padTop = items[0]?.start ?? 0;
+  const padBottom = items.length > 0 ? virtualizer.getTotalSize() - items[items.length - 1]!.end : 0;
 
   const set = <K extends keyof FormState>(key: K, value: FormState[K]) => setForm((f) => ({ ...f, [key]: value }));
   const clear = () => setForm(EMPTY_FORM);
@@ -259,11 +268,6 @@ export function PathsTable(props: {
         </h2>
         <p className="text-xs text-ink-400" aria-live="polite" data-testid="paths-count">
           <span className="font-mono text-ink-200">{data.length}</span> of <span className="font-mono text-ink-200">{paths.length}</span> paths
-          {data.length > PATHS_TABLE_ROW_LIMIT && (
-            <span className="ml-2 text-accent">
-              showing first {PATHS_TABLE_ROW_LIMIT} of {data.length}
-            </span>
-          )}
         </p>
       </div>
 
@@ -342,8 +346,8 @@ export function PathsTable(props: {
         </button>
       </form>
 
-      {selectedKey !== null && !selectedShown && data.length > 0 && (
-        <p className="text-xs text-ink-400">The selected path is not in this list (filtered out, or past the first {PATHS_TABLE_ROW_LIMIT}).</p>
+      {selectedKey !== null && selectedIndex < 0 && data.length > 0 && (
+        <p className="text-xs text-ink-400">The selected path is filtered out of this list.</p>
       )}
 
       <div ref={scrollRef} className="max-h-96 overflow-auto rounded-lg border border-ink-800 bg-ink-900 [contain:content]">
@@ -361,7 +365,11 @@ export function PathsTable(props: {
             )}
           </div>
         ) : (
-          <table className="min-w-full border-separate border-spacing-0 text-sm" aria-labelledby="paths-table-title">
+          <table
+            className="min-w-full border-separate border-spacing-0 text-sm"
+            aria-labelledby="paths-table-title"
+            aria-rowcount={rows.length + 1}
+          >
             <thead>
               {table.getHeaderGroups().map((group) => (
                 <tr key={group.id}>
@@ -403,9 +411,21 @@ export function PathsTable(props: {
               ))}
             </thead>
             <tbody>
-              {rows.map((row) => (
-                <PathRow key={row.id} row={row} selected={row.id === selectedKey} onSelect={onSelect} />
-              ))}
+              {padTop > 0 && <tr aria-hidden="true" style={{ height: padTop }} />}
+              {items.map((item) => {
+                const row = rows[item.index]!;
+                return (
+                  <PathRow
+                    key={row.id}
+                    row={row}
+                    index={item.index}
+                    selected={row.id === selectedKey}
+                    onSelect={onSelect}
+                    virtualizer={virtualizer}
+                  />
+                );
+              })}
+              {padBottom > 0 && <tr aria-hidden="true" style={{ height: padBottom }} />}
             </tbody>
           </table>
         )}
@@ -414,32 +434,64 @@ export function PathsTable(props: {
   );
 }
 
-function onRowKey(e: KeyboardEvent<HTMLTableRowElement>, key: string, onSelect: (key: string) => void) {
+type RowVirtualizer = Virtualizer<HTMLDivElement, Element>;
+
+/** Height of the sticky header row, which covers the top of the box. */
+const HEAD_HEIGHT = 29;
+
+/**
+ * Scrolls the box, never the page, just enough to show row `index` below the
+ * sticky header. Reads only what the virtualiser already knows (its scroll
+ * offset and box size, kept from scroll and resize events), so selecting a row
+ * that is already in view forces no layout at all.
+ */
+function keepRowInView(virtualizer: RowVirtualizer, index: number) {
+  const box = virtualizer.scrollElement;
+  if (!box) return;
+  const offset = virtualizer.scrollOffset ?? 0;
+  const height = virtualizer.scrollRect?.height ?? 0;
+  const top = HEAD_HEIGHT + index * ROW_HEIGHT;
+  if (top < offset + HEAD_HEIGHT) box.scrollTop = top - HEAD_HEIGHT;
+  else if (top + ROW_HEIGHT > offset + height) box.scrollTop = top + ROW_HEIGHT - height;
+}
+
+function onRowKey(e: KeyboardEvent<HTMLTableRowElement>, key: string, index: number, onSelect: (key: string) => void, virtualizer: RowVirtualizer) {
   if (e.key === "Enter" || e.key === " ") {
     e.preventDefault();
     onSelect(key);
   } else if (e.key === "ArrowDown" || e.key === "ArrowUp") {
-    const next = e.key === "ArrowDown" ? e.currentTarget.nextElementSibling : e.currentTarget.previousElementSibling;
-    if (next instanceof HTMLElement) {
-      e.preventDefault();
-      next.focus();
-    }
+    const target = index + (e.key === "ArrowDown" ? 1 : -1);
+    if (target < 0 || target >= virtualizer.options.count) return;
+    e.preventDefault();
+    // The next row may not be drawn yet: scroll it in, then focus it once it is.
+    keepRowInView(virtualizer, target);
+    const body = e.currentTarget.parentElement;
+    const focus = (tries: number) => {
+      const next = body?.querySelector<HTMLElement>(`tr[data-index="${target}"]`);
+      if (next) next.focus();
+      else if (tries > 0) requestAnimationFrame(() => focus(tries - 1));
+    };
+    focus(3);
   }
 }
 
 /**
  * One row, memoised: selecting a path re-renders the two rows whose
- * selection changed, not all of them (the row objects are stable while the
- * data and sorting are).
+ * selection changed, not every row in view (the row objects are stable while
+ * the data and sorting are).
  */
 const PathRow = memo(function PathRow({
   row,
+  index,
   selected,
   onSelect,
+  virtualizer,
 }: {
   row: PathRowModel;
+  index: number;
   selected: boolean;
   onSelect: (key: string) => void;
+  virtualizer: RowVirtualizer;
 }) {
   const key = row.id;
   // The sticky input cell needs its own opaque background to hide what scrolls under it.
@@ -447,13 +499,14 @@ const PathRow = memo(function PathRow({
   const stickyBg = selected ? "bg-ink-800" : "bg-ink-900 group-hover:bg-ink-850";
   return (
     <tr
+      data-index={index}
       data-path-key={key}
+      aria-rowindex={index + 2}
       tabIndex={0}
       aria-selected={selected}
       onClick={() => onSelect(key)}
-      onKeyDown={(e) => onRowKey(e, key, onSelect)}
-      // Rows scrolled out of the box are neither styled nor painted until they scroll in.
-      className={`group cursor-pointer [content-visibility:auto] [contain-intrinsic-size:auto_29px] focus-visible:outline focus-visible:outline-2 focus-visible:-outline-offset-2 focus-visible:outline-accent ${bg}`}
+      onKeyDown={(e) => onRowKey(e, key, index, onSelect, virtualizer)}
+      className={`group cursor-pointer focus-visible:outline focus-visible:outline-2 focus-visible:-outline-offset-2 focus-visible:outline-accent ${bg}`}
     >
       {row.getAllCells().map((cell) => {
         const id = cell.column.id;

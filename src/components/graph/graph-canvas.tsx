@@ -2,12 +2,12 @@
 
 import "@xyflow/react/dist/style.css";
 import { Background, Controls, MarkerType, MiniMap, ReactFlow, type Edge } from "@xyflow/react";
-import { useMemo, useState, type KeyboardEvent } from "react";
+import { useEffect, useMemo, useState, type KeyboardEvent } from "react";
 import { ExportButton } from "./export-button";
 import type { BlockRules } from "@/components/ui/block-class";
 import type { MoveGraph, PathResult } from "@/lib/engine";
 import { layoutGraph } from "@/lib/layout-graph";
-import { MOVE_SIZE, STANCE_SIZE, nodeTypes, type MoveFlowNode, type StanceFlowNode } from "./nodes";
+import { MOVE_SIZE, RulesContext, STANCE_SIZE, createRulesStore, nodeTypes, type MoveFlowNode, type StanceFlowNode } from "./nodes";
 
 export const EDGE_STYLE = {
   follow: { stroke: "#7d8aa3", strokeWidth: 1.5 },
@@ -54,6 +54,9 @@ export function GraphCanvas({
     return new Map(placed.map((p) => [p.id, p]));
   }, [graph]);
 
+  const [rulesStore] = useState(() => createRulesStore(rules));
+  useEffect(() => rulesStore.setState(rules, true), [rulesStore, rules]);
+
   const [focused, setFocused] = useState<string | null>(null);
   const current = focused ?? selected?.nodes[selected.nodes.length - 1] ?? graph.nodes[0]?.id ?? null;
   const onKeyDown = (event: KeyboardEvent<HTMLDivElement>) => {
@@ -87,10 +90,10 @@ export function GraphCanvas({
         const marks = { onPath: false, isEnd: false, hasFocus: false };
         const common = { id: n.id, position: { x: p.x, y: p.y }, width: p.width, height: p.height, connectable: false, draggable: false };
         return n.kind === "move"
-          ? { ...common, type: "move", data: { move: n, rules, ...marks }, ariaLabel: `${n.input}, ${n.level}` }
+          ? { ...common, type: "move", data: { move: n, ...marks }, ariaLabel: `${n.input}, ${n.level}` }
           : { ...common, type: "stance", data: { stance: n, ...marks }, ariaLabel: `stance ${n.name}` };
       }),
-    [graph, layout, rules],
+    [graph, layout],
   );
   const nodes = useMemo(
     () =>
@@ -133,7 +136,8 @@ export function GraphCanvas({
               ...e,
               style: { ...e.style, stroke: "#ffd873", strokeWidth: 3 },
               markerEnd: { type: MarkerType.ArrowClosed, color: "#ffd873", width: 16, height: 16 },
-              zIndex: 1,
+              // Same zIndex as the rest: React Flow draws each zIndex in its own layer, so raising
+              // an edge would remount it (and measure its label again) on every selection.
             }
           : e,
       ),
@@ -142,37 +146,39 @@ export function GraphCanvas({
 
   const focusedNode = graph.nodes.find((n) => n.id === current);
   return (
-    <div
-      className="h-full w-full outline-none focus-visible:ring-2 focus-visible:ring-accent"
-      tabIndex={0}
-      role="group"
-      aria-label="Move graph. Arrow keys move between moves, Enter selects the path, Escape clears."
-      aria-describedby="graph-focus"
-      onKeyDown={onKeyDown}
-    >
-      <span id="graph-focus" className="sr-only" aria-live="polite">
-        {focusedNode ? (focusedNode.kind === "move" ? `${focusedNode.input}, ${focusedNode.level}` : `stance ${focusedNode.name}`) : ""}
-      </span>
-      <ReactFlow
-        nodes={nodes}
-        edges={edges}
-        nodeTypes={nodeTypes}
-        colorMode="dark"
-        fitView
-        fitViewOptions={{ padding: 0.15 }}
-        minZoom={0.2}
-        nodesDraggable={false}
-        nodesConnectable={false}
-        elementsSelectable={false}
-        onNodeClick={(_, node) => onSelectNode(node.id)}
-        proOptions={{ hideAttribution: false }}
+    <RulesContext value={rulesStore}>
+      <div
+        className="h-full w-full outline-none focus-visible:ring-2 focus-visible:ring-accent"
+        tabIndex={0}
+        role="group"
+        aria-label="Move graph. Arrow keys move between moves, Enter selects the path, Escape clears."
+        aria-describedby="graph-focus"
+        onKeyDown={onKeyDown}
       >
-        <Background color="#283040" gap={24} />
-        <Controls showInteractive={false} position="bottom-left" />
-        <ExportButton fileName={exportName} />
-        {graph.nodes.length > 24 && <MiniMap pannable zoomable position="bottom-right" nodeColor="#3a4458" maskColor="rgba(11,13,18,0.7)" />}
-      </ReactFlow>
-    </div>
+        <span id="graph-focus" className="sr-only" aria-live="polite">
+          {focusedNode ? (focusedNode.kind === "move" ? `${focusedNode.input}, ${focusedNode.level}` : `stance ${focusedNode.name}`) : ""}
+        </span>
+        <ReactFlow
+          nodes={nodes}
+          edges={edges}
+          nodeTypes={nodeTypes}
+          colorMode="dark"
+          fitView
+          fitViewOptions={{ padding: 0.15 }}
+          minZoom={0.2}
+          nodesDraggable={false}
+          nodesConnectable={false}
+          elementsSelectable={false}
+          onNodeClick={(_, node) => onSelectNode(node.id)}
+          proOptions={{ hideAttribution: false }}
+        >
+          <Background color="#283040" gap={24} />
+          <Controls showInteractive={false} position="bottom-left" />
+          <ExportButton fileName={exportName} />
+          {graph.nodes.length > 24 && <MiniMap pannable zoomable position="bottom-right" nodeColor="#3a4458" maskColor="rgba(11,13,18,0.7)" />}
+        </ReactFlow>
+      </div>
+    </RulesContext>
   );
 }
 

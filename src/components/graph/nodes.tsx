@@ -1,11 +1,12 @@
 "use client";
 
 import { Handle, Position, type Node, type NodeProps } from "@xyflow/react";
-import { memo } from "react";
-import { BlockClassTag, type BlockRules } from "@/components/ui/block-class";
+import { createContext, memo, useContext } from "react";
+import { createStore, useStore, type StoreApi } from "zustand";
+import { BLOCK_CLASS_STYLE, BLOCK_CLASS_WORD, type BlockRules } from "@/components/ui/block-class";
 import { Frames } from "@/components/ui/frames";
 import { LevelBadge } from "@/components/ui/level-badge";
-import type { MoveNode as EngineMove, StanceNode as EngineStance } from "@/lib/engine";
+import { classifyBlock, type MoveNode as EngineMove, type StanceNode as EngineStance } from "@/lib/engine";
 
 export const MOVE_SIZE = { width: 176, height: 64 };
 export const STANCE_SIZE = { width: 168, height: 44 };
@@ -18,7 +19,22 @@ type Marks = {
   hasFocus: boolean;
 };
 
-export type MoveFlowNode = Node<{ move: EngineMove; rules: BlockRules } & Marks, "move">;
+export type MoveFlowNode = Node<{ move: EngineMove } & Marks, "move">;
+
+/**
+ * The block rules the nodes are drawn with, in a store of their own rather
+ * than in each node's data: when the opponent's fastest attack changes, only
+ * the nodes whose block class changes re-render, not all of them.
+ */
+export type RulesStore = StoreApi<BlockRules>;
+export const createRulesStore = (rules: BlockRules): RulesStore => createStore<BlockRules>()(() => rules);
+export const RulesContext = createContext<RulesStore | null>(null);
+
+function useBlockClass(move: EngineMove) {
+  const store = useContext(RulesContext);
+  if (!store) throw new Error("Move nodes need a RulesContext provider");
+  return useStore(store, (rules) => classifyBlock(move.onBlock, rules));
+}
 export type StanceFlowNode = Node<{ stance: EngineStance } & Marks, "stance">;
 
 const ring = (m: Marks) =>
@@ -27,7 +43,8 @@ const ring = (m: Marks) =>
   }`;
 
 function MoveNodeView({ data }: NodeProps<MoveFlowNode>) {
-  const { move, rules } = data;
+  const { move } = data;
+  const cls = useBlockClass(move);
   return (
     <div
       data-node-id={move.id}
@@ -44,7 +61,11 @@ function MoveNodeView({ data }: NodeProps<MoveFlowNode>) {
       <div className="flex items-center text-xs text-ink-400">
         <span className="mr-1">block</span>
         <Frames value={move.onBlock} />
-        <BlockClassTag onBlock={move.onBlock} rules={rules} />
+        {cls !== "state" && (
+          <span data-block-class={cls} className={`ml-2 text-[11px] ${BLOCK_CLASS_STYLE[cls]}`}>
+            {BLOCK_CLASS_WORD[cls]}
+          </span>
+        )}
       </div>
       <Handle type="source" position={Position.Right} className="!h-2 !w-2 !border-0 !bg-ink-600" />
     </div>

@@ -1,6 +1,6 @@
 import { fc, test } from "@fast-check/vitest";
 import { describe, expect } from "vitest";
-import { layoutGraph, type LayoutEdge, type LayoutNode } from "@/lib/layout-graph";
+import { layoutGraph, type LayoutEdge, type LayoutNode, type LayoutOptions } from "@/lib/layout-graph";
 
 const graphArb = fc
   .integer({ min: 1, max: 40 })
@@ -31,9 +31,19 @@ function reaches(edges: LayoutEdge[], from: string, to: string): boolean {
   return false;
 }
 
+const effortArb = fc.constantFrom<NonNullable<LayoutOptions["effort"]>>("minimise", "fast");
+
+/** A random tree: node i hangs from one of the nodes before it. */
+const treeArb = fc.integer({ min: 2, max: 60 }).chain((n) =>
+  fc.tuple(...Array.from({ length: n - 1 }, (_, i) => fc.nat(i))).map((parents) => ({
+    nodes: Array.from({ length: n }, (_, i): LayoutNode => ({ id: `t${i}`, width: 120, height: 40 })),
+    edges: parents.map((p, i): LayoutEdge => ({ id: `e${i}`, source: `t${p}`, target: `t${i + 1}` })),
+  })),
+);
+
 describe("layoutGraph", () => {
-  test.prop([graphArb], { numRuns: 150 })("places every node, once, with its size", ({ nodes, edges }) => {
-    const placed = layoutGraph(nodes, edges);
+  test.prop([graphArb, effortArb], { numRuns: 150 })("places every node, once, with its size", ({ nodes, edges }, effort) => {
+    const placed = layoutGraph(nodes, edges, "LR", { effort });
     expect(placed.map((p) => p.id)).toEqual(nodes.map((n) => n.id));
     for (const [i, p] of placed.entries()) {
       expect(Number.isFinite(p.x) && Number.isFinite(p.y)).toBe(true);
@@ -41,8 +51,8 @@ describe("layoutGraph", () => {
     }
   });
 
-  test.prop([graphArb], { numRuns: 150 })("no two nodes overlap", ({ nodes, edges }) => {
-    const placed = layoutGraph(nodes, edges);
+  test.prop([graphArb, effortArb], { numRuns: 150 })("no two nodes overlap", ({ nodes, edges }, effort) => {
+    const placed = layoutGraph(nodes, edges, "LR", { effort });
     for (let i = 0; i < placed.length; i++) {
       for (let j = i + 1; j < placed.length; j++) {
         const a = placed[i]!;
@@ -53,8 +63,8 @@ describe("layoutGraph", () => {
     }
   });
 
-  test.prop([graphArb], { numRuns: 150 })("edges run left to right, except back edges of cycles", ({ nodes, edges }) => {
-    const placed = new Map(layoutGraph(nodes, edges, "LR").map((p) => [p.id, p]));
+  test.prop([graphArb, effortArb], { numRuns: 150 })("edges run left to right, except back edges of cycles", ({ nodes, edges }, effort) => {
+    const placed = new Map(layoutGraph(nodes, edges, "LR", { effort }).map((p) => [p.id, p]));
     for (const e of edges) {
       if (e.source === e.target) continue;
       const s = placed.get(e.source)!;
@@ -80,5 +90,27 @@ describe("layoutGraph", () => {
     expect(placed.get("1")!.x).toBeLessThan(placed.get("1,2")!.x);
     expect(placed.get("1,2,3")!.x).toBe(placed.get("1,2,4")!.x);
     expect(placed.get("1,2,3")!.y).not.toBe(placed.get("1,2,4")!.y);
+  });
+
+  test.prop([treeArb], { numRuns: 100 })("a tree laid out fast has no crossing edges", ({ nodes, edges }) => {
+    const at = new Map(layoutGraph(nodes, edges, "LR", { effort: "fast" }).map((p) => [p.id, p]));
+    for (const a of edges) {
+      for (const b of edges) {
+        const [s1, t1, s2, t2] = [a.source, a.target, b.source, b.target].map((id) => at.get(id)!);
+        // Two edges between the same two columns cross when their ends swap order.
+        if (a.id >= b.id || s1!.x !== s2!.x || t1!.x !== t2!.x) continue;
+        expect((s1!.y - s2!.y) * (t1!.y - t2!.y), `${a.id} crosses ${b.id}`).toBeGreaterThanOrEqual(0);
+      }
+    }
+  });
+
+  test("large graphs default to the fast effort, small ones to the full one", () => {
+    // The same tree, large: fast keeps depth-first order, so the first child of the root sits above its siblings.
+    const big = Array.from({ length: 160 }, (_, i): LayoutNode => ({ id: `b${i}`, width: 60, height: 20 }));
+    const edges = big.slice(1).map((n, i): LayoutEdge => ({ id: `e${i}`, source: `b${Math.floor(i / 4)}`, target: n.id }));
+    const byDefault = layoutGraph(big, edges);
+    expect(byDefault).toEqual(layoutGraph(big, edges, "LR", { effort: "fast" }));
+    const small = big.slice(0, 20);
+    expect(layoutGraph(small, edges.slice(0, 19))).toEqual(layoutGraph(small, edges.slice(0, 19), "LR", { effort: "minimise" }));
   });
 });
