@@ -9,10 +9,12 @@ import {
   json,
   mysqlEnum,
   mysqlTable,
+  primaryKey,
   smallint,
   text,
   uniqueIndex,
   varchar,
+  type AnyMySqlColumn,
 } from "drizzle-orm/mysql-core";
 import type { Level, Outcome } from "@/lib/engine";
 
@@ -43,9 +45,11 @@ export const games = mysqlTable(
     fastest: smallint("fastest", { unsigned: true }).notNull().default(10),
     /** Block disadvantage from which a launching punish is assumed. */
     launchAt: smallint("launch_at", { unsigned: true }).notNull().default(15),
+    /** The team that owns the game; null for the public demo game, read-only to everyone. */
+    teamId: ref("team_id").references((): AnyMySqlColumn => teams.id, { onDelete: "cascade" }),
     createdAt: createdAt(),
   },
-  (t) => [uniqueIndex("games_slug_uq").on(t.slug)],
+  (t) => [uniqueIndex("games_slug_uq").on(t.slug), index("games_team_idx").on(t.teamId)],
 );
 
 /** An edition is one version (patch) of a game's frame data. */
@@ -191,6 +195,195 @@ export const edges = mysqlTable(
   ],
 );
 
+// ---------------------------------------------------------------------------
+// People, teams and sharing.
+//
+// users, accounts, sessions and verification_tokens have the shapes
+// @auth/drizzle-adapter expects (its MySQL tables), under our own names; the
+// adapter is given these tables, so sign-in links and users go through it.
+
+export const ROLES = ["owner", "coach", "player", "viewer"] as const;
+export type Role = (typeof ROLES)[number];
+export const PERMALINK_VISIBILITY = ["team", "link"] as const;
+
+/** A person who can sign in. The adapter creates users by e-mail; sign-up sets a password too. */
+export const users = mysqlTable(
+  "users",
+  {
+    id: varchar("id", { length: 255 })
+      .primaryKey()
+      .$defaultFn(() => crypto.randomUUID()),
+    name: varchar("name", { length: 255 }),
+    email: varchar("email", { length: 255 }).notNull(),
+    emailVerified: datetime("email_verified", { mode: "date", fsp: 3 }),
+    image: varchar("image", { length: 255 }),
+    /** argon2id; null for people who only ever signed in by link. Never leaves the server. */
+    passwordHash: varchar("password_hash", { length: 255 }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("users_email_uq").on(t.email)],
+);
+
+export const accounts = mysqlTable(
+  "accounts",
+  {
+    userId: varchar("user_id", { length: 255 })
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    type: varchar("type", { length: 255 }).$type<"email" | "oauth" | "oidc" | "webauthn">().notNull(),
+    provider: varchar("provider", { length: 255 }).notNull(),
+    providerAccountId: varchar("provider_account_id", { length: 255 }).notNull(),
+    refresh_token: varchar("refresh_token", { length: 255 }),
+    access_token: varchar("access_token", { length: 255 }),
+    expires_at: int("expires_at"),
+    token_type: varchar("token_type", { length: 255 }),
+    scope: varchar("scope", { length: 255 }),
+    id_token: varchar("id_token", { length: 2048 }),
+    session_state: varchar("session_state", { length: 255 }),
+  },
+  (t) => [primaryKey({ columns: [t.provider, t.providerAccountId] }), index("accounts_user_idx").on(t.userId)],
+);
+
+export const sessions = mysqlTable("sessions", {
+  sessionToken: varchar("session_token", { length: 255 }).primaryKey(),
+  userId: varchar("user_id", { length: 255 })
+    .notNull()
+    .references(() => users.id, { onDelete: "cascade" }),
+  expires: datetime("expires", { mode: "date" }).notNull(),
+});
+
+/** One-time sign-in links: the adapter stores the token hashed with the secret. */
+export const verificationTokens = mysqlTable(
+  "verification_tokens",
+  {
+    identifier: varchar("identifier", { length: 255 }).notNull(),
+    token: varchar("token", { length: 255 }).notNull(),
+    expires: datetime("expires", { mode: "date" }).notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.identifier, t.token] })],
+);
+
+/** Forgotten-password links: single use (usedAt), expiring, stored as a SHA-256 of the token. */
+export const passwordResets = mysqlTable(
+  "password_resets",
+  {
+    id: id(),
+    userId: varchar("user_id", { length: 255 })
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    tokenHash: varchar("token_hash", { length: 64 }).notNull(),
+    expiresAt: datetime("expires_at", { mode: "date" }).notNull(),
+    usedAt: datetime("used_at", { mode: "date" }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("password_resets_token_uq").on(t.tokenHash), index("password_resets_user_idx").on(t.userId)],
+);
+
+export const teams = mysqlTable(
+  "teams",
+  {
+    id: id(),
+    slug: varchar("slug", { length: 64 }).notNull(),
+    name: varchar("name", { length: 120 }).notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("teams_slug_uq").on(t.slug)],
+);
+
+/** A user's place in a team: one role each. */
+export const memberships = mysqlTable(
+  "memberships",
+  {
+    teamId: ref("team_id")
+      .notNull()
+      .references(() => teams.id, { onDelete: "cascade" }),
+    userId: varchar("user_id", { length: 255 })
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    role: mysqlEnum("role", ROLES).notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.teamId, t.userId] }), index("memberships_user_idx").on(t.userId)],
+);
+
+/** An invitation by e-mail: the link's token is stored as a SHA-256, single use, expiring. */
+export const invites = mysqlTable(
+  "invites",
+  {
+    id: id(),
+    teamId: ref("team_id")
+      .notNull()
+      .references(() => teams.id, { onDelete: "cascade" }),
+    email: varchar("email", { length: 255 }).notNull(),
+    role: mysqlEnum("role", ROLES).notNull(),
+    tokenHash: varchar("token_hash", { length: 64 }).notNull(),
+    invitedBy: varchar("invited_by", { length: 255 })
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    expiresAt: datetime("expires_at", { mode: "date" }).notNull(),
+    acceptedAt: datetime("accepted_at", { mode: "date" }),
+    acceptedBy: varchar("accepted_by", { length: 255 }).references(() => users.id, { onDelete: "set null" }),
+    revokedAt: datetime("revoked_at", { mode: "date" }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("invites_token_uq").on(t.tokenHash), index("invites_team_idx").on(t.teamId)],
+);
+
+/** A shared view, pinned to the edition it was made on. */
+export const permalinks = mysqlTable(
+  "permalinks",
+  {
+    id: id(),
+    /** base64url of 18 random bytes (144 bits). */
+    slug: varchar("slug", { length: 32 }).notNull(),
+    teamId: ref("team_id")
+      .notNull()
+      .references(() => teams.id, { onDelete: "cascade" }),
+    createdBy: varchar("created_by", { length: 255 })
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    kind: varchar("kind", { length: 16 }).notNull().default("explorer"),
+    visibility: mysqlEnum("visibility", PERMALINK_VISIBILITY).notNull(),
+    editionId: ref("edition_id")
+      .notNull()
+      .references(() => editions.id, { onDelete: "cascade" }),
+    characterId: ref("character_id")
+      .notNull()
+      .references(() => characters.id, { onDelete: "cascade" }),
+    /** The view: root, selected path and options, validated by the permalink schema on the way in and out. */
+    view: json("view").$type<Record<string, unknown>>().notNull(),
+    title: varchar("title", { length: 200 }).notNull(),
+    revokedAt: datetime("revoked_at", { mode: "date" }),
+    revokedBy: varchar("revoked_by", { length: 255 }).references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("permalinks_slug_uq").on(t.slug), index("permalinks_team_idx").on(t.teamId, t.createdAt)],
+);
+
+/** Who changed what in a team, newest last. */
+export const auditLog = mysqlTable(
+  "audit_log",
+  {
+    id: id(),
+    teamId: ref("team_id")
+      .notNull()
+      .references(() => teams.id, { onDelete: "cascade" }),
+    actorId: varchar("actor_id", { length: 255 }).references(() => users.id, { onDelete: "set null" }),
+    action: varchar("action", { length: 64 }).notNull(),
+    /** What the action was about, as plain data (no secrets). */
+    detail: json("detail").$type<Record<string, unknown>>().notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("audit_log_team_idx").on(t.teamId, t.createdAt)],
+);
+
+/** rate-limiter-flexible's MySQL store, created here so migrations own every table. */
+export const rateLimits = mysqlTable("rate_limits", {
+  key: varchar("key", { length: 255 }).primaryKey(),
+  points: int("points").notNull().default(0),
+  expire: bigint("expire", { mode: "number", unsigned: true }),
+});
+
 export type Game = typeof games.$inferSelect;
 export type NewGame = typeof games.$inferInsert;
 export type Edition = typeof editions.$inferSelect;
@@ -203,3 +396,15 @@ export type Move = typeof moves.$inferSelect;
 export type NewMove = typeof moves.$inferInsert;
 export type Edge = typeof edges.$inferSelect;
 export type NewEdge = typeof edges.$inferInsert;
+export type User = typeof users.$inferSelect;
+export type NewUser = typeof users.$inferInsert;
+export type Team = typeof teams.$inferSelect;
+export type NewTeam = typeof teams.$inferInsert;
+export type Membership = typeof memberships.$inferSelect;
+export type NewMembership = typeof memberships.$inferInsert;
+export type Invite = typeof invites.$inferSelect;
+export type NewInvite = typeof invites.$inferInsert;
+export type Permalink = typeof permalinks.$inferSelect;
+export type NewPermalink = typeof permalinks.$inferInsert;
+export type AuditEntry = typeof auditLog.$inferSelect;
+export type NewAuditEntry = typeof auditLog.$inferInsert;
