@@ -2,15 +2,10 @@ import "server-only";
 import { and, eq } from "drizzle-orm";
 import { AppError } from "@/lib/errors";
 import { getDb } from "./db";
-import { memberships, type Role } from "./db/schema";
+import { atLeast, type Role } from "@/lib/roles";
+import { memberships } from "./db/schema";
 
-/** Each role can do everything the roles after it can. */
-const RANK: Record<Role, number> = { owner: 4, coach: 3, player: 2, viewer: 1 };
-
-/** Does `role` allow what `needed` allows? */
-export function atLeast(role: Role | null, needed: Role): boolean {
-  return role !== null && RANK[role] >= RANK[needed];
-}
+export { atLeast };
 
 /** The user's role in the team, or null when they are not a member. */
 export async function getRole({ teamId, userId }: { teamId: number; userId: string }): Promise<Role | null> {

@@ -17,6 +17,7 @@ import {
   type AnyMySqlColumn,
 } from "drizzle-orm/mysql-core";
 import type { Level, Outcome } from "@/lib/engine";
+import { ROLES } from "@/lib/roles";
 
 // MariaDB rejects Drizzle's `serial()` ("serial AUTO_INCREMENT"), so every
 // key is an explicit unsigned bigint.
@@ -202,8 +203,7 @@ export const edges = mysqlTable(
 // @auth/drizzle-adapter expects (its MySQL tables), under our own names; the
 // adapter is given these tables, so sign-in links and users go through it.
 
-export const ROLES = ["owner", "coach", "player", "viewer"] as const;
-export type Role = (typeof ROLES)[number];
+export { ROLES, type Role } from "@/lib/roles";
 export const PERMALINK_VISIBILITY = ["team", "link"] as const;
 
 /** A person who can sign in. The adapter creates users by e-mail; sign-up sets a password too. */

@@ -137,8 +137,19 @@ describe("invites", () => {
     const first = await createInvite({ teamId: team.id, invitedBy: owner.id, inviterRole: "owner", email: coach.email, role: "coach" });
     await acceptInvite({ token: first.token, userId: coach.id, userEmail: coach.email });
     // A second invite cannot be made for a member, so make the row directly as an old one would be.
-    const token = "second-invite-token-for-the-test";
+    const token = `second-invite-${crypto.randomUUID()}`;
     await getDb().insert(invites).values({ teamId: team.id, email: coach.email, role: "viewer", tokenHash: hashToken(token), invitedBy: owner.id, expiresAt: new Date(Date.now() + 86_400_000) });
     expect((await acceptInvite({ token, userId: coach.id, userEmail: coach.email })).role).toBe("coach");
+  });
+});
+
+describe("invite delivery", () => {
+  test("when the e-mail cannot be sent, no invite and no log entry are left", async () => {
+    const owner = await makeUser("owner");
+    const team = await createTeam({ name: "Mail Down", ownerId: owner.id });
+    const deliver = () => Promise.reject(new Error("SMTP refused"));
+    await expect(createInvite({ teamId: team.id, invitedBy: owner.id, inviterRole: "owner", email: "nobody@example.test", role: "player", deliver })).rejects.toThrow("SMTP refused");
+    expect(await getDb().select().from(invites).where(eq(invites.teamId, team.id))).toEqual([]);
+    expect((await listAudit({ teamId: team.id })).map((e) => e.action)).toEqual(["team.created"]);
   });
 });

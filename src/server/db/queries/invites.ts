@@ -34,7 +34,8 @@ export function mayInvite(inviter: Role, role: Role): boolean {
 
 /**
  * Creates an invite and returns it with its token. Only the SHA-256 of the token is stored;
- * the token itself goes out in the e-mail and nowhere else.
+ * the token itself goes out in the e-mail and nowhere else. `deliver` sends that e-mail
+ * inside the transaction: when it fails, no invite is left behind.
  */
 export async function createInvite({
   teamId,
@@ -42,6 +43,7 @@ export async function createInvite({
   inviterRole,
   email,
   role,
+  deliver,
   now = new Date(),
 }: {
   teamId: number;
@@ -49,6 +51,7 @@ export async function createInvite({
   inviterRole: Role;
   email: string;
   role: Role;
+  deliver?: (message: { token: string; email: string; expiresAt: Date }) => Promise<void>;
   now?: Date;
 }): Promise<{ invite: InviteDto; token: string }> {
   if (!mayInvite(inviterRole, role)) throw new AppError("forbidden", `A ${inviterRole} cannot invite someone as ${role}.`);
@@ -65,6 +68,7 @@ export async function createInvite({
     const expiresAt = new Date(now.getTime() + INVITE_DAYS * DAY_MS);
     const [row] = await tx.insert(invites).values({ teamId, email: address, role, tokenHash: hashToken(token), invitedBy, expiresAt }).$returningId();
     await recordAudit(tx, { teamId, actorId: invitedBy, action: "member.invited", detail: { email: address, role } });
+    await deliver?.({ token, email: address, expiresAt });
     return {
       token,
       invite: { id: row!.id, email: address, role, invitedBy, expiresAt: expiresAt.toISOString(), createdAt: now.toISOString() },
