@@ -1,6 +1,9 @@
 import "server-only";
 import { notFound } from "next/navigation";
 import { cache } from "react";
+import { AppError } from "@/lib/errors";
+import { auth } from "@/server/auth";
+import { checkGameRead } from "@/server/games-access";
 import { getCharacterBySlug, getGameBySlug } from "@/server/db/queries/games";
 import { hasMove } from "@/server/db/queries/moves";
 
@@ -8,9 +11,18 @@ import { hasMove } from "@/server/db/queries/moves";
 // an unknown address answers 404 rather than a 200 that later shows "not found".
 // `cache` lets the layout, the page and generateMetadata share one lookup.
 
+/** A game the viewer may read; a team's game is "not found" to anyone outside the team. */
 export const loadGame = cache(async (slug: string) => {
   const game = await getGameBySlug({ slug });
   if (!game) notFound();
+  const allowed = await checkGameRead({ game, user: await auth() }).then(
+    () => true,
+    (e: unknown) => {
+      if (e instanceof AppError && (e.code === "not_found" || e.code === "unauthorized")) return false;
+      throw e;
+    },
+  );
+  if (!allowed) notFound();
   return game;
 });
 

@@ -1,12 +1,14 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { auth } from "@/server/auth";
 import { listGames } from "@/server/db/queries/games";
 
 export const metadata: Metadata = { title: "Games" };
 export const dynamic = "force-dynamic";
 
 export default async function GamesPage() {
-  const games = await listGames();
+  const user = await auth();
+  const games = await listGames({ viewerId: user?.id ?? null });
   return (
     <div className="space-y-6">
       <h1 className="text-2xl font-semibold">Games</h1>

@@ -1,7 +1,7 @@
 import "server-only";
-import { asc, desc, eq, and } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNull, or } from "drizzle-orm";
 import { getDb } from "../index";
-import { characters, editions, games } from "../schema";
+import { characters, editions, games, memberships } from "../schema";
 
 export interface GameSummary {
   id: number;
@@ -11,6 +11,8 @@ export interface GameSummary {
   fps: number;
   fastest: number;
   launchAt: number;
+  /** The owning team; null for a public game, which everyone reads. */
+  teamId: number | null;
 }
 
 export interface EditionSummary {
@@ -35,10 +37,18 @@ const gameColumns = {
   fps: games.fps,
   fastest: games.fastest,
   launchAt: games.launchAt,
+  teamId: games.teamId,
 };
 
-export async function listGames(): Promise<GameSummary[]> {
-  return getDb().select(gameColumns).from(games).orderBy(asc(games.name));
+/** The games a viewer may read: the public ones, and their own teams' (none when signed out). */
+export async function listGames({ viewerId = null }: { viewerId?: string | null } = {}): Promise<GameSummary[]> {
+  const mine = viewerId === null ? [] : await getDb().select({ teamId: memberships.teamId }).from(memberships).where(eq(memberships.userId, viewerId));
+  const teamIds = mine.map((m) => m.teamId);
+  return getDb()
+    .select(gameColumns)
+    .from(games)
+    .where(teamIds.length === 0 ? isNull(games.teamId) : or(isNull(games.teamId), inArray(games.teamId, teamIds)))
+    .orderBy(asc(games.name));
 }
 
 export async function getGameBySlug({ slug }: { slug: string }): Promise<GameSummary | null> {

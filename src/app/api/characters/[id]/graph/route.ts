@@ -1,6 +1,9 @@
 import { graphSchema } from "@/lib/engine";
 import { AppError } from "@/lib/errors";
+import { auth } from "@/server/auth";
 import { getExplorerData } from "@/server/db/queries/explorer";
+import { getCharacterById } from "@/server/db/queries/games";
+import { checkGameRead } from "@/server/games-access";
 import { handle, parseWith } from "@/server/http";
 import { graphParamsSchema, graphQuerySchema } from "./schema";
 
@@ -9,12 +12,14 @@ export const dynamic = "force-dynamic";
 /**
  * One character's move graph in one Edition (default: the newest), in the
  * engine's JSON shape, with the game's frame rules. The demo game is public;
- * team-owned games get their role check here when teams exist.
+ * a team's game is read by its members only (others get 404, as if it did not exist).
  */
 export const GET = handle(async (request: Request, ctx: RouteContext<"/api/characters/[id]/graph">) => {
   const { id } = parseWith(graphParamsSchema, await ctx.params, "path");
   const { edition } = parseWith(graphQuerySchema, Object.fromEntries(new URL(request.url).searchParams), "query");
 
+  const owner = await getCharacterById({ id });
+  if (owner) await checkGameRead({ game: owner.game, user: owner.game.teamId === null ? null : await auth() });
   const found = await getExplorerData({ characterId: id, edition });
   if (!found.ok) {
     throw new AppError(
