@@ -3,21 +3,20 @@ import { readFile } from "node:fs/promises";
 import path from "node:path";
 import { ImageResponse } from "next/og";
 import type { Level } from "@/lib/engine";
+import config from "../../../tailwind.config";
 import type { PermalinkImageSummary } from "./summary";
 
 export const PERMALINK_IMAGE_SIZE = { width: 1200, height: 630 } as const;
 
-// The app's palette (tailwind.config.ts): ink for the ground, accent for the brand, one colour per level.
-const INK = { ground: "#0b0d12", panel: "#161a23", line: "#283040", text: "#e8ecf4", muted: "#a5b0c5" };
-const ACCENT = "#f5c451";
-const LEVEL_COLOUR: Record<Level, string> = {
-  high: "#f2b84b",
-  mid: "#5aa9e6",
-  low: "#e86a92",
-  "special-mid": "#6fd0b4",
-  throw: "#b69cf0",
-  unblockable: "#ff7a45",
+// The app's own palette (tailwind.config.ts): ink for the ground, accent for the brand, one colour per level.
+const palette = config.theme?.extend?.colors as {
+  ink: Record<"950" | "850" | "700" | "300" | "100", string>;
+  accent: { DEFAULT: string };
+  level: Record<Level, string>;
 };
+const INK = { ground: palette.ink["950"], panel: palette.ink["850"], line: palette.ink["700"], text: palette.ink["100"], muted: palette.ink["300"] };
+const ACCENT = palette.accent.DEFAULT;
+const LEVEL_COLOUR = palette.level;
 
 // satori reads ttf, otf and woff (not woff2): the woff files of the font the app ships.
 const FONT_DIR = path.join(process.cwd(), "node_modules", "@fontsource", "jetbrains-mono", "files");

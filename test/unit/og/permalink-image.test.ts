@@ -1,8 +1,7 @@
-import { afterAll, beforeAll, describe, expect, test } from "vitest";
-import { closeDb } from "@/server/db";
+import { describe, expect, test } from "vitest";
 import { createPermalink, loadSharedView } from "@/server/db/queries/permalinks";
 import { permalinkImageForSlug, renderPermalinkImage, summarizeSharedView } from "@/server/og";
-import { makePeople, stringView, tarrow } from "../permalinks/fixtures";
+import { playerInTeam, stringView } from "../permalinks/fixtures";
 
 // PNG layout (W3C PNG spec, section 5): an 8-byte signature, then the IHDR chunk with width and height at bytes 16 and 20.
 const PNG_SIGNATURE = [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a];
@@ -11,20 +10,10 @@ async function png(res: Response) {
   return { bytes, signature: [...bytes.subarray(0, 8)], width: bytes.readUInt32BE(16), height: bytes.readUInt32BE(20) };
 }
 
-const people = makePeople();
-let player: string, team: number, characterId: number;
-beforeAll(async () => {
-  player = await people.user("Player Ivo");
-  team = await people.team({ [player]: "player" });
-  characterId = (await tarrow()).character.id;
-});
-afterAll(async () => {
-  await people.cleanup();
-  await closeDb();
-});
+const ctx = playerInTeam("Player Ivo");
 
 const share = (visibility: "team" | "link", view = stringView()) =>
-  createPermalink({ teamId: team, createdBy: player, characterId, editionSlug: "1-1", view, visibility });
+  createPermalink({ teamId: ctx.team, createdBy: ctx.player, characterId: ctx.characterId, editionSlug: "1-1", view, visibility });
 
 describe("summarizeSharedView", () => {
   test("outlines a public link's path from the engine: input, levels, on block and its class", async () => {
@@ -44,7 +33,7 @@ describe("summarizeSharedView", () => {
 
   test("a team-only link gets the generic card, even for a member", async () => {
     const made = await share("team");
-    const loaded = await loadSharedView({ slug: made.slug, viewerId: player });
+    const loaded = await loadSharedView({ slug: made.slug, viewerId: ctx.player });
     if (loaded.status !== "ok") throw new Error(loaded.status);
     expect(summarizeSharedView(loaded.view)).toEqual({ kind: "private" });
   });

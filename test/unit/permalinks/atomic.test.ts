@@ -1,10 +1,10 @@
-import { afterAll, beforeAll, expect, test, vi } from "vitest";
+import { expect, test, vi } from "vitest";
 import { eq } from "drizzle-orm";
-import { getDb, closeDb } from "@/server/db";
+import { getDb } from "@/server/db";
 import * as audit from "@/server/db/queries/audit";
 import { auditLog, permalinks } from "@/server/db/schema";
 import { createPermalink } from "@/server/db/queries/permalinks";
-import { makePeople, stringView, tarrow } from "./fixtures";
+import { playerInTeam, stringView } from "./fixtures";
 
 // The audit writer fails once, after the permalink's insert: the insert must not stay behind.
 vi.mock(import("@/server/db/queries/audit"), async (original) => {
@@ -12,21 +12,12 @@ vi.mock(import("@/server/db/queries/audit"), async (original) => {
   return { ...real, recordAudit: vi.fn(real.recordAudit) };
 });
 
-const people = makePeople();
-let player: string, team: number, characterId: number;
-beforeAll(async () => {
-  player = await people.user("Player Eve");
-  team = await people.team({ [player]: "player" });
-  characterId = (await tarrow()).character.id;
-});
-afterAll(async () => {
-  await people.cleanup();
-  await closeDb();
-});
+const ctx = playerInTeam("Player Eve");
 
 test("a permalink whose audit entry cannot be written is not written either", async () => {
   vi.mocked(audit.recordAudit).mockRejectedValueOnce(new Error("audit log unavailable"));
-  const args = { teamId: team, createdBy: player, characterId, editionSlug: "1-1", view: stringView(), visibility: "team" as const };
+  const { team } = ctx;
+  const args = { teamId: team, createdBy: ctx.player, characterId: ctx.characterId, editionSlug: "1-1", view: stringView(), visibility: "team" as const };
   await expect(createPermalink(args)).rejects.toThrow("audit log unavailable");
   expect(await getDb().select().from(permalinks).where(eq(permalinks.teamId, team))).toEqual([]);
 

@@ -1,6 +1,7 @@
 import { randomBytes } from "node:crypto";
+import { afterAll, beforeAll } from "vitest";
 import { inArray } from "drizzle-orm";
-import { getDb } from "@/server/db";
+import { closeDb, getDb } from "@/server/db";
 import { getCharacterBySlug, getGameBySlug } from "@/server/db/queries/games";
 import { memberships, teams, users, type Role } from "@/server/db/schema";
 import type { PermalinkView } from "@/lib/permalink";
@@ -50,3 +51,19 @@ export const stringView = (over: Partial<PermalinkView> = {}): PermalinkView => 
   ...over,
 });
 
+
+/** One player in one throwaway team, made before the file's tests and removed after them. */
+export function playerInTeam(name: string) {
+  const people = makePeople();
+  const ctx = { player: "", team: 0, characterId: 0 };
+  beforeAll(async () => {
+    ctx.player = await people.user(name);
+    ctx.team = await people.team({ [ctx.player]: "player" });
+    ctx.characterId = (await tarrow()).character.id;
+  });
+  afterAll(async () => {
+    await people.cleanup();
+    await closeDb();
+  });
+  return ctx;
+}
