@@ -8,6 +8,7 @@ import { useExplorerStore } from "@/components/providers/explorer-store-provider
 import type { AppError } from "@/lib/errors";
 import { computePaths, graphUrl, pathKey, reachableSubgraph, type GraphResponse } from "@/lib/explorer";
 import { fetcher } from "@/lib/fetcher";
+import { explorerHref, explorerStateToView } from "@/lib/permalink";
 import { finishTimingAfterPaint, startTiming } from "@/lib/timing";
 import { FrameTimeline } from "./frame-timeline";
 import { Legend } from "./legend";
@@ -15,8 +16,21 @@ import { OptionsBar } from "./options-bar";
 import { PathCard } from "./path-card";
 import { PathsTable } from "./paths-table";
 import { PunishPanel } from "./punish-panel";
+import { ShareButton, type ShareTeam } from "./share-dialog";
 
-export function ExplorerView({ characterId, root }: { characterId: number; root: string }) {
+export interface ExplorerViewProps {
+  characterId: number;
+  root: string;
+  /**
+   * A permalink's read-only view: the Edition is fixed, the address is left
+   * alone, and a link opens the same view in the live Explorer.
+   */
+  pinned?: boolean;
+  /** The teams the signed-in user may share with; without it there is no Share button. */
+  share?: { teams: ShareTeam[] };
+}
+
+export function ExplorerView({ characterId, root, pinned = false, share }: ExplorerViewProps) {
   const edition = useExplorerStore((s) => s.edition);
   const { data, error, isLoading, mutate } = useSWR<GraphResponse, AppError>(graphUrl(characterId, edition), fetcher, {
     keepPreviousData: true,
@@ -48,6 +62,7 @@ export function ExplorerView({ characterId, root }: { characterId: number; root:
   // Written after the paint, once per burst of changes: the router re-renders on every
   // replaceState.
   useEffect(() => {
+    if (pinned) return;
     const timer = window.setTimeout(() => {
       const params = new URLSearchParams(window.location.search);
       const set = (k: string, v: string | null) => (v === null ? params.delete(k) : params.set(k, v));
@@ -61,7 +76,7 @@ export function ExplorerView({ characterId, root }: { characterId: number; root:
       if (next !== `${window.location.pathname}${window.location.search}`) window.history.replaceState(null, "", next);
     }, 200);
     return () => window.clearTimeout(timer);
-  }, [edition, selectedKey, options, data, opponent]);
+  }, [pinned, edition, selectedKey, options, data, opponent]);
 
   if (error && !data) {
     return (
@@ -99,7 +114,27 @@ export function ExplorerView({ characterId, root }: { characterId: number; root:
 
   return (
     <div className="space-y-3">
-      <OptionsBar editions={data.editions} edition={edition} pathCount={computed.paths.length} truncated={computed.truncated} />
+      <OptionsBar
+        editions={data.editions}
+        edition={edition}
+        pathCount={computed.paths.length}
+        truncated={computed.truncated}
+        pinnedTo={
+          pinned
+            ? {
+                editionName: data.edition.name,
+                liveHref: explorerHref({
+                  gameSlug: data.game.slug,
+                  characterSlug: data.character.slug,
+                  edition,
+                  view: explorerStateToView({ selected: selectedKey, options, opponent }, root),
+                  gameFastest: data.game.fastest,
+                }),
+              }
+            : undefined
+        }
+        actions={share ? <ShareButton teams={share.teams} characterId={characterId} root={root} /> : null}
+      />
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="min-w-0 space-y-3">
           <div className="h-[55vh] min-h-80 overflow-hidden rounded-lg border border-ink-800 bg-ink-950 [contain:strict] lg:h-[68vh]" data-testid="graph">

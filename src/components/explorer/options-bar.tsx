@@ -1,5 +1,7 @@
 "use client";
 
+import Link from "next/link";
+import type { ReactNode } from "react";
 import { useExplorerStore } from "@/components/providers/explorer-store-provider";
 import type { EditionRef } from "@/lib/explorer";
 import { startTiming } from "@/lib/timing";
@@ -43,11 +45,17 @@ export function OptionsBar({
   edition,
   pathCount,
   truncated,
+  pinnedTo,
+  actions,
 }: {
   editions: EditionRef[];
   edition: string;
   pathCount: number;
   truncated: boolean;
+  /** A permalink's view: the Edition is shown, not switched, and the live Explorer is a link away. */
+  pinnedTo?: { editionName: string; liveHref: string };
+  /** Buttons at the end of the bar (Share). */
+  actions?: ReactNode;
 }) {
   const setEdition = useExplorerStore((s) => s.setEdition);
   const options = useExplorerStore((s) => s.options);
@@ -58,23 +66,30 @@ export function OptionsBar({
   };
   return (
     <form className="flex flex-wrap items-center gap-x-5 gap-y-2 text-sm" onSubmit={(e) => e.preventDefault()} aria-label="Explorer options">
-      <label className="flex items-center gap-2">
-        <span className="text-ink-400">Edition</span>
-        <select
-          value={edition}
-          onChange={(e) => {
-            startTiming("recompute");
-            setEdition(e.target.value);
-          }}
-          className="rounded border border-ink-700 bg-ink-900 px-1.5 py-0.5 text-ink-100"
-        >
-          {editions.map((e) => (
-            <option key={e.id} value={e.slug}>
-              {e.name}
-            </option>
-          ))}
-        </select>
-      </label>
+      {pinnedTo ? (
+        <span className="flex items-center gap-2" data-testid="pinned-edition">
+          <span className="text-ink-400">Pinned to edition</span>
+          <span className="font-mono text-ink-100">{pinnedTo.editionName}</span>
+        </span>
+      ) : (
+        <label className="flex items-center gap-2">
+          <span className="text-ink-400">Edition</span>
+          <select
+            value={edition}
+            onChange={(e) => {
+              startTiming("recompute");
+              setEdition(e.target.value);
+            }}
+            className="rounded border border-ink-700 bg-ink-900 px-1.5 py-0.5 text-ink-100"
+          >
+            {editions.map((e) => (
+              <option key={e.id} value={e.slug}>
+                {e.name}
+              </option>
+            ))}
+          </select>
+        </label>
+      )}
       <NumberField label="Depth" value={options.maxDepth} min={1} max={16} onChange={(v) => setOption("maxDepth", v)} hint="Most hits on one path" />
       <NumberField
         label="Stance re-entries"
@@ -95,6 +110,12 @@ export function OptionsBar({
       <span className="text-ink-400" aria-live="polite">
         {pathCount} paths{truncated ? " (cut: too many to show)" : ""}
       </span>
+      {pinnedTo ? (
+        <Link href={pinnedTo.liveHref} className="text-accent underline underline-offset-2 focus-visible:outline-2 focus-visible:outline-accent">
+          Open in the live Explorer
+        </Link>
+      ) : null}
+      {actions ? <span className="ml-auto flex items-center gap-2">{actions}</span> : null}
     </form>
   );
 }

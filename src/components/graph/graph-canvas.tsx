@@ -1,19 +1,14 @@
 "use client";
 
 import "@xyflow/react/dist/style.css";
-import { Background, Controls, MarkerType, MiniMap, ReactFlow, type Edge } from "@xyflow/react";
-import { useEffect, useMemo, useState, type KeyboardEvent } from "react";
+import { Background, Controls, MiniMap, ReactFlow, ViewportPortal } from "@xyflow/react";
+import { useLayoutEffect, useMemo, useState, type KeyboardEvent } from "react";
 import { ExportButton } from "./export-button";
 import type { BlockRules } from "@/components/ui/block-class";
 import type { MoveGraph, PathResult } from "@/lib/engine";
 import { layoutGraph } from "@/lib/layout-graph";
-import { MOVE_SIZE, RulesContext, STANCE_SIZE, createRulesStore, nodeTypes, type MoveFlowNode, type StanceFlowNode } from "./nodes";
-
-export const EDGE_STYLE = {
-  follow: { stroke: "#7d8aa3", strokeWidth: 1.5 },
-  cancel: { stroke: "#f5c451", strokeWidth: 1.5, strokeDasharray: "6 4" },
-  enter: { stroke: "#6fd0b4", strokeWidth: 1.5, strokeDasharray: "1 4", strokeLinecap: "round" as const },
-};
+import { ArrowDefs, edgeTypes, type MoveFlowEdge } from "./edges";
+import { CanvasContext, MOVE_SIZE, STANCE_SIZE, createCanvasStore, nodeTypes, type CanvasMarks, type MoveFlowNode, type StanceFlowNode } from "./nodes";
 
 /** The frames a cancel saves over stopping at the hit it ends, when both are numbers. */
 export function cancelSaves(graph: MoveGraph, edge: MoveGraph["edges"][number]): number | null {
@@ -54,9 +49,6 @@ export function GraphCanvas({
     return new Map(placed.map((p) => [p.id, p]));
   }, [graph]);
 
-  const [rulesStore] = useState(() => createRulesStore(rules));
-  useEffect(() => rulesStore.setState(rules, true), [rulesStore, rules]);
-
   const [focused, setFocused] = useState<string | null>(null);
   const current = focused ?? selected?.nodes[selected.nodes.length - 1] ?? graph.nodes[0]?.id ?? null;
   const onKeyDown = (event: KeyboardEvent<HTMLDivElement>) => {
@@ -77,76 +69,49 @@ export function GraphCanvas({
     }
   };
 
-  const onPathNodes = useMemo(() => new Set(selected?.nodes ?? []), [selected]);
-  const onPathEdges = useMemo(() => new Set(selected?.edges ?? []), [selected]);
-  const endNode = selected ? selected.nodes[selected.nodes.length - 1] : undefined;
+  // The selection and the rules reach nodes and edges through the canvas store; the node and
+  // edge objects below depend on the graph alone, so React Flow never re-measures on a click.
+  const marks = useMemo(
+    (): CanvasMarks => ({
+      fastest: rules.fastest,
+      launchAt: rules.launchAt,
+      pathNodes: new Set(selected?.nodes ?? []),
+      pathEdges: new Set(selected?.edges ?? []),
+      end: selected ? (selected.nodes[selected.nodes.length - 1] ?? null) : null,
+      focus: current,
+    }),
+    [rules.fastest, rules.launchAt, selected, current],
+  );
+  const [canvasStore] = useState(() => createCanvasStore(marks));
+  useLayoutEffect(() => canvasStore.setState(marks, true), [canvasStore, marks]);
 
-  // Base objects keep their identity across selections, so React Flow re-renders only the
-  // few nodes and edges whose marks change, not all of them.
-  const baseNodes = useMemo(
+  const nodes = useMemo(
     () =>
       graph.nodes.map((n): MoveFlowNode | StanceFlowNode => {
         const p = layout.get(n.id)!;
-        const marks = { onPath: false, isEnd: false, hasFocus: false };
         const common = { id: n.id, position: { x: p.x, y: p.y }, width: p.width, height: p.height, connectable: false, draggable: false };
         return n.kind === "move"
-          ? { ...common, type: "move", data: { move: n, ...marks }, ariaLabel: `${n.input}, ${n.level}` }
-          : { ...common, type: "stance", data: { stance: n, ...marks }, ariaLabel: `stance ${n.name}` };
+          ? { ...common, type: "move", data: { move: n }, ariaLabel: `${n.input}, ${n.level}` }
+          : { ...common, type: "stance", data: { stance: n }, ariaLabel: `stance ${n.name}` };
       }),
     [graph, layout],
   );
-  const nodes = useMemo(
-    () =>
-      baseNodes.map((n) => {
-        const marks = { onPath: onPathNodes.has(n.id), isEnd: n.id === endNode, hasFocus: n.id === current };
-        if (!marks.onPath && !marks.isEnd && !marks.hasFocus) return n;
-        return { ...n, data: { ...n.data, ...marks } } as MoveFlowNode | StanceFlowNode;
-      }),
-    [baseNodes, onPathNodes, endNode, current],
-  );
 
-  const baseEdges = useMemo(
-    () =>
-      graph.edges.map((e): Edge => {
-        const base = EDGE_STYLE[e.kind];
-        const saves = cancelSaves(graph, e);
-        return {
-          id: e.id,
-          source: e.from,
-          target: e.to,
-          type: e.kind === "follow" ? "default" : "smoothstep",
-          style: base,
-          markerEnd: { type: MarkerType.ArrowClosed, color: base.stroke, width: 16, height: 16 },
-          // Follow-ups need no label (the next node shows its whole input); a cancel's says what it saves.
-          label: e.kind === "cancel" ? `${e.input}${saves === null ? "" : ` · ${saves >= 0 ? "saves" : "costs"} ${Math.abs(saves)}f`}` : e.kind === "enter" ? e.input : undefined,
-          labelStyle: { fill: "#cfd6e4", fontFamily: '"JetBrains Mono", monospace', fontSize: 11 },
-          labelBgStyle: { fill: "#11141b" },
-          labelBgPadding: [4, 2],
-          focusable: false,
-          zIndex: 0,
-        };
-      }),
-    [graph],
-  );
   const edges = useMemo(
     () =>
-      baseEdges.map((e) =>
-        onPathEdges.has(e.id)
-          ? {
-              ...e,
-              style: { ...e.style, stroke: "#ffd873", strokeWidth: 3 },
-              markerEnd: { type: MarkerType.ArrowClosed, color: "#ffd873", width: 16, height: 16 },
-              // Same zIndex as the rest: React Flow draws each zIndex in its own layer, so raising
-              // an edge would remount it (and measure its label again) on every selection.
-            }
-          : e,
-      ),
-    [baseEdges, onPathEdges],
+      graph.edges.map((e): MoveFlowEdge => {
+        const saves = cancelSaves(graph, e);
+        // Follow-ups need no label (the next node shows its whole input); a cancel's says what it saves.
+        const label =
+          e.kind === "cancel" ? `${e.input}${saves === null ? "" : ` · ${saves >= 0 ? "saves" : "costs"} ${Math.abs(saves)}f`}` : e.kind === "enter" ? e.input : null;
+        return { id: e.id, source: e.from, target: e.to, type: "move", data: { kind: e.kind, label }, focusable: false };
+      }),
+    [graph],
   );
 
   const focusedNode = graph.nodes.find((n) => n.id === current);
   return (
-    <RulesContext value={rulesStore}>
+    <CanvasContext value={canvasStore}>
       <div
         className="h-full w-full outline-none focus-visible:ring-2 focus-visible:ring-accent"
         tabIndex={0}
@@ -162,6 +127,7 @@ export function GraphCanvas({
           nodes={nodes}
           edges={edges}
           nodeTypes={nodeTypes}
+          edgeTypes={edgeTypes}
           colorMode="dark"
           fitView
           fitViewOptions={{ padding: 0.15 }}
@@ -172,13 +138,17 @@ export function GraphCanvas({
           onNodeClick={(_, node) => onSelectNode(node.id)}
           proOptions={{ hideAttribution: false }}
         >
+          {/* Inside the viewport, so the PNG export carries the arrowheads too. */}
+          <ViewportPortal>
+            <ArrowDefs />
+          </ViewportPortal>
           <Background color="#283040" gap={24} />
           <Controls showInteractive={false} position="bottom-left" />
           <ExportButton fileName={exportName} />
           {graph.nodes.length > 24 && <MiniMap pannable zoomable position="bottom-right" nodeColor="#3a4458" maskColor="rgba(11,13,18,0.7)" />}
         </ReactFlow>
       </div>
-    </RulesContext>
+    </CanvasContext>
   );
 }
 

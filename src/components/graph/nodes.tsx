@@ -12,45 +12,54 @@ export const MOVE_SIZE = { width: 176, height: 64 };
 export const STANCE_SIZE = { width: 168, height: 44 };
 
 // Type aliases, not interfaces: React Flow's node data must be indexable.
-type Marks = {
-  onPath: boolean;
-  isEnd: boolean;
-  /** The keyboard's place in the graph. */
-  hasFocus: boolean;
-};
-
-export type MoveFlowNode = Node<{ move: EngineMove } & Marks, "move">;
+export type MoveFlowNode = Node<{ move: EngineMove }, "move">;
+export type StanceFlowNode = Node<{ stance: EngineStance }, "stance">;
 
 /**
- * The block rules the nodes are drawn with, in a store of their own rather
- * than in each node's data: when the opponent's fastest attack changes, only
- * the nodes whose block class changes re-render, not all of them.
+ * What the canvas draws on top of the graph: the block rules and the selected
+ * path. It lives in a small store of its own, not in the nodes' and edges'
+ * data, so React Flow's node and edge objects never change when the user
+ * selects a path or changes a rule: only the few nodes and edges whose look
+ * changes re-render, and React Flow re-measures nothing.
  */
-export type RulesStore = StoreApi<BlockRules>;
-export const createRulesStore = (rules: BlockRules): RulesStore => createStore<BlockRules>()(() => rules);
-export const RulesContext = createContext<RulesStore | null>(null);
+export type CanvasMarks = BlockRules & {
+  pathNodes: ReadonlySet<string>;
+  pathEdges: ReadonlySet<string>;
+  end: string | null;
+  /** The keyboard's place in the graph. */
+  focus: string | null;
+};
+export type CanvasStore = StoreApi<CanvasMarks>;
+export const createCanvasStore = (marks: CanvasMarks): CanvasStore => createStore<CanvasMarks>()(() => marks);
+export const CanvasContext = createContext<CanvasStore | null>(null);
 
-function useBlockClass(move: EngineMove) {
-  const store = useContext(RulesContext);
-  if (!store) throw new Error("Move nodes need a RulesContext provider");
-  return useStore(store, (rules) => classifyBlock(move.onBlock, rules));
+export function useCanvas<T>(selector: (marks: CanvasMarks) => T): T {
+  const store = useContext(CanvasContext);
+  if (!store) throw new Error("Graph nodes and edges need a CanvasContext provider");
+  return useStore(store, selector);
 }
-export type StanceFlowNode = Node<{ stance: EngineStance } & Marks, "stance">;
 
-const ring = (m: Marks) =>
-  `${m.isEnd ? "border-accent ring-2 ring-accent/50" : m.onPath ? "border-accent-muted" : "border-ink-700"} ${
-    m.hasFocus ? "outline-2 outline-offset-2 outline-dashed outline-ink-200" : ""
+const ON_PATH = 1;
+const IS_END = 2;
+const HAS_FOCUS = 4;
+/** One number per node, so a node re-renders only when its own marks change. */
+const marksOf = (m: CanvasMarks, id: string) => (m.pathNodes.has(id) ? ON_PATH : 0) | (m.end === id ? IS_END : 0) | (m.focus === id ? HAS_FOCUS : 0);
+
+const ring = (bits: number) =>
+  `${bits & IS_END ? "border-accent ring-2 ring-accent/50" : bits & ON_PATH ? "border-accent-muted" : "border-ink-700"} ${
+    bits & HAS_FOCUS ? "outline-2 outline-offset-2 outline-dashed outline-ink-200" : ""
   }`;
 
 function MoveNodeView({ data }: NodeProps<MoveFlowNode>) {
   const { move } = data;
-  const cls = useBlockClass(move);
+  const bits = useCanvas((m) => marksOf(m, move.id));
+  const cls = useCanvas((rules) => classifyBlock(move.onBlock, rules));
   return (
     <div
       data-node-id={move.id}
-      data-on-path={data.onPath || undefined}
-      data-focus={data.hasFocus || undefined}
-      className={`flex h-full w-full flex-col justify-between rounded-md border bg-ink-900 px-2 py-1.5 text-left ${ring(data)}`}
+      data-on-path={bits & ON_PATH ? true : undefined}
+      data-focus={bits & HAS_FOCUS ? true : undefined}
+      className={`flex h-full w-full flex-col justify-between rounded-md border bg-ink-900 px-2 py-1.5 text-left ${ring(bits)}`}
       title={move.name}
     >
       <Handle type="target" position={Position.Left} className="!h-2 !w-2 !border-0 !bg-ink-600" />
@@ -73,12 +82,13 @@ function MoveNodeView({ data }: NodeProps<MoveFlowNode>) {
 }
 
 function StanceNodeView({ data }: NodeProps<StanceFlowNode>) {
+  const bits = useCanvas((m) => marksOf(m, data.stance.id));
   return (
     <div
       data-node-id={data.stance.id}
-      data-on-path={data.onPath || undefined}
-      data-focus={data.hasFocus || undefined}
-      className={`flex h-full w-full items-center justify-center rounded-full border-2 border-dashed bg-ink-850 px-3 text-sm ${ring(data)}`}
+      data-on-path={bits & ON_PATH ? true : undefined}
+      data-focus={bits & HAS_FOCUS ? true : undefined}
+      className={`flex h-full w-full items-center justify-center rounded-full border-2 border-dashed bg-ink-850 px-3 text-sm ${ring(bits)}`}
     >
       <Handle type="target" position={Position.Left} className="!h-2 !w-2 !border-0 !bg-ink-600" />
       <span className="text-[10px] uppercase tracking-wider text-ink-400">stance&nbsp;</span>

@@ -1,0 +1,310 @@
+import "server-only";
+import { and, desc, eq, isNull } from "drizzle-orm";
+import type { GraphResponse } from "@/lib/explorer";
+import { AppError } from "@/lib/errors";
+import {
+  canRevoke,
+  permalinkPath,
+  permalinkViewSchema,
+  SLUG_PATTERN,
+  tracePath,
+  type PermalinkView,
+  type PermalinkVisibility,
+} from "@/lib/permalink";
+import { getRole } from "@/server/authz";
+import { newSlug } from "@/server/permalinks";
+import { getDb } from "../index";
+import { characters, editions, games, permalinks, users } from "../schema";
+import { recordAudit } from "./audit";
+import { getExplorerData } from "./explorer";
+import { getCharacterGraph } from "./moves";
+
+/** A permalink as its team sees it. */
+export interface PermalinkDto {
+  slug: string;
+  /** Where it opens: `/s/<slug>`. */
+  path: string;
+  teamId: number;
+  title: string;
+  visibility: PermalinkVisibility;
+  characterId: number;
+  edition: { id: number; slug: string; name: string };
+  view: PermalinkView;
+  createdBy: { id: string; name: string | null };
+  createdAt: string;
+  revokedAt: string | null;
+}
+
+/** One row of a team's list of permalinks. */
+export interface TeamPermalinkDto {
+  slug: string;
+  path: string;
+  title: string;
+  visibility: PermalinkVisibility;
+  edition: { slug: string; name: string };
+  createdBy: { id: string; name: string | null };
+  createdAt: string;
+  revoked: boolean;
+  revokedAt: string | null;
+}
+
+/** What `/s/[slug]` renders: the pinned Edition's data and the view, never the team's other data. */
+export interface SharedViewDto {
+  slug: string;
+  title: string;
+  visibility: PermalinkVisibility;
+  /** The creator's display name; null when they never gave one (their e-mail is not shown). */
+  creatorName: string | null;
+  createdAt: string;
+  game: { slug: string; name: string; fastest: number };
+  character: { id: number; slug: string; name: string };
+  characterId: number;
+  edition: { slug: string; name: string };
+  /** The Explorer's data for the pinned Edition, as GET /api/characters/[id]/graph answers it. */
+  data: GraphResponse;
+  view: PermalinkView;
+}
+
+export type SharedViewResult = { status: "ok"; view: SharedViewDto } | { status: "sign-in" } | { status: "unavailable" };
+
+/** A title says what the link shows at a glance: character, the path's input, the Edition. */
+const MAX_TITLE_INPUT = 120;
+export function permalinkTitle({ characterName, input, editionSlug }: { characterName: string; input: string; editionSlug: string }) {
+  const shown = input.length > MAX_TITLE_INPUT ? `${input.slice(0, MAX_TITLE_INPUT - 1)}…` : input;
+  return `${characterName} · ${shown} · edition ${editionSlug}`;
+}
+
+const rowColumns = {
+  id: permalinks.id,
+  slug: permalinks.slug,
+  teamId: permalinks.teamId,
+  title: permalinks.title,
+  visibility: permalinks.visibility,
+  characterId: permalinks.characterId,
+  view: permalinks.view,
+  createdBy: permalinks.createdBy,
+  creatorName: users.name,
+  createdAt: permalinks.createdAt,
+  revokedAt: permalinks.revokedAt,
+  edition: { id: editions.id, slug: editions.slug, name: editions.name },
+};
+
+type Row = {
+  slug: string;
+  teamId: number;
+  title: string;
+  visibility: PermalinkVisibility;
+  characterId: number;
+  view: Record<string, unknown>;
+  createdBy: string;
+  creatorName: string | null;
+  createdAt: Date;
+  revokedAt: Date | null;
+  edition: { id: number; slug: string; name: string };
+};
+
+function toDto(row: Row, view: PermalinkView): PermalinkDto {
+  return {
+    slug: row.slug,
+    path: permalinkPath(row.slug),
+    teamId: row.teamId,
+    title: row.title,
+    visibility: row.visibility,
+    characterId: row.characterId,
+    edition: row.edition,
+    view,
+    createdBy: { id: row.createdBy, name: row.creatorName },
+    createdAt: row.createdAt.toISOString(),
+    revokedAt: row.revokedAt?.toISOString() ?? null,
+  };
+}
+
+/** Permalinks with their Edition and their creator's name. */
+const selectRows = () =>
+  getDb()
+    .select(rowColumns)
+    .from(permalinks)
+    .innerJoin(editions, eq(editions.id, permalinks.editionId))
+    .leftJoin(users, eq(users.id, permalinks.createdBy));
+
+async function findRow(slug: string) {
+  if (!SLUG_PATTERN.test(slug)) return null;
+  const [row] = await selectRows().where(eq(permalinks.slug, slug)).limit(1);
+  if (!row) return null;
+  // Stored views went through the schema on the way in; one that no longer fits is treated as gone.
+  const view = permalinkViewSchema.safeParse(row.view);
+  if (!view.success) {
+    console.error(`[permalinks] stored view of ${slug} no longer fits the schema`, view.error.issues);
+    return null;
+  }
+  return { row, view: view.data };
+}
+
+/**
+ * Makes a permalink of a view, pinned to an Edition. The character must be in
+ * the public demo game or in a game the team owns; the root and the path must
+ * exist in that Edition. The row and its audit entry are written together.
+ * The caller has checked that `createdBy` may share in the team (player or higher).
+ */
+export async function createPermalink({
+  teamId,
+  createdBy,
+  characterId,
+  editionSlug,
+  view,
+  visibility,
+}: {
+  teamId: number;
+  createdBy: string;
+  characterId: number;
+  editionSlug: string;
+  view: PermalinkView;
+  visibility: PermalinkVisibility;
+}): Promise<PermalinkDto> {
+  const checked = permalinkViewSchema.parse(view);
+  const db = getDb();
+  const [found] = await db
+    .select({ characterName: characters.name, gameId: games.id, gameName: games.name, gameTeamId: games.teamId })
+    .from(characters)
+    .innerJoin(games, eq(games.id, characters.gameId))
+    .where(eq(characters.id, characterId))
+    .limit(1);
+  // Another team's game answers like a character that does not exist.
+  if (!found || (found.gameTeamId !== null && found.gameTeamId !== teamId)) {
+    throw new AppError("not_found", `There is no character ${characterId}.`);
+  }
+  const [edition] = await db
+    .select({ id: editions.id, slug: editions.slug, name: editions.name })
+    .from(editions)
+    .where(and(eq(editions.gameId, found.gameId), eq(editions.slug, editionSlug)))
+    .limit(1);
+  if (!edition) throw new AppError("not_found", `${found.gameName} has no Edition "${editionSlug}".`);
+
+  const { graph } = await getCharacterGraph({ characterId, editionId: edition.id });
+  const traced = tracePath(graph, checked);
+  if (!traced.ok) throw new AppError("bad_request", `${traced.error} (${found.characterName}, ${edition.name})`);
+  if (checked.opponent !== null) {
+    const [opponent] = await db
+      .select({ id: characters.id })
+      .from(characters)
+      .where(and(eq(characters.id, checked.opponent), eq(characters.gameId, found.gameId)))
+      .limit(1);
+    if (!opponent) throw new AppError("bad_request", `The opponent ${checked.opponent} is not in ${found.gameName}.`);
+  }
+
+  const slug = newSlug();
+  const title = permalinkTitle({ characterName: found.characterName, input: traced.input, editionSlug: edition.slug });
+  await db.transaction(async (tx) => {
+    await tx.insert(permalinks).values({
+      slug,
+      teamId,
+      createdBy,
+      visibility,
+      editionId: edition.id,
+      characterId,
+      view: checked,
+      title,
+    });
+    await recordAudit(tx, {
+      teamId,
+      actorId: createdBy,
+      action: "permalink.created",
+      detail: { slug, title, visibility, characterId, edition: edition.slug },
+    });
+  });
+  const created = await findRow(slug);
+  if (!created) throw new Error(`permalink ${slug} vanished after its insert`);
+  return toDto(created.row, created.view);
+}
+
+/** A permalink by its slug, revoked or not; null for a slug that is not one. */
+export async function getPermalinkBySlug({ slug }: { slug: string }): Promise<PermalinkDto | null> {
+  const found = await findRow(slug);
+  return found ? toDto(found.row, found.view) : null;
+}
+
+/** A team's permalinks with who made them, newest first; revoked ones stay listed, marked. */
+export async function listTeamPermalinks({ teamId }: { teamId: number }): Promise<TeamPermalinkDto[]> {
+  const rows = await selectRows().where(eq(permalinks.teamId, teamId)).orderBy(desc(permalinks.createdAt), desc(permalinks.id));
+  return rows.map((r) => ({
+    slug: r.slug,
+    path: permalinkPath(r.slug),
+    title: r.title,
+    visibility: r.visibility,
+    edition: { slug: r.edition.slug, name: r.edition.name },
+    createdBy: { id: r.createdBy, name: r.creatorName },
+    createdAt: r.createdAt.toISOString(),
+    revoked: r.revokedAt !== null,
+    revokedAt: r.revokedAt?.toISOString() ?? null,
+  }));
+}
+
+/**
+ * Revokes a permalink: its creator, or a coach or owner of its team, may.
+ * Someone outside the team gets the answer an unknown slug gets. Revoking a
+ * revoked link changes nothing and records nothing.
+ */
+export async function revokePermalink({ slug, actorId }: { slug: string; actorId: string }): Promise<PermalinkDto> {
+  const found = await findRow(slug);
+  if (!found) throw new AppError("not_found", "There is no such permalink.");
+  const { row } = found;
+  const role = await getRole({ teamId: row.teamId, userId: actorId });
+  if (role === null) throw new AppError("not_found", "There is no such permalink.");
+  if (!canRevoke({ role, isCreator: row.createdBy === actorId })) {
+    throw new AppError("forbidden", "Only the person who made this link, or a coach or owner of the team, can revoke it.");
+  }
+  if (row.revokedAt !== null) return toDto(row, found.view);
+
+  await getDb().transaction(async (tx) => {
+    const result = await tx
+      .update(permalinks)
+      .set({ revokedAt: new Date(), revokedBy: actorId })
+      .where(and(eq(permalinks.slug, slug), isNull(permalinks.revokedAt)));
+    // Two revokes at once: the one that changed nothing records nothing.
+    if (affectedRows(result) === 0) return;
+    await recordAudit(tx, { teamId: row.teamId, actorId, action: "permalink.revoked", detail: { slug, title: row.title } });
+  });
+  const after = await findRow(slug);
+  if (!after) throw new Error(`permalink ${slug} vanished while being revoked`);
+  return toDto(after.row, after.view);
+}
+
+/**
+ * What `/s/[slug]` may show to this viewer. Unknown, revoked, and team-only
+ * links seen from outside the team all answer "unavailable", so the answer
+ * tells nothing about which it is; a team-only link asks a signed-out viewer
+ * to sign in.
+ */
+export async function loadSharedView({ slug, viewerId }: { slug: string; viewerId: string | null }): Promise<SharedViewResult> {
+  const found = await findRow(slug);
+  if (!found || found.row.revokedAt !== null) return { status: "unavailable" };
+  const { row, view } = found;
+  if (row.visibility === "team") {
+    if (viewerId === null) return { status: "sign-in" };
+    if ((await getRole({ teamId: row.teamId, userId: viewerId })) === null) return { status: "unavailable" };
+  }
+  const explorer = await getExplorerData({ characterId: row.characterId, edition: row.edition.slug });
+  if (!explorer.ok) return { status: "unavailable" };
+  const { data } = explorer;
+  return {
+    status: "ok",
+    view: {
+      slug: row.slug,
+      title: row.title,
+      visibility: row.visibility,
+      creatorName: row.creatorName,
+      createdAt: row.createdAt.toISOString(),
+      game: { slug: data.game.slug, name: data.game.name, fastest: data.game.fastest },
+      character: data.character,
+      characterId: row.characterId,
+      edition: { slug: data.edition.slug, name: data.edition.name },
+      data,
+      view,
+    },
+  };
+}
+
+function affectedRows(result: unknown): number {
+  const header = Array.isArray(result) ? (result[0] as { affectedRows?: number }) : (result as { affectedRows?: number });
+  return header?.affectedRows ?? 0;
+}

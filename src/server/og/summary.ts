@@ -1,0 +1,34 @@
+import "server-only";
+import type { Level } from "@/lib/engine";
+import { computePaths, pathKey, reachableSubgraph } from "@/lib/explorer";
+import { BLOCK_CLASS_WORD, formatOutcome } from "@/lib/format";
+import type { SharedViewDto } from "@/server/db/queries/permalinks";
+
+/** What a link preview shows: the path's outline, or nothing of it for a link that is not public. */
+export type PermalinkImageSummary =
+  | { kind: "path"; title: string; input: string; levels: Level[]; onBlock: string; blockClass: string }
+  | { kind: "private" };
+
+/**
+ * The preview of a shared view: the selected path (the root alone when none
+ * is selected, or when the options no longer reach it), computed by the
+ * engine on the pinned Edition. Team-only links get the generic card, even
+ * when the caller could read them: previews are fetched by other services.
+ */
+export function summarizeSharedView(shared: SharedViewDto): PermalinkImageSummary {
+  if (shared.visibility !== "link") return { kind: "private" };
+  const { view, data } = shared;
+  const sub = reachableSubgraph(data.graph, view.root);
+  const launchAt = Math.max(data.game.launchAt, view.options.fastest);
+  const { paths } = computePaths(sub, view.root, { ...view.options, launchAt });
+  const path = paths.find((p) => pathKey(p) === (view.path ?? "")) ?? paths.find((p) => p.edges.length === 0);
+  if (!path) return { kind: "path", title: shared.title, input: view.root, levels: [], onBlock: "—", blockClass: "" };
+  return {
+    kind: "path",
+    title: shared.title,
+    input: path.input,
+    levels: [...path.levels],
+    onBlock: formatOutcome(path.onBlock),
+    blockClass: BLOCK_CLASS_WORD[path.blockClass],
+  };
+}

@@ -1,0 +1,80 @@
+import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { closeDb } from "@/server/db";
+import { handle } from "@/server/http";
+import { respondCreatePermalink, respondRevokePermalink, respondTeamPermalinks, type CurrentUser } from "@/server/permalink-routes";
+import { makePeople, stringView, tarrow } from "./fixtures";
+
+// The handlers as the route files will mount them: handle() around the respond functions.
+const people = makePeople();
+let player: string, viewer: string, outsider: string, team: number, characterId: number;
+beforeAll(async () => {
+  player = await people.user("Player Fay");
+  viewer = await people.user("Viewer Gil");
+  outsider = await people.user("Outsider Hal");
+  team = await people.team({ [player]: "player", [viewer]: "viewer" });
+  characterId = (await tarrow()).character.id;
+});
+afterAll(async () => {
+  await people.cleanup();
+  await closeDb();
+});
+
+const as = (id: string | null): CurrentUser => () => Promise.resolve(id === null ? null : { id });
+const post = (userId: string | null, body: unknown) =>
+  handle(() =>
+    respondCreatePermalink({
+      request: new Request("http://localhost/api/permalinks", {
+        method: "POST",
+        headers: { "content-type": "application/json" },
+        body: JSON.stringify(body),
+      }),
+      currentUser: as(userId),
+    }),
+  )();
+const body = () => ({ teamId: team, characterId, edition: "1-1", view: stringView(), visibility: "link" });
+const errorOf = async (res: Response) => ((await res.json()) as { error: { message: string } }).error.message;
+
+describe("POST /api/permalinks", () => {
+  test("a player shares: 201 with the link", async () => {
+    const res = await post(player, body());
+    expect(res.status).toBe(201);
+    const { permalink } = (await res.json()) as { permalink: { path: string; title: string } };
+    expect(permalink.path).toMatch(/^\/s\/[A-Za-z0-9_-]{24}$/);
+    expect(permalink.title).toBe("Tarrow · 2,2,3 · edition 1-1");
+  });
+
+  test("a bad body is 400 before anything else; signed out is 401; a viewer 403; an outsider 404", async () => {
+    const bad = await post(null, { ...body(), visibility: "everyone" });
+    expect(bad.status).toBe(400);
+    expect(await errorOf(bad)).toMatch(/visibility/);
+    const signedOut = await post(null, body());
+    expect(signedOut.status).toBe(401);
+    expect(await errorOf(signedOut)).toBe("Sign in to share.");
+    const viewing = await post(viewer, body());
+    expect(viewing.status).toBe(403);
+    expect(await errorOf(viewing)).toMatch(/player role or higher/);
+    expect((await post(outsider, body())).status).toBe(404);
+  });
+
+  test("an unknown root is a 400 that names it, never a 500", async () => {
+    const res = await post(player, { ...body(), view: stringView({ root: "9,9,9", path: null }) });
+    expect(res.status).toBe(400);
+    expect(await errorOf(res)).toMatch(/no move "9,9,9"/);
+  });
+});
+
+describe("revoking and listing", () => {
+  test("the creator revokes through DELETE; a malformed slug is 400; the list shows it revoked to members only", async () => {
+    const made = (await (await post(player, body())).json()) as { permalink: { slug: string } };
+    const { slug } = made.permalink;
+    expect((await handle(() => respondRevokePermalink({ params: { slug: "x" }, currentUser: as(player) }))()).status).toBe(400);
+    expect((await handle(() => respondRevokePermalink({ params: { slug }, currentUser: as(null) }))()).status).toBe(401);
+    const res = await handle(() => respondRevokePermalink({ params: { slug }, currentUser: as(player) }))();
+    expect(res.status).toBe(200);
+
+    const list = await handle(() => respondTeamPermalinks({ params: { teamId: String(team) }, currentUser: as(viewer) }))();
+    const { permalinks } = (await list.json()) as { permalinks: { slug: string; revoked: boolean }[] };
+    expect(permalinks.find((p) => p.slug === slug)?.revoked).toBe(true);
+    expect((await handle(() => respondTeamPermalinks({ params: { teamId: String(team) }, currentUser: as(outsider) }))()).status).toBe(404);
+  });
+});
