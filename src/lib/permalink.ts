@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { atLeast, type Role } from "./roles";
 import type { MoveGraph } from "@/lib/engine";
 import type { ExplorerOptions, ExplorerState } from "@/stores/explorer-store";
 
@@ -123,15 +124,13 @@ export function explorerHref({
   return `/games/${encodeURIComponent(gameSlug)}/${encodeURIComponent(characterSlug)}/explore/${encodeURIComponent(view.root)}?${params.toString()}`;
 }
 
-export type TeamRole = "owner" | "coach" | "player" | "viewer";
-
 /**
  * Who may revoke a permalink: its creator while still in the team, or a
  * coach or owner of the team. Someone outside the team never may.
  */
-export function canRevoke({ role, isCreator }: { role: TeamRole | null; isCreator: boolean }): boolean {
+export function canRevoke({ role, isCreator }: { role: Role | null; isCreator: boolean }): boolean {
   if (role === null) return false;
-  return isCreator || role === "coach" || role === "owner";
+  return isCreator || atLeast(role, "coach");
 }
 
 /**

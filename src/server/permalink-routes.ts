@@ -3,7 +3,7 @@ import { z } from "zod";
 import { AppError } from "@/lib/errors";
 import { createPermalinkSchema, SLUG_PATTERN } from "@/lib/permalink";
 import { requireRole } from "./authz";
-import { createPermalink, listTeamPermalinks, revokePermalink } from "./db/queries/permalinks";
+import { createPermalink, revokePermalink } from "./db/queries/permalinks";
 import { parseWith, readJson } from "./http";
 
 /**
@@ -43,14 +43,4 @@ export async function respondRevokePermalink({ params, currentUser }: { params: 
   const user = await signedIn(currentUser, "revoke a link");
   const permalink = await revokePermalink({ slug, actorId: user.id });
   return Response.json({ permalink });
-}
-
-const teamParamsSchema = z.object({ teamId: z.coerce.number().int().positive({ error: "A team is named by its number." }) });
-
-/** GET /api/teams/[teamId]/permalinks: any member reads the team's links. */
-export async function respondTeamPermalinks({ params, currentUser }: { params: unknown; currentUser: CurrentUser }): Promise<Response> {
-  const { teamId } = parseWith(teamParamsSchema, params, "path");
-  const user = await signedIn(currentUser, "see the team's links");
-  await requireRole({ teamId, userId: user.id, needed: "viewer" });
-  return Response.json({ permalinks: await listTeamPermalinks({ teamId }) });
 }

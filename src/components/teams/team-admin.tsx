@@ -7,7 +7,9 @@ import { AppError } from "@/lib/errors";
 import { fetcher, sendJson } from "@/lib/fetcher";
 import type { AuditEntryDto } from "@/server/db/queries/audit";
 import type { InviteDto } from "@/server/db/queries/invites";
+import type { TeamPermalinkDto } from "@/server/db/queries/permalinks";
 import type { MemberDto, TeamDto } from "@/server/db/queries/teams";
+import { canRevoke, VISIBILITY_TEXT } from "@/lib/permalink";
 import { atLeast, ROLES, type Role } from "@/lib/roles";
 import { RoleTag, ROLE_HINT } from "./role-tag";
 
@@ -63,7 +65,7 @@ export function TeamAdmin({
 }: {
   team: TeamDto;
   me: { id: string; role: Role };
-  initial: { members: MemberDto[]; invites: InviteDto[]; audit: AuditEntryDto[] };
+  initial: { members: MemberDto[]; invites: InviteDto[]; audit: AuditEntryDto[]; permalinks: TeamPermalinkDto[] };
 }) {
   const router = useRouter();
   const base = `/api/teams/${team.slug}`;
@@ -72,6 +74,7 @@ export function TeamAdmin({
   const members = useSWR<{ members: MemberDto[] }, AppError>(`${base}/members`, fetcher, { fallbackData: { members: initial.members } });
   const invites = useSWR<{ invites: InviteDto[] }, AppError>(manages ? `${base}/invites` : null, fetcher, { fallbackData: { invites: initial.invites } });
   const audit = useSWR<{ entries: AuditEntryDto[] }, AppError>(manages ? `${base}/audit` : null, fetcher, { fallbackData: { entries: initial.audit } });
+  const links = useSWR<{ permalinks: TeamPermalinkDto[] }, AppError>(`${base}/permalinks`, fetcher, { fallbackData: { permalinks: initial.permalinks } });
   const [error, setError] = useState<string | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
 
@@ -82,7 +85,7 @@ export function TeamAdmin({
     try {
       await change();
       if (done) setNotice(done);
-      await Promise.all([members.mutate(), manages ? invites.mutate() : null, manages ? audit.mutate() : null]);
+      await Promise.all([members.mutate(), links.mutate(), manages ? invites.mutate() : null, manages ? audit.mutate() : null]);
     } catch (err) {
       setError(err instanceof AppError ? err.message : "That did not work. Try again.");
     }
@@ -222,6 +225,37 @@ export function TeamAdmin({
           )}
         </Section>
       )}
+
+      <Section title="Shared links" id="team-links">
+        {(links.data?.permalinks ?? []).length === 0 ? (
+          <p className="text-sm text-ink-400">No links yet. Open a string in the Explorer and choose Share to make one.</p>
+        ) : (
+          <ul className="divide-y divide-ink-850 text-sm">
+            {(links.data?.permalinks ?? []).map((p) => (
+              <li key={p.slug} className="flex flex-wrap items-center justify-between gap-2 py-1.5" data-permalink={p.slug}>
+                <span className="min-w-0">
+                  {p.revoked ? (
+                    <span className="text-ink-400 line-through">{p.title}</span>
+                  ) : (
+                    <a href={p.path} className="text-ink-100 underline-offset-2 hover:underline">
+                      {p.title}
+                    </a>
+                  )}{" "}
+                  <span className="text-ink-400">
+                    · {VISIBILITY_TEXT[p.visibility].label} · by {p.createdBy.name ?? "a team member"}, {date(p.createdAt)}
+                    {p.revoked && " · revoked"}
+                  </span>
+                </span>
+                {!p.revoked && canRevoke({ role: me.role, isCreator: p.createdBy.id === me.id }) && (
+                  <button type="button" className={button} onClick={() => void run(() => sendJson("DELETE", `/api/permalinks/${p.slug}`), "The link was revoked.")}>
+                    Revoke
+                  </button>
+                )}
+              </li>
+            ))}
+          </ul>
+        )}
+      </Section>
 
       {manages && (
         <Section title="Team log" id="team-log">

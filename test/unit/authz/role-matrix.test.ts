@@ -5,7 +5,9 @@ import { AppError } from "@/lib/errors";
 import type { Role } from "@/lib/roles";
 import type { SessionUser } from "@/server/auth";
 import { closeDb, getDb } from "@/server/db";
+import { getCharacterBySlug, getGameBySlug } from "@/server/db/queries/games";
 import { createInvite } from "@/server/db/queries/invites";
+import { createPermalink } from "@/server/db/queries/permalinks";
 import { createTeam } from "@/server/db/queries/teams";
 import { characters, editions, games, memberships } from "@/server/db/schema";
 import { makeUser } from "../teams/fixtures";
@@ -52,8 +54,15 @@ async function world() {
   const [game] = await getDb().insert(games).values({ slug: `team-game-${people.owner.id.slice(0, 8)}`, name: "Team Game", teamId: team.id }).$returningId();
   await getDb().insert(editions).values({ gameId: game!.id, slug: "0-1", name: "0.1", releasedOn: new Date("2026-10-01") });
   const [character] = await getDb().insert(characters).values({ gameId: game!.id, slug: "sparring-dummy", name: "Sparring Dummy" }).$returningId();
-  return { people, team, other, pending, teamCharacterId: character!.id };
+  // A link the player shared from the public demo game.
+  const demo = await getGameBySlug({ slug: "vesper-circuit" });
+  const tarrow = demo && (await getCharacterBySlug({ gameId: demo.id, slug: "tarrow" }));
+  if (!tarrow) throw new Error("the demo data is not in the test database");
+  const shared = await createPermalink({ teamId: team.id, createdBy: people.player.id, characterId: tarrow.id, editionSlug: "1-1", view: VIEW, visibility: "team" });
+  return { people, team, other, pending, teamCharacterId: character!.id, demoCharacterId: tarrow.id, shared };
 }
+
+const VIEW = { root: "2", path: null, options: { maxDepth: 8, maxStanceVisits: 1, fastest: 10 }, opponent: null };
 type World = Awaited<ReturnType<typeof world>>;
 
 const userOf = (w: World, actor: Actor): SessionUser | null => (actor === "anonymous" ? null : { id: w.people[actor].id, email: w.people[actor].email, name: w.people[actor].name });
@@ -106,6 +115,18 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
     { what: "withdraw an invite", call: (w) => ({ params: { team: w.team.slug, invite: String(w.pending.invite.id) } }), expect: atLeastCoach(204) },
   ],
   "GET /api/teams/[team]/audit": [{ what: "read the team log", call: (w) => ({ params: { team: w.team.slug } }), expect: atLeastCoach(200) }],
+  "POST /api/permalinks": [
+    {
+      what: "share a view with the team",
+      call: (w) => ({ body: { teamId: w.team.id, characterId: w.demoCharacterId, edition: "1-1", view: VIEW, visibility: "link" } }),
+      expect: { anonymous: 401, viewer: 403, player: 201, coach: 201, owner: 201, outsider: 404 },
+    },
+  ],
+  "DELETE /api/permalinks/[slug]": [
+    // The player made it: the creator, a coach or an owner may revoke it.
+    { what: "revoke the player's link", call: (w) => ({ params: { slug: w.shared.slug } }), expect: { anonymous: 401, viewer: 403, player: 200, coach: 200, owner: 200, outsider: 404 } },
+  ],
+  "GET /api/teams/[team]/permalinks": [{ what: "list the team's links", call: (w) => ({ params: { team: w.team.slug } }), expect: members(200) }],
   "POST /api/invites/accept": [
     // The invite is for another address: nobody here may use it (the invitee's own use is tested in teams.test.ts).
     { what: "use someone else's invite", call: (w) => ({ body: { token: w.pending.token } }), expect: { ...all(403), anonymous: 401 } },

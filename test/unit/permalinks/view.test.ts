@@ -1,3 +1,4 @@
+import type { Role } from "@/lib/roles";
 import { describe, expect, test } from "vitest";
 import { fc, test as prop } from "@fast-check/vitest";
 import { parseExplorerSearch } from "@/lib/explorer";
@@ -10,7 +11,6 @@ import {
   viewToExplorerState,
   VIEW_BOUNDS,
   type PermalinkView,
-  type TeamRole,
 } from "@/lib/permalink";
 import { newSlug, SLUG_BYTES } from "@/server/permalinks";
 
@@ -119,7 +119,7 @@ describe("views and the Explorer", () => {
 
 describe("canRevoke", () => {
   // The rule from the product brief: the creator, or a coach or owner of the team.
-  const table: [TeamRole | null, boolean, boolean][] = [
+  const table: [Role | null, boolean, boolean][] = [
     ["owner", false, true],
     ["coach", false, true],
     ["player", false, false],

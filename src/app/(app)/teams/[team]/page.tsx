@@ -7,6 +7,7 @@ import { auth } from "@/server/auth";
 import { atLeast } from "@/server/authz";
 import { listAudit } from "@/server/db/queries/audit";
 import { listPendingInvites } from "@/server/db/queries/invites";
+import { listTeamPermalinks } from "@/server/db/queries/permalinks";
 import { listMembers } from "@/server/db/queries/teams";
 import { loadTeamFor } from "@/server/teams";
 
@@ -26,15 +27,16 @@ export default async function TeamPage({ params }: Props) {
   if (!loaded) notFound();
   const { team, role } = loaded;
   const manages = atLeast(role, "coach");
-  const [members, invites, audit] = await Promise.all([
+  const [members, invites, audit, permalinks] = await Promise.all([
     listMembers({ teamId: team.id }),
     manages ? listPendingInvites({ teamId: team.id }) : Promise.resolve([]),
     manages ? listAudit({ teamId: team.id }) : Promise.resolve([]),
+    listTeamPermalinks({ teamId: team.id }),
   ]);
   return (
     <div className="space-y-4">
       <Breadcrumb trail={[{ href: "/teams", label: "Teams" }]} />
-      <TeamAdmin team={team} me={{ id: user.id, role }} initial={{ members, invites, audit }} />
+      <TeamAdmin team={team} me={{ id: user.id, role }} initial={{ members, invites, audit, permalinks }} />
     </div>
   );
 }

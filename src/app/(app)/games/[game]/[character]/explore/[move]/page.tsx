@@ -5,7 +5,10 @@ import { SWRConfig } from "swr";
 import { ExplorerView } from "@/components/explorer/explorer-view";
 import { ExplorerStoreProvider } from "@/components/providers/explorer-store-provider";
 import { graphUrl, parseExplorerSearch } from "@/lib/explorer";
+import { atLeast } from "@/lib/roles";
+import { auth } from "@/server/auth";
 import { getExplorerData } from "@/server/db/queries/explorer";
+import { listMyTeams } from "@/server/db/queries/teams";
 import { loadCharacter } from "../../../../data";
 
 type Props = PageProps<"/games/[game]/[character]/explore/[move]">;
@@ -29,6 +32,9 @@ export default async function ExplorePage({ params, searchParams }: Props) {
   const fallback = found.data;
   const { graph, edition } = fallback;
   const rootMove = graph.nodes.find((n) => n.id === root);
+  // Signed in: a Share button, offering the teams where the user may make permalinks (player or higher).
+  const user = await auth();
+  const shareTeams = user ? (await listMyTeams({ userId: user.id })).filter((t) => atLeast(t.role, "player")).map((t) => ({ id: t.id, name: t.name })) : null;
 
   return (
     <div className="space-y-4">
@@ -54,7 +60,7 @@ export default async function ExplorePage({ params, searchParams }: Props) {
             },
           }}
         >
-          <ExplorerView characterId={character.id} root={root} />
+          <ExplorerView characterId={character.id} root={root} share={shareTeams ? { teams: shareTeams } : undefined} />
         </ExplorerStoreProvider>
       </SWRConfig>
     </div>

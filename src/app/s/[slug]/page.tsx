@@ -1,0 +1,32 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { SharedExplorer, SharedSignIn } from "@/components/explorer/shared-explorer";
+import { auth } from "@/server/auth";
+import { loadSharedView } from "@/server/db/queries/permalinks";
+
+type Props = PageProps<"/s/[slug]">;
+
+// A permalink can be revoked at any moment: never serve it from a cache.
+export const dynamic = "force-dynamic";
+
+async function load(slug: string) {
+  const user = await auth();
+  return loadSharedView({ slug, viewerId: user?.id ?? null });
+}
+
+export async function generateMetadata({ params }: Props): Promise<Metadata> {
+  const { slug } = await params;
+  const shared = await load(slug);
+  // Only a link anyone may open names what it shows; the rest leak nothing, not even a title.
+  if (shared.status !== "ok" || shared.view.visibility !== "link") return { title: "Shared view", robots: { index: false } };
+  return { title: shared.view.title, robots: { index: false } };
+}
+
+/** A shared Explorer view, read-only and pinned to its Edition. */
+export default async function SharedPage({ params }: Props) {
+  const { slug } = await params;
+  const shared = await load(slug);
+  if (shared.status === "unavailable") notFound();
+  if (shared.status === "sign-in") return <SharedSignIn signInHref={`/sign-in?callbackUrl=${encodeURIComponent(`/s/${slug}`)}`} />;
+  return <SharedExplorer view={shared.view} />;
+}
