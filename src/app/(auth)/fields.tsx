@@ -1,5 +1,6 @@
 "use client";
 
+import { useId } from "react";
 import type { ActionState } from "@/server/actions";
 
 /** A labelled input with its error beside it (read by screen readers through aria-describedby). */
@@ -20,7 +21,8 @@ export function Field({
   defaultValue?: string;
   hint?: string;
 }) {
-  const id = `field-${name}`;
+  // Two forms on one page may both have an e-mail field: ids must still be unique.
+  const id = `${useId()}-${name}`;
   const described = [hint ? `${id}-hint` : null, error ? `${id}-error` : null].filter(Boolean).join(" ") || undefined;
   return (
     <div className="space-y-1">
