@@ -2,7 +2,8 @@
 # `npm test`: install what is missing, start a throwaway MariaDB (its own
 # datadir and port, never the demo one), migrate, seed, then typecheck, lint,
 # vitest, a production build and Playwright. Stops what it started, even when
-# a step fails, and ends with one line "N passed, N failed".
+# a step fails, and ends with one line "N passed, N failed". A throwaway
+# maildev catches the mail the app sends.
 set -uo pipefail
 cd "$(dirname "$0")/.."
 export NEXT_TELEMETRY_DISABLED=1
@@ -25,10 +26,22 @@ DATABASE_URL="$(bash scripts/db.sh url)"
 export DATABASE_URL
 export TEST_APP_PORT="${TEST_APP_PORT:-3100}"
 
+# Its own fake mail service; browser tests read the mail through its HTTP API.
+export MAIL_DIR=.data/test-maildev
+export MAIL_SMTP_PORT="${TEST_SMTP_PORT:-1126}"
+export MAIL_WEB_PORT="${TEST_MAIL_WEB_PORT:-1181}"
+export SMTP_URL="smtp://127.0.0.1:$MAIL_SMTP_PORT"
+export MAIL_FROM="Framefork <no-reply@example.com>"
+export NEXTAUTH_URL="http://127.0.0.1:$TEST_APP_PORT"
+export NEXTAUTH_SECRET=framefork-test-only-secret-not-for-real-use
+
 reports=.data/reports
 rm -rf "$reports" && mkdir -p "$reports"
 
-cleanup() { bash scripts/db.sh stop || true; }
+cleanup() {
+  bash scripts/mail.sh stop || true
+  bash scripts/db.sh stop || true
+}
 trap cleanup EXIT
 trap 'exit 130' INT TERM
 
@@ -50,6 +63,10 @@ step() {
 
 step "database" bash -c 'bash scripts/db.sh start && bash scripts/db.sh reset && npm run --silent db:migrate && npm run --silent db:seed' || {
   node scripts/test-summary.mjs "$reports" "database"
+  exit 1
+}
+step "mail" bash scripts/mail.sh start || {
+  node scripts/test-summary.mjs "$reports" "mail"
   exit 1
 }
 step "typecheck" npm run --silent typecheck
