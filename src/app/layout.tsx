@@ -1,14 +1,19 @@
+import { env } from "@/env";
 import "@fontsource/jetbrains-mono/400.css";
 import "@fontsource/jetbrains-mono/700.css";
 import "./globals.css";
 import type { Metadata, Viewport } from "next";
 import { SiteHeader } from "@/components/site-header";
 
-export const metadata: Metadata = {
-  title: { default: "Framefork", template: "%s · Framefork" },
-  description:
-    "Every string and stance cancel of a fighting-game character as a branching graph, with the frame advantage of every path.",
-};
+export function generateMetadata(): Metadata {
+  return {
+    // Link previews (a permalink's image) need absolute addresses: the app's own, from the environment.
+    metadataBase: new URL(env().NEXTAUTH_URL),
+    title: { default: "Framefork", template: "%s · Framefork" },
+    description:
+      "Every string and stance cancel of a fighting-game character as a branching graph, with the frame advantage of every path.",
+  };
+}
 
 export const viewport: Viewport = { themeColor: "#0b0d12", width: "device-width", initialScale: 1 };
 

@@ -14,6 +14,11 @@ export async function SiteHeader() {
         <Link href="/games" className="text-sm text-ink-200 hover:text-ink-100 hover:underline">
           Games
         </Link>
+        {user && (
+          <Link href="/teams" className="text-sm text-ink-200 hover:text-ink-100 hover:underline">
+            Teams
+          </Link>
+        )}
         <Link href="/help" className="text-sm text-ink-200 hover:text-ink-100 hover:underline">
           Help
         </Link>

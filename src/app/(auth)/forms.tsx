@@ -103,7 +103,7 @@ export function SignInLinkForm({ callbackUrl }: { callbackUrl: string }) {
   );
 }
 
-export function SignUpForm({ callbackUrl }: { callbackUrl: string }) {
+export function SignUpForm({ callbackUrl, defaultEmail }: { callbackUrl: string; defaultEmail?: string }) {
   const [state, setState] = useState<Awaited<ReturnType<typeof signUp>>>(null);
   const [pending, start] = useTransition();
   return (
@@ -130,7 +130,7 @@ export function SignUpForm({ callbackUrl }: { callbackUrl: string }) {
     >
       <Notice error={formError(state)} message={state?.ok ? `${state.message} Signing you in…` : null} />
       <Field name="name" label="Name" autoComplete="name" error={fieldError(state, "name")} />
-      <Field name="email" label="E-mail" type="email" autoComplete="email" error={fieldError(state, "email")} />
+      <Field name="email" label="E-mail" type="email" autoComplete="email" defaultValue={defaultEmail} error={fieldError(state, "email")} />
       <NewPasswordField name="password" label="Password" error={fieldError(state, "password")} />
       <Submit pending={pending} pendingText="Creating your account…">
         Create account

@@ -93,7 +93,7 @@ export function ShareButton({ teams, characterId, root }: { teams: ShareTeam[]; 
       <dialog
         ref={dialog}
         aria-labelledby={`${ids}-title`}
-        className="m-auto w-[min(32rem,calc(100vw-2rem))] rounded-lg border border-ink-700 bg-ink-850 p-5 text-sm text-ink-100 backdrop:bg-ink-950/70"
+        className="m-auto max-h-[calc(100dvh-2rem)] w-[min(32rem,calc(100vw-2rem))] overflow-y-auto rounded-lg border border-ink-700 bg-ink-850 p-5 text-sm text-ink-100 backdrop:bg-ink-950/70"
       >
         <h2 id={`${ids}-title`} className="mb-3 text-base font-semibold">
           Share this view

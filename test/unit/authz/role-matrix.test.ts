@@ -1,69 +1,32 @@
 import { readdirSync, statSync } from "node:fs";
 import { join, relative } from "node:path";
 import { afterAll, beforeEach, describe, expect, test, vi } from "vitest";
-import { AppError } from "@/lib/errors";
-import type { Role } from "@/lib/roles";
+import { ERROR_STATUS } from "@/lib/errors";
+import type { ActionState } from "@/server/actions";
 import type { SessionUser } from "@/server/auth";
-import { closeDb, getDb } from "@/server/db";
-import { getCharacterBySlug, getGameBySlug } from "@/server/db/queries/games";
-import { createInvite } from "@/server/db/queries/invites";
-import { createPermalink } from "@/server/db/queries/permalinks";
-import { createTeam } from "@/server/db/queries/teams";
-import { characters, editions, games, memberships } from "@/server/db/schema";
-import { makeUser } from "../teams/fixtures";
+import { setSession } from "./session-mock";
+import { closeDb } from "@/server/db";
+import { VIEW, world, type World } from "./world";
 
 // Who is signed in for the call under test. Route handlers read the session only through
 // @/server/auth, so the matrix sets it here; everything else (database, role checks) is real.
-let current: SessionUser | null = null;
-vi.mock("@/server/auth", () => ({
-  auth: async () => current,
-  requireUser: async () => {
-    if (!current) throw new AppError("unauthorized", "Sign in to do this.");
-    return current;
-  },
-}));
+vi.mock("@/server/auth", () => import("./session-mock"));
 // Invites would send e-mail; the matrix is about who may act, so mail is recorded, not sent.
 const sent: { to: string }[] = [];
-vi.mock("@/server/mail", () => ({ sendMail: async (m: { to: string }) => void sent.push(m) }));
+vi.mock("@/server/mail", async (original) => ({
+  ...(await original<typeof import("@/server/mail")>()),
+  sendMail: async (m: { to: string }) => void sent.push(m),
+}));
+// Server actions read the caller's address for rate limits; each call comes from its own.
+let address = 0;
+vi.mock("next/headers", () => ({ headers: async () => new Headers({ "x-forwarded-for": `198.51.100.${(address++ % 250) + 1}` }) }));
 
 afterAll(closeDb);
-beforeEach(() => {
-  current = null;
-});
+beforeEach(() => setSession(null));
 
 const ACTORS = ["anonymous", "viewer", "player", "coach", "owner", "outsider"] as const;
 type Actor = (typeof ACTORS)[number];
 type Expected = Record<Actor, number>;
-
-/** One team with a member of each role, another team owned by the outsider, and what the routes act on. */
-async function world() {
-  const people = {
-    owner: await makeUser("owner"),
-    coach: await makeUser("coach"),
-    player: await makeUser("player"),
-    viewer: await makeUser("viewer"),
-    outsider: await makeUser("outsider"),
-    extra: await makeUser("extra"),
-  };
-  const team = await createTeam({ name: `Matrix ${people.owner.id.slice(0, 6)}`, ownerId: people.owner.id });
-  const roles: [keyof typeof people, Role][] = [["coach", "coach"], ["player", "player"], ["viewer", "viewer"], ["extra", "player"]];
-  await getDb().insert(memberships).values(roles.map(([who, role]) => ({ teamId: team.id, userId: people[who].id, role })));
-  const other = await createTeam({ name: `Elsewhere ${people.outsider.id.slice(0, 6)}`, ownerId: people.outsider.id });
-  const pending = await createInvite({ teamId: team.id, invitedBy: people.owner.id, inviterRole: "owner", email: `invitee-${people.owner.id.slice(0, 8)}@example.test`, role: "player" });
-  // A game of the team's own, with one character and one Edition.
-  const [game] = await getDb().insert(games).values({ slug: `team-game-${people.owner.id.slice(0, 8)}`, name: "Team Game", teamId: team.id }).$returningId();
-  await getDb().insert(editions).values({ gameId: game!.id, slug: "0-1", name: "0.1", releasedOn: new Date("2026-10-01") });
-  const [character] = await getDb().insert(characters).values({ gameId: game!.id, slug: "sparring-dummy", name: "Sparring Dummy" }).$returningId();
-  // A link the player shared from the public demo game.
-  const demo = await getGameBySlug({ slug: "vesper-circuit" });
-  const tarrow = demo && (await getCharacterBySlug({ gameId: demo.id, slug: "tarrow" }));
-  if (!tarrow) throw new Error("the demo data is not in the test database");
-  const shared = await createPermalink({ teamId: team.id, createdBy: people.player.id, characterId: tarrow.id, editionSlug: "1-1", view: VIEW, visibility: "team" });
-  return { people, team, other, pending, teamCharacterId: character!.id, demoCharacterId: tarrow.id, shared };
-}
-
-const VIEW = { root: "2", path: null, options: { maxDepth: 8, maxStanceVisits: 1, fastest: 10 }, opponent: null };
-type World = Awaited<ReturnType<typeof world>>;
 
 const userOf = (w: World, actor: Actor): SessionUser | null => (actor === "anonymous" ? null : { id: w.people[actor].id, email: w.people[actor].email, name: w.people[actor].name });
 
@@ -133,20 +96,67 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
   ],
 };
 
-const API = join(process.cwd(), "src/app/api");
+type Action = (previous: ActionState, form: FormData) => Promise<ActionState>;
+interface ActionCase {
+  what: string;
+  form: (w: World) => Record<string, string>;
+  expect: Expected;
+}
+
+/**
+ * Every server action (exported from an `actions.ts` under src/app) × caller → the status its
+ * answer stands for: 200 for `ok`, the error code's status, 303 for a redirect.
+ */
+const ACTIONS: Record<string, ActionCase[]> = {
+  "(auth)/actions.ts signUp": [
+    { what: "make an account", form: (w) => ({ name: "New Person", email: `new-${w.team.slug}@example.test`, password: "long enough password" }), expect: all(200) },
+  ],
+  "(auth)/actions.ts requestPasswordReset": [{ what: "ask for a reset link", form: (w) => ({ email: w.people.viewer.email }), expect: all(303) }],
+  "(auth)/actions.ts resetPassword": [{ what: "use a link that does not exist", form: () => ({ token: "no-such-token", password: "long enough password" }), expect: all(404) }],
+  "(auth)/actions.ts changePassword": [
+    // These people signed up by link and have no password yet: a clear 400 once signed in.
+    { what: "change a password", form: () => ({ currentPassword: "whatever it was", newPassword: "long enough password" }), expect: { ...all(400), anonymous: 401 } },
+  ],
+};
+
+
+async function actions(): Promise<Map<string, Action>> {
+  const out = new Map<string, Action>();
+  for (const file of filesNamed(APP, "actions.ts")) {
+    const mod = (await import(file)) as Record<string, unknown>;
+    for (const [name, fn] of Object.entries(mod)) if (typeof fn === "function") out.set(`${relative(APP, file)} ${name}`, fn as Action);
+  }
+  return out;
+}
+
+async function statusOfAction(action: Action, form: Record<string, string>): Promise<number> {
+  const data = new FormData();
+  for (const [k, v] of Object.entries(form)) data.set(k, v);
+  try {
+    const state = await action(null, data);
+    return state === null || state.ok ? 200 : ERROR_STATUS[state.code];
+  } catch (error) {
+    if (String((error as { digest?: string }).digest ?? "").startsWith("NEXT_REDIRECT")) return 303;
+    throw error;
+  }
+}
+
+const APP = join(process.cwd(), "src/app");
+const API = join(APP, "api");
 const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
 
-function routeFiles(dir: string): string[] {
+/** Every file called `file` under `dir`. */
+function filesNamed(dir: string, file: string): string[] {
   return readdirSync(dir).flatMap((name) => {
     const path = join(dir, name);
-    if (statSync(path).isDirectory()) return routeFiles(path);
-    return name === "route.ts" ? [path] : [];
+    if (statSync(path).isDirectory()) return filesNamed(path, file);
+    return name === file ? [path] : [];
   });
 }
 
 async function handlers(): Promise<Map<string, Handler>> {
   const out = new Map<string, Handler>();
-  for (const file of routeFiles(API)) {
+  for (const file of filesNamed(API, "route.ts")) {
     const route = `/api/${relative(API, file).replace(/\/?route\.ts$/, "")}`.replace(/\/$/, "");
     const mod = (await import(file)) as Partial<Record<(typeof METHODS)[number], Handler>>;
     for (const m of METHODS) if (typeof mod[m] === "function") out.set(`${m} ${route}`, mod[m]);
@@ -172,7 +182,7 @@ describe("role matrix", () => {
       // A fresh world per caller: a change one caller makes must not decide the next one's answer.
       const w = await world();
       const { params = {}, body, query = "" } = c.call(w);
-      current = userOf(w, actor);
+      setSession(userOf(w, actor));
       const url = `http://test${path.replace(/\[(\.\.\.)?(\w+)\]/g, (_, __, name: string) => encodeURIComponent(params[name] ?? ""))}${query}`;
       const request = new Request(url, {
         method,
@@ -190,5 +200,24 @@ describe("role matrix", () => {
     }
     expect(got, `${key}: ${c.what}`).toEqual(c.expect);
     expect(leaks).toEqual([]);
+  });
+
+  test("every server action has a row, and every row an action", async () => {
+    const found = [...(await actions()).keys()].sort();
+    expect(found.filter((k) => !(k in ACTIONS)), "server actions with no row in ACTIONS").toEqual([]);
+    expect(Object.keys(ACTIONS).filter((k) => !found.includes(k)), "rows for actions that do not exist").toEqual([]);
+  });
+
+  const actionRows = Object.entries(ACTIONS).flatMap(([key, cases]) => cases.map((c) => [key, c] as const));
+  test.each(actionRows)("action %s", async (key, c) => {
+    const action = (await actions()).get(key);
+    expect(action, `${key} is not a server action`).toBeDefined();
+    const got: Partial<Expected> = {};
+    for (const actor of ACTORS) {
+      const w = await world();
+      setSession(userOf(w, actor));
+      got[actor] = await statusOfAction(action!, c.form(w));
+    }
+    expect(got, `${key}: ${c.what}`).toEqual(c.expect);
   });
 });

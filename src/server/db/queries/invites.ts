@@ -163,7 +163,8 @@ export async function acceptInvite({
     const status = !row ? "unknown" : row.revokedAt ? "revoked" : row.acceptedAt ? "used" : row.expiresAt <= now ? "expired" : "valid";
     if (!row || status !== "valid") throw new AppError(status === "unknown" ? "not_found" : "conflict", INVITE_PROBLEM[status as Exclude<typeof status, "valid">]);
     if (row.email !== userEmail.trim().toLowerCase()) {
-      throw new AppError("forbidden", `This invite was sent to ${row.email}. Sign in with that address to accept it.`);
+      // The address is not repeated here: an answer to an API call names nobody.
+      throw new AppError("forbidden", "This invite was sent to another e-mail address. Sign in with the address it was sent to, then accept it.");
     }
     const [team] = await tx.select({ slug: teams.slug, name: teams.name }).from(teams).where(eq(teams.id, row.teamId));
     const [member] = await tx

@@ -1,0 +1,52 @@
+import { expect, type Locator, type Page } from "@playwright/test";
+import { AccountArea, SignUpPage } from "./auth-pages";
+
+export const PASSWORD = "frame-trap-drills";
+
+/** Signs a new person up through the form and waits until the header shows them. */
+export async function signUpAs(page: Page, name: string, email: string, callbackUrl?: string) {
+  const form = new SignUpPage(page);
+  await form.goto(callbackUrl);
+  await form.signUp({ name, email, password: PASSWORD });
+  await expect(new AccountArea(page).user(name)).toBeVisible();
+}
+
+/** /teams: the user's teams and "Start a team". */
+export class TeamsPage {
+  constructor(private readonly page: Page) {}
+  async goto() {
+    await this.page.goto("/teams");
+  }
+  async create(name: string): Promise<TeamPage> {
+    const form = this.page.getByRole("form", { name: "Start a team" });
+    await form.getByLabel("Team name").fill(name);
+    await form.getByRole("button", { name: "Create team" }).click();
+    await expect(this.page.getByRole("heading", { level: 1, name })).toBeVisible();
+    return new TeamPage(this.page);
+  }
+}
+
+/** /teams/[team]: members, invites, shared links, the team log. */
+export class TeamPage {
+  readonly members: Locator;
+  readonly invite: Locator;
+  readonly links: Locator;
+  readonly log: Locator;
+  readonly notice: Locator;
+  constructor(private readonly page: Page) {
+    this.members = page.getByTestId("team-members");
+    this.invite = page.getByTestId("team-invite");
+    this.links = page.getByTestId("team-links");
+    this.log = page.getByTestId("team-log");
+    this.notice = page.getByRole("status").filter({ hasText: /./ });
+  }
+  member(email: string): Locator {
+    return this.members.locator(`tr[data-member="${email}"]`);
+  }
+  async inviteSomeone(email: string, role: "owner" | "coach" | "player" | "viewer") {
+    await this.invite.getByLabel("E-mail").fill(email);
+    await this.invite.getByLabel("Role").selectOption(role);
+    await this.invite.getByRole("button", { name: "Send invite" }).click();
+    await expect(this.page.getByText(`Invite sent to ${email}.`)).toBeVisible();
+  }
+}

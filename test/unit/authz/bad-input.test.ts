@@ -1,0 +1,139 @@
+import { count, eq } from "drizzle-orm";
+import { afterAll, beforeEach, describe, expect, test, vi } from "vitest";
+import { POST as acceptInvite } from "@/app/api/invites/accept/route";
+import { POST as createPermalink } from "@/app/api/permalinks/route";
+import { POST as invite } from "@/app/api/teams/[team]/invites/route";
+import { PATCH as changeRole } from "@/app/api/teams/[team]/members/[user]/route";
+import { POST as createTeam } from "@/app/api/teams/route";
+import { setSession } from "./session-mock";
+import { closeDb, getDb } from "@/server/db";
+import { listMembers, listMyTeams } from "@/server/db/queries/teams";
+import { auditLog, invites, permalinks } from "@/server/db/schema";
+import { VIEW, world, type World } from "./world";
+
+vi.mock("@/server/auth", () => import("./session-mock"));
+vi.mock("@/server/mail", async (original) => ({ ...(await original<typeof import("@/server/mail")>()), sendMail: async () => {} }));
+
+afterAll(closeDb);
+
+type Handler = (request: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
+interface BodyRoute {
+  name: string;
+  handler: Handler;
+  params: (w: World) => Record<string, string>;
+  /** A body the route accepts, so each bad one differs from it in one way. */
+  good: (w: World) => Record<string, unknown>;
+  /** The fields that hold text a person typed. */
+  text: string[];
+}
+
+// Every route that takes a JSON body. Each is sent broken JSON, an oversized body, wrong types,
+// and text that looks like SQL or a script.
+const ROUTES: BodyRoute[] = [
+  { name: "POST /api/teams", handler: createTeam as Handler, params: () => ({}), good: () => ({ name: "Night Shift" }), text: ["name"] },
+  {
+    name: "PATCH /api/teams/[team]/members/[user]",
+    handler: changeRole as Handler,
+    params: (w) => ({ team: w.team.slug, user: w.people.extra.id }),
+    good: () => ({ role: "coach" }),
+    text: ["role"],
+  },
+  {
+    name: "POST /api/teams/[team]/invites",
+    handler: invite as Handler,
+    params: (w) => ({ team: w.team.slug }),
+    good: (w) => ({ email: `someone-${w.team.slug}@example.test`, role: "viewer" }),
+    text: ["email", "role"],
+  },
+  { name: "POST /api/invites/accept", handler: acceptInvite as Handler, params: () => ({}), good: (w) => ({ token: w.pending.token }), text: ["token"] },
+  {
+    name: "POST /api/permalinks",
+    handler: createPermalink as Handler,
+    params: () => ({}),
+    good: (w) => ({ teamId: w.team.id, characterId: w.demoCharacterId, edition: "1-1", view: VIEW, visibility: "link" }),
+    text: ["edition", "visibility"],
+  },
+];
+
+const SQL = "x'); DROP TABLE teams; --";
+const SCRIPT = "<script>alert('frame')</script>";
+
+async function send(route: BodyRoute, w: World, body: string, type = "application/json") {
+  return route.handler(new Request("http://test/api", { method: "POST", headers: { "content-type": type }, body }), { params: Promise.resolve(route.params(w)) });
+}
+
+/** What this world's owner and team hold: other test files write to the same database at the same time. */
+async function rowCounts(w: World) {
+  const db = getDb();
+  const inTeam = async (t: typeof invites | typeof permalinks | typeof auditLog) => Number((await db.select({ n: count() }).from(t).where(eq(t.teamId, w.team.id)))[0]?.n);
+  return {
+    teams: (await listMyTeams({ userId: w.people.owner.id })).length,
+    invites: await inTeam(invites),
+    permalinks: await inTeam(permalinks),
+    audit: await inTeam(auditLog),
+    members: (await listMembers({ teamId: w.team.id })).map((m) => `${m.userId}:${m.role}`).sort(),
+  };
+}
+
+describe.each(ROUTES)("$name refuses bad input with 400 and a message, and writes nothing", (route) => {
+  let w: World;
+  beforeEach(async () => {
+    w = await world();
+    setSession({ id: w.people.owner.id, email: w.people.owner.email, name: w.people.owner.name });
+  });
+
+  const refused = async (res: Response, status: number | number[] = 400) => {
+    expect([status].flat()).toContain(res.status);
+    const body = (await res.json()) as { error: { message: string } };
+    expect(body.error.message.length).toBeGreaterThan(10);
+  };
+
+  test("malformed JSON, the wrong content type and an oversized body", async () => {
+    const before = await rowCounts(w);
+    await refused(await send(route, w, '{"name": "unterminated'));
+    await refused(await send(route, w, JSON.stringify(route.good(w)), "text/plain"), 415);
+    await refused(await send(route, w, JSON.stringify({ ...route.good(w), padding: "x".repeat(2_000_000) })), 413);
+    expect(await rowCounts(w)).toEqual(before);
+  });
+
+  test("wrong types and unknown fields", async () => {
+    const before = await rowCounts(w);
+    for (const field of Object.keys(route.good(w))) {
+      await refused(await send(route, w, JSON.stringify({ ...route.good(w), [field]: { nested: [1, 2] } })));
+    }
+    await refused(await send(route, w, JSON.stringify([route.good(w)])));
+    await refused(await send(route, w, JSON.stringify({ ...route.good(w), isAdmin: true })));
+    expect(await rowCounts(w)).toEqual(before);
+  });
+
+  test("SQL- and script-looking text is refused, or kept exactly as typed", async () => {
+    for (const field of route.text) {
+      for (const nasty of [SQL, SCRIPT]) {
+        const fresh = await world();
+        setSession({ id: fresh.people.owner.id, email: fresh.people.owner.email, name: fresh.people.owner.name });
+        const res = await send(route, fresh, JSON.stringify({ ...route.good(fresh), [field]: nasty }));
+        if (res.status === 201 || res.status === 200) {
+          // Only a free-text field may take it, and then it comes back exactly as typed.
+          expect(route.name).toBe("POST /api/teams");
+          const mine = await listMyTeams({ userId: fresh.people.owner.id });
+          expect(mine.map((t) => t.name)).toContain(nasty);
+        } else {
+          // Refused by the schema (400), or read as plain text and found to match nothing (404).
+          await refused(res, [400, 404]);
+        }
+      }
+    }
+    // The table the SQL-looking text names is still there.
+    expect((await rowCounts(w)).teams).toBeGreaterThan(0);
+  });
+});
+
+test("a refused role change leaves the member as they were", async () => {
+  const w = await world();
+  setSession({ id: w.people.owner.id, email: w.people.owner.email, name: w.people.owner.name });
+  const route = ROUTES[1]!;
+  const res = await send(route, w, JSON.stringify({ role: "admin" }));
+  expect(res.status).toBe(400);
+  const extra = (await listMembers({ teamId: w.team.id })).find((m) => m.userId === w.people.extra.id);
+  expect(extra?.role).toBe("player");
+});
