@@ -141,3 +141,24 @@ test("a team name that looks like a script or SQL is shown as the text it is", a
   await page.goto("/teams");
   await expect(page.getByTestId("team-list")).toContainText(name);
 });
+
+test("the sign-up, team, invite and shared pages have no serious or critical accessibility violations", async ({ page, browser }) => {
+  const { default: AxeBuilder } = await import("@axe-core/playwright");
+  const check = async (p: typeof page, where: string) => {
+    const results = await new AxeBuilder({ page: p }).analyze();
+    const bad = results.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
+    expect(bad.map((v) => `${where} ${v.id}: ${v.nodes.length} node(s), e.g. ${v.nodes[0]?.target.join(" ")}`)).toEqual([]);
+  };
+  await page.goto("/sign-up");
+  await check(page, "sign-up");
+  await signUpAs(page, "Axe Runner", newEmail("axe"), "/teams");
+  await check(page, "teams");
+  const team = await new TeamsPage(page).create("Audit Crew");
+  const invitedEmail = newEmail("invited");
+  await team.inviteSomeone(invitedEmail, "viewer");
+  await check(page, "team");
+
+  const other = await freshPage(browser);
+  await other.goto(linkIn(await waitForMail(invitedEmail)));
+  await check(other, "invite");
+});

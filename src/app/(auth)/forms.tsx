@@ -75,7 +75,7 @@ export function PasswordSignInForm({ callbackUrl }: { callbackUrl: string }) {
       <Field name="email" label="E-mail" type="email" autoComplete="email" />
       <Field name="password" label="Password" type="password" autoComplete="current-password" />
       <p className="text-sm">
-        <Link href="/forgot-password" className="text-accent hover:underline">
+        <Link href="/forgot-password" className="text-accent underline underline-offset-2">
           Forgot your password?
         </Link>
       </p>
@@ -158,7 +158,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
     return (
       <div className="space-y-4">
         <Notice message={state.message} />
-        <Link href="/sign-in" className="inline-block text-accent hover:underline">
+        <Link href="/sign-in" className="inline-block text-accent underline underline-offset-2">
           Sign in
         </Link>
       </div>
@@ -169,7 +169,7 @@ export function ResetPasswordForm({ token }: { token: string }) {
     <form action={action} aria-label="Choose a new password" className="space-y-4">
       <Notice error={error} />
       {error && state && !state.ok && (state.code === "conflict" || state.code === "not_found") ? (
-        <Link href="/forgot-password" className="inline-block text-accent hover:underline">
+        <Link href="/forgot-password" className="inline-block text-accent underline underline-offset-2">
           Send me a new link
         </Link>
       ) : null}

@@ -17,7 +17,7 @@ export default async function CheckEmailPage({ searchParams }: { searchParams: P
     >
       <p className="text-sm text-ink-300">
         Nothing after a few minutes? Look in your spam folder, or{" "}
-        <Link href={reset ? "/forgot-password" : "/sign-in"} className="text-accent hover:underline">
+        <Link href={reset ? "/forgot-password" : "/sign-in"} className="text-accent underline underline-offset-2">
           ask for another link
         </Link>
         .

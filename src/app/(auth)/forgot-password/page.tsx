@@ -10,7 +10,7 @@ export default function ForgotPasswordPage() {
     <AuthCard title="Forgot your password?" lead="Enter your e-mail and we will send you a link to choose a new one.">
       <ForgotPasswordForm />
       <p className="text-sm">
-        <Link href="/sign-in" className="text-accent hover:underline">
+        <Link href="/sign-in" className="text-accent underline underline-offset-2">
           Back to sign in
         </Link>
       </p>

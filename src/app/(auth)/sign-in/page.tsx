@@ -22,7 +22,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
       lead={
         <>
           New to Framefork?{" "}
-          <Link href={`/sign-up${withCallback}`} className="text-accent hover:underline">
+          <Link href={`/sign-up${withCallback}`} className="text-accent underline underline-offset-2">
             Create an account
           </Link>
         </>

@@ -16,7 +16,7 @@ export default async function SignUpPage({ searchParams }: { searchParams: Promi
       lead={
         <>
           Already have one?{" "}
-          <Link href={`/sign-in${withCallback}`} className="text-accent hover:underline">
+          <Link href={`/sign-in${withCallback}`} className="text-accent underline underline-offset-2">
             Sign in
           </Link>
         </>
