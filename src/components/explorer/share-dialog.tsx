@@ -3,6 +3,7 @@
 import { useId, useRef, useState } from "react";
 import { useExplorerStore } from "@/components/providers/explorer-store-provider";
 import { AppError } from "@/lib/errors";
+import { sendJson } from "@/lib/fetcher";
 import { explorerStateToView, PERMALINK_VISIBILITIES, VISIBILITY_TEXT, type PermalinkVisibility } from "@/lib/permalink";
 
 export interface ShareTeam {
@@ -22,19 +23,8 @@ const primary =
   "rounded bg-accent px-3 py-1 font-medium text-ink-950 hover:bg-accent-strong focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-accent disabled:opacity-50";
 
 async function postPermalink(body: unknown): Promise<string> {
-  let res: Response;
-  try {
-    res = await fetch("/api/permalinks", {
-      method: "POST",
-      headers: { "content-type": "application/json", accept: "application/json" },
-      body: JSON.stringify(body),
-    });
-  } catch {
-    throw new AppError("unavailable", "Framefork could not be reached. Check your connection and try again.");
-  }
-  const json: unknown = await res.json().catch(() => null);
-  if (!res.ok) throw AppError.fromResponseBody(json, res.status);
-  const path = (json as { permalink?: { path?: unknown } } | null)?.permalink?.path;
+  const made = await sendJson<{ permalink?: { path?: unknown } }>("POST", "/api/permalinks", body);
+  const path = made?.permalink?.path;
   if (typeof path !== "string") throw new AppError("internal", "The server made the link but did not say where it is. Try again.");
   return new URL(path, window.location.origin).toString();
 }

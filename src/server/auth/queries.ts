@@ -1,8 +1,8 @@
 import "server-only";
-import { createHash, randomBytes } from "node:crypto";
 import { and, eq, gt, isNull, type SQL } from "drizzle-orm";
 import { getDb } from "@/server/db";
 import { passwordResets, users } from "@/server/db/schema";
+import { hashToken, newToken } from "@/server/tokens";
 
 /** What the auth code may know about a user: never leaves the server with the hash in it. */
 export interface UserWithHash {
@@ -42,14 +42,12 @@ export async function updatePassword({ id, passwordHash }: { id: string; passwor
   await getDb().update(users).set({ passwordHash }).where(eq(users.id, id));
 }
 
-export const sha256 = (token: string) => createHash("sha256").update(token).digest("hex");
-
 /** A new single-use reset token; only its SHA-256 is stored. Returns the token for the e-mail. */
 export async function createPasswordReset({ userId, expiresInMinutes }: { userId: string; expiresInMinutes: number }): Promise<string> {
-  const token = randomBytes(32).toString("base64url");
+  const token = newToken();
   await getDb()
     .insert(passwordResets)
-    .values({ userId, tokenHash: sha256(token), expiresAt: new Date(Date.now() + expiresInMinutes * 60_000) });
+    .values({ userId, tokenHash: hashToken(token), expiresAt: new Date(Date.now() + expiresInMinutes * 60_000) });
   return token;
 }
 
@@ -59,7 +57,7 @@ export async function resetTokenState({ token }: { token: string }): Promise<Res
   const [row] = await getDb()
     .select({ expiresAt: passwordResets.expiresAt, usedAt: passwordResets.usedAt })
     .from(passwordResets)
-    .where(eq(passwordResets.tokenHash, sha256(token)))
+    .where(eq(passwordResets.tokenHash, hashToken(token)))
     .limit(1);
   if (!row) return "unknown";
   if (row.usedAt) return "used";
@@ -73,7 +71,7 @@ export async function resetTokenState({ token }: { token: string }): Promise<Res
  * submissions of the same link cannot both succeed.
  */
 export async function usePasswordReset({ token, passwordHash }: { token: string; passwordHash: string }): Promise<ResetTokenState> {
-  const tokenHash = sha256(token);
+  const tokenHash = hashToken(token);
   return getDb().transaction(async (tx) => {
     const [claimed] = await tx
       .update(passwordResets)

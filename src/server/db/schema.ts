@@ -17,6 +17,7 @@ import {
   type AnyMySqlColumn,
 } from "drizzle-orm/mysql-core";
 import type { Level, Outcome } from "@/lib/engine";
+import { PERMALINK_VISIBILITIES } from "@/lib/permalink";
 import { ROLES } from "@/lib/roles";
 
 // MariaDB rejects Drizzle's `serial()` ("serial AUTO_INCREMENT"), so every
@@ -204,7 +205,6 @@ export const edges = mysqlTable(
 // adapter is given these tables, so sign-in links and users go through it.
 
 export { ROLES, type Role } from "@/lib/roles";
-export const PERMALINK_VISIBILITY = ["team", "link"] as const;
 
 /** A person who can sign in. The adapter creates users by e-mail; sign-up sets a password too. */
 export const users = mysqlTable(
@@ -343,7 +343,7 @@ export const permalinks = mysqlTable(
       .notNull()
       .references(() => users.id, { onDelete: "cascade" }),
     kind: varchar("kind", { length: 16 }).notNull().default("explorer"),
-    visibility: mysqlEnum("visibility", PERMALINK_VISIBILITY).notNull(),
+    visibility: mysqlEnum("visibility", PERMALINK_VISIBILITIES).notNull(),
     editionId: ref("edition_id")
       .notNull()
       .references(() => editions.id, { onDelete: "cascade" }),

@@ -1,16 +1,14 @@
 import "server-only";
-import { createHash, randomBytes } from "node:crypto";
 import { and, desc, eq, isNull } from "drizzle-orm";
 import { AppError } from "@/lib/errors";
 import { atLeast } from "../../authz";
+import { hashToken, newToken } from "../../tokens";
 import { getDb } from "../index";
 import { invites, memberships, teams, users, type Role } from "../schema";
 import { recordAudit } from "./audit";
 
 export const INVITE_DAYS = 7;
 const DAY_MS = 86_400_000;
-
-export const hashToken = (token: string) => createHash("sha256").update(token).digest("hex");
 
 export interface InviteDto {
   id: number;
@@ -64,7 +62,7 @@ export async function createInvite({
       .where(and(eq(memberships.teamId, teamId), eq(users.email, address)))
       .limit(1);
     if (already) throw new AppError("conflict", `${address} is already a member of this team.`);
-    const token = randomBytes(32).toString("base64url");
+    const token = newToken();
     const expiresAt = new Date(now.getTime() + INVITE_DAYS * DAY_MS);
     const [row] = await tx.insert(invites).values({ teamId, email: address, role, tokenHash: hashToken(token), invitedBy, expiresAt }).$returningId();
     await recordAudit(tx, { teamId, actorId: invitedBy, action: "member.invited", detail: { email: address, role } });
