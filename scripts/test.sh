@@ -9,13 +9,7 @@ cd "$(dirname "$0")/.."
 export NEXT_TELEMETRY_DISABLED=1
 
 bash scripts/ensure-deps.sh || exit 1
-if [ ! -x /usr/bin/chromium ]; then
-  echo "[test] installing Debian's chromium for the browser tests"
-  { apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends chromium >/dev/null; } || {
-    echo "[test] could not install chromium (needs root and Debian's package archive)"
-    exit 1
-  }
-fi
+bash scripts/chromium.sh || exit 1
 
 export DB_DIR=.data/test-mariadb
 export DB_PORT="${TEST_DB_PORT:-3317}"

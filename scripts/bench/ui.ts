@@ -80,6 +80,7 @@ async function main() {
   const nodes = flatten(character.data("1-1")).moves.length + 4;
   console.log(`Framefork Explorer bench: generated character with ${nodes} nodes`);
 
+  execFileSync("bash", ["scripts/chromium.sh"], { env, stdio: "inherit" });
   execFileSync("bash", ["scripts/db.sh", "start"], { env, stdio: "inherit" });
   let server: ChildProcess | undefined;
   try {

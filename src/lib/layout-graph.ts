@@ -1,4 +1,4 @@
-import dagre from "@dagrejs/dagre";
+import dagre, { type Graph } from "@dagrejs/dagre";
 
 export interface LayoutNode {
   id: string;
@@ -59,10 +59,31 @@ export function layoutGraph(
     if (e.source === e.target) continue; // a self-loop does not change ranks or order
     g.setEdge(e.source, e.target, {}, e.id);
   }
-  dagre.layout(g, { disableOptimalOrderHeuristic: fast });
+  dagre.layout(g, fast ? { customOrder: depthFirstOrder } : {});
   return nodes.map((n) => {
     const placed = g.node(n.id) as { x: number; y: number };
     // dagre anchors at the centre; React Flow at the top-left corner.
     return { ...n, x: placed.x - n.width / 2, y: placed.y - n.height / 2 };
   });
+}
+
+/**
+ * Dagre's own first ordering (depth-first from each rank's nodes in turn,
+ * which keeps a tree free of crossings), without the crossing-reduction sweeps
+ * and without building the per-rank graphs that only those sweeps read.
+ */
+function depthFirstOrder(g: Graph): void {
+  const byRank: string[][] = [];
+  const seen = new Set<string>();
+  const visit = (v: string) => {
+    if (seen.has(v)) return;
+    seen.add(v);
+    const rank = (g.node(v) as { rank: number }).rank;
+    (byRank[rank] ??= []).push(v);
+    for (const w of g.successors(v) ?? []) visit(w);
+  };
+  const simple = g.nodes().filter((v) => g.children(v).length === 0);
+  simple.sort((a, b) => (g.node(a) as { rank: number }).rank - (g.node(b) as { rank: number }).rank);
+  for (const v of simple) visit(v);
+  for (const layer of byRank) layer?.forEach((v, i) => ((g.node(v) as { order: number }).order = i));
 }

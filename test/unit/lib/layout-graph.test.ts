@@ -1,4 +1,5 @@
 import { fc, test } from "@fast-check/vitest";
+import dagre from "@dagrejs/dagre";
 import { describe, expect } from "vitest";
 import { layoutGraph, type LayoutEdge, type LayoutNode, type LayoutOptions } from "@/lib/layout-graph";
 
@@ -101,6 +102,22 @@ describe("layoutGraph", () => {
         if (a.id >= b.id || s1!.x !== s2!.x || t1!.x !== t2!.x) continue;
         expect((s1!.y - s2!.y) * (t1!.y - t2!.y), `${a.id} crosses ${b.id}`).toBeGreaterThanOrEqual(0);
       }
+    }
+  });
+
+  // Reference: dagre itself. The fast effort orders each rank with its own
+  // depth-first pass; dagre's `disableOptimalOrderHeuristic` keeps the same
+  // first order, so the two must place every node at the same point.
+  test.prop([graphArb], { numRuns: 100 })("the fast order places nodes as dagre's own first order does", ({ nodes, edges }) => {
+    const g = new dagre.graphlib.Graph({ multigraph: true });
+    g.setGraph({ rankdir: "LR", nodesep: 24, ranksep: 72, marginx: 0, marginy: 0, ranker: "tight-tree" });
+    g.setDefaultEdgeLabel(() => ({}));
+    for (const n of nodes) g.setNode(n.id, { width: n.width, height: n.height });
+    for (const e of edges) if (e.source !== e.target) g.setEdge(e.source, e.target, {}, e.id);
+    dagre.layout(g, { disableOptimalOrderHeuristic: true });
+    for (const p of layoutGraph(nodes, edges, "LR", { effort: "fast" })) {
+      const d = g.node(p.id) as { x: number; y: number };
+      expect({ x: p.x, y: p.y }, p.id).toEqual({ x: d.x - p.width / 2, y: d.y - p.height / 2 });
     }
   });
 
