@@ -3,6 +3,7 @@
 // on them. Starts its own MariaDB (port 3327, .data/bench-mariadb), builds,
 // serves on 127.0.0.1:3400, and stops both when done.
 import { execFileSync, spawn, type ChildProcess } from "node:child_process";
+import { writeFileSync } from "node:fs";
 import { chromium, type Page } from "@playwright/test";
 import { openDb } from "../../src/server/db";
 import { migrateDatabase } from "../../src/server/db/migrate";
@@ -43,9 +44,20 @@ async function waitFor(url: string, ms: number) {
   throw new Error(`${url} did not answer in ${ms} ms`);
 }
 
-/** Waits for the named measure to appear after `act`, and returns its duration. */
+/**
+ * Waits for the named measure to appear after `act`, and returns its duration.
+ * Each act starts on a settled page (two frames and 50 ms after the last), as
+ * a person's clicks do, so work a previous act left for later is not counted.
+ */
 async function measured(page: Page, name: string, act: () => Promise<void>): Promise<number> {
-  await page.evaluate((n) => performance.clearMeasures(n), name);
+  await page.evaluate(
+    (n) =>
+      new Promise<void>((settled) => {
+        performance.clearMeasures(n);
+        requestAnimationFrame(() => requestAnimationFrame(() => setTimeout(settled, 50)));
+      }),
+    name,
+  );
   await act();
   await page.waitForFunction((n) => performance.getEntriesByName(n, "measure").length > 0, name, { timeout: 10_000 });
   return page.evaluate((n) => performance.getEntriesByName(n, "measure").at(-1)!.duration, name);
@@ -62,17 +74,77 @@ async function profileSelects(page: Page, ids: string[]) {
     await measured(page, "framefork:select", () => page.locator(`[data-node-id="${id}"]`).dispatchEvent("click"));
   }
   const { profile } = (await cdp.send("Profiler.stop")) as {
-    profile: { nodes: { id: number; callFrame: { functionName: string; url: string; lineNumber: number } }[]; samples: number[]; timeDeltas: number[] };
+    profile: {
+      nodes: { id: number; children?: number[]; callFrame: { functionName: string; url: string; lineNumber: number } }[];
+      samples: number[];
+      timeDeltas: number[];
+    };
   };
+  if (process.env.BENCH_PROFILE_DUMP) writeFileSync(process.env.BENCH_PROFILE_DUMP, JSON.stringify(profile));
   const self = new Map<number, number>();
   profile.samples.forEach((id, i) => self.set(id, (self.get(id) ?? 0) + (profile.timeDeltas[i] ?? 0)));
-  const byName = new Map<string, number>();
-  for (const n of profile.nodes) {
-    const key = `${n.callFrame.functionName || "(anonymous)"} ${n.callFrame.url.split("/").pop()}:${n.callFrame.lineNumber}`;
-    byName.set(key, (byName.get(key) ?? 0) + (self.get(n.id) ?? 0) / 1000);
+  const byId = new Map(profile.nodes.map((n) => [n.id, n]));
+  const parent = new Map<number, number>();
+  for (const n of profile.nodes) for (const c of n.children ?? []) parent.set(c, n.id);
+  const nameOf = (id: number) => {
+    const f = byId.get(id)!.callFrame;
+    return `${f.functionName || "(anonymous)"} ${f.url.split("/").pop()}:${f.lineNumber}`;
+  };
+  const selfByName = new Map<string, number>();
+  const totalByName = new Map<string, number>();
+  for (const [id, us] of self) {
+    const ms = us / 1000;
+    selfByName.set(nameOf(id), (selfByName.get(nameOf(id)) ?? 0) + ms);
+    // Inclusive: each function on the sample's stack, once.
+    const onStack = new Set<string>();
+    for (let at: number | undefined = id; at !== undefined; at = parent.get(at)) onStack.add(nameOf(at));
+    for (const name of onStack) totalByName.set(name, (totalByName.get(name) ?? 0) + ms);
   }
+  const top = (m: Map<string, number>, n: number) => [...m].sort((a, b) => b[1] - a[1]).slice(0, n);
   console.log("profile of 10 selects, self time (ms):");
-  for (const [name, ms] of [...byName].sort((a, b) => b[1] - a[1]).slice(0, 15)) console.log(`  ${ms.toFixed(1).padStart(8)}  ${name}`);
+  for (const [name, ms] of top(selfByName, 15)) console.log(`  ${ms.toFixed(1).padStart(8)}  ${name}`);
+  console.log("profile of 10 selects, total time with callees (ms):");
+  for (const [name, ms] of top(totalByName, Number(process.env.BENCH_PROFILE_LINES ?? 40))) console.log(`  ${ms.toFixed(1).padStart(8)}  ${name}`);
+}
+
+/**
+ * `--trace`: a Chromium trace of ten clicks. Sums the time of each kind of
+ * event (main thread, raster and compositor) that starts inside a select's
+ * measure, from the click to the paint of the card; nested events count in
+ * each of their ancestors.
+ */
+async function traceSelects(page: Page, ids: string[]) {
+  const browser = page.context().browser()!;
+  await browser.startTracing(page, { categories: ["devtools.timeline", "disabled-by-default-devtools.timeline", "v8.execute", "blink.user_timing"] });
+  for (let i = 0; i < 10; i++) {
+    const id = ids[(i * 53 + 11) % ids.length]!;
+    await measured(page, "framefork:select", () => page.locator(`[data-node-id="${id}"]`).dispatchEvent("click"));
+  }
+  type TraceEvent = { name: string; ph: string; ts: number; dur?: number; pid: number; tid: number; id2?: { local?: string }; id?: string; args?: { name?: string } };
+  const { traceEvents } = JSON.parse((await browser.stopTracing()).toString("utf8")) as { traceEvents: TraceEvent[] };
+  const windows: [number, number][] = [];
+  const open = new Map<string, number>();
+  for (const e of traceEvents) {
+    if (e.name !== "framefork:select") continue;
+    const key = e.id2?.local ?? e.id ?? "";
+    if (e.ph === "b") open.set(key, e.ts);
+    else if (e.ph === "e" && open.has(key)) windows.push([open.get(key)!, e.ts]);
+  }
+  const threads = new Map<string, string>();
+  for (const e of traceEvents) if (e.ph === "M" && e.name === "thread_name") threads.set(`${e.pid}:${e.tid}`, e.args?.name ?? "");
+  const byName = new Map<string, number>();
+  for (const e of traceEvents) {
+    if (e.ph !== "X" || e.dur === undefined || !windows.some(([a, b]) => e.ts >= a && e.ts < b)) continue;
+    const key = `${threads.get(`${e.pid}:${e.tid}`) ?? "?"} ${e.name}`;
+    byName.set(key, (byName.get(key) ?? 0) + e.dur / 1000);
+  }
+  const spans = windows.map(([a, b]) => (b - a) / 1000);
+  console.log(`trace of ${windows.length} selects (${spans.map((ms) => ms.toFixed(0)).join(", ")} ms), time per event inside them (ms, per select):`);
+  for (const [name, ms] of [...byName].sort((a, b) => b[1] - a[1]).slice(0, 25)) console.log(`  ${(ms / Math.max(1, windows.length)).toFixed(2).padStart(8)}  ${name}`);
+  if (process.env.BENCH_TRACE_DUMP) {
+    const inside = traceEvents.filter((e) => e.ph === "X" && windows.some(([a, b]) => e.ts >= a && e.ts < b) && threads.get(`${e.pid}:${e.tid}`) === "CrRendererMain");
+    writeFileSync(process.env.BENCH_TRACE_DUMP, JSON.stringify({ windows, events: inside }));
+  }
 }
 
 async function main() {
@@ -134,6 +206,7 @@ async function main() {
     const layoutsDuringSelects = await page.evaluate(() => performance.getEntriesByName("framefork:layout", "measure").length);
 
     if (process.argv.includes("--profile")) await profileSelects(page, ids);
+    if (process.argv.includes("--trace")) await traceSelects(page, ids);
 
     const recomputes: number[] = [];
     const fastest = page.getByRole("spinbutton", { name: "Opponent's fastest" });

@@ -61,12 +61,16 @@ export interface ExplorerPaths {
   truncated: boolean;
   /** Paths by the node they end at, shortest first. */
   byEnd: Map<string, PathResult[]>;
+  /** Paths by {@link pathKey}, so a selection is found without a scan. */
+  byKey: Map<string, PathResult>;
 }
 
 export function computePaths(graph: MoveGraph, rootId: string, options: ExploreOptions): ExplorerPaths {
   const { paths, truncated } = explorePathsLimited(graph, rootId, EXPLORER_PATH_LIMIT, options);
   const byEnd = new Map<string, PathResult[]>();
+  const byKey = new Map<string, PathResult>();
   for (const p of paths) {
+    byKey.set(pathKey(p), p);
     const end = p.nodes[p.nodes.length - 1]!;
     const list = byEnd.get(end);
     if (list) list.push(p);
@@ -74,7 +78,7 @@ export function computePaths(graph: MoveGraph, rootId: string, options: ExploreO
   }
   // Stable: among paths of one length, the walk's own order (the graph's edge order).
   for (const list of byEnd.values()) list.sort((a, b) => a.nodes.length - b.nodes.length);
-  return { paths, truncated, byEnd };
+  return { paths, truncated, byEnd, byKey };
 }
 
 /** A path's identity in the URL: its edge ids (a node id alone is ambiguous in stance cycles). */

@@ -3,6 +3,8 @@
  * `start` when the user acts, `finish` after the next paint. Both are no-ops
  * where the Performance API is missing, and cost one entry otherwise.
  */
+import { afterNextPaint } from "./after-paint";
+
 const PREFIX = "framefork:";
 
 export function startTiming(name: "select" | "recompute" | "layout"): void {
@@ -15,12 +17,9 @@ export function finishTimingAfterPaint(name: "select" | "recompute" | "layout"):
   if (typeof performance === "undefined" || typeof requestAnimationFrame === "undefined") return;
   const start = `${PREFIX}${name}:start`;
   if (performance.getEntriesByName(start, "mark").length === 0) return;
-  // The frame after the next animation frame has been painted.
-  requestAnimationFrame(() =>
-    setTimeout(() => {
-      if (performance.getEntriesByName(start, "mark").length === 0) return;
-      performance.measure(`${PREFIX}${name}`, start);
-      performance.clearMarks(start);
-    }, 0),
-  );
+  afterNextPaint(() => {
+    if (performance.getEntriesByName(start, "mark").length === 0) return;
+    performance.measure(`${PREFIX}${name}`, start);
+    performance.clearMarks(start);
+  });
 }

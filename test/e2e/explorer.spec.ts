@@ -42,6 +42,27 @@ test("a player opens a string from the move list, picks a node and reads its pat
   await expect(explorer.field("autoGuard")).toContainText("high, mid");
 });
 
+test("a figure explains itself on focus and on hover (a tap on a phone), and hides again", async ({ page, hasTouch }) => {
+  const explorer = new ExplorerPage(page);
+  await page.goto("/games/vesper-circuit/tarrow/explore/2");
+  await explorer.node("2,2,3").click();
+  const why = explorer.explanation("onBlock");
+  await expect(why).toBeHidden();
+
+  await explorer.field("onBlock").locator("xpath=..").focus();
+  await expect(why).toBeVisible();
+  await expect(why).toContainText(`${signed(await onBlock("2,2,3"))} on block`);
+  // The figure's accessible description is the same text.
+  await expect(explorer.field("onBlock").locator("xpath=..")).toHaveAccessibleDescription(/./);
+
+  await page.keyboard.press("Tab");
+  await expect(why).toBeHidden();
+  // A touch screen has no hover: a tap focuses the figure instead.
+  if (hasTouch) await explorer.field("onBlock").tap();
+  else await explorer.field("onBlock").hover();
+  await expect(why).toBeVisible();
+});
+
 test("the selected path and the options survive a reload, and an option recomputes at once", async ({ page }) => {
   const explorer = new ExplorerPage(page);
   await page.goto("/games/vesper-circuit/tarrow/explore/2");
@@ -87,6 +108,9 @@ test("a blocked low leaves the defender crouching, and the card lists the punish
        join editions e on e.id = m.edition_id
      where c.slug = 'tarrow' and e.slug = '1-1' and m.startup is not null and m.stance_id is null`,
   );
+  // A long list starts folded to the best few; unfold it to read every punisher.
+  const more = panel.getByRole("button", { name: /^Show all \d+$/ }).first();
+  if (await more.isVisible()) await more.click();
   const listed = await panel.locator("[data-testid=punishers] [data-option]").evaluateAll((els) => els.map((e) => e.getAttribute("data-option")));
   const expected = startups.filter((m) => m.startup <= 13 && m.from_posture !== "standing").map((m) => m.input);
   expect(listed.sort()).toEqual(expected.sort());

@@ -50,10 +50,12 @@ export function ExplorerView({ characterId, root, pinned = false, share }: Explo
   }, [sub, data, root, options, launchAt]);
 
   const selected = useMemo(
-    () => (selectedKey === null ? null : (computed?.paths.find((p) => pathKey(p) === selectedKey) ?? null)),
+    () => (selectedKey === null ? null : (computed?.byKey.get(selectedKey) ?? null)),
     [computed, selectedKey],
   );
   const alternatives = selected ? (computed?.byEnd.get(selected.nodes[selected.nodes.length - 1]!) ?? []) : [];
+
+  const shareButton = useMemo(() => (share ? <ShareButton teams={share.teams} characterId={characterId} root={root} /> : null), [share, characterId, root]);
 
   useEffect(() => finishTimingAfterPaint("select"), [selected]);
   useEffect(() => finishTimingAfterPaint("recompute"), [computed]);
@@ -133,7 +135,7 @@ export function ExplorerView({ characterId, root, pinned = false, share }: Explo
               }
             : undefined
         }
-        actions={share ? <ShareButton teams={share.teams} characterId={characterId} root={root} /> : null}
+        actions={shareButton}
       />
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="min-w-0 space-y-3">
@@ -149,7 +151,9 @@ export function ExplorerView({ characterId, root, pinned = false, share }: Explo
           </div>
           {selected ? <FrameTimeline path={selected} graph={sub} rules={rules} /> : null}
         </div>
-        <div className="space-y-4">
+        {/* Beside the graph on a wide screen, as tall as it and scrolling on its own: a new
+            selection then lays out this column alone, not the page. Below the graph on a phone. */}
+        <div className="space-y-4 lg:h-[68vh] lg:overflow-y-auto lg:p-1 lg:[contain:strict]" data-testid="path-column">
           {selected ? (
             <>
               <PathCard

@@ -1,3 +1,4 @@
+import { memo } from "react";
 import { LevelBadge } from "@/components/ui/level-badge";
 import { LEVELS } from "@/lib/engine";
 
@@ -21,7 +22,8 @@ function Line({ dash, color, label }: { dash?: string; color: string; label: str
 }
 
 /** Every colour and line style of the graph, in words. */
-export function Legend() {
+/** Static: memoised, so a selection does not re-render it. */
+export const Legend = memo(function Legend() {
   return (
     <details className="rounded-lg border border-ink-800 bg-ink-900 px-3 py-2 text-xs text-ink-300" open>
       <summary className="cursor-pointer text-ink-400">Legend</summary>
@@ -53,4 +55,4 @@ export function Legend() {
       </div>
     </details>
   );
-}
+});

@@ -1,7 +1,7 @@
 "use client";
 
 import Link from "next/link";
-import type { ReactNode } from "react";
+import { memo, type ReactNode } from "react";
 import { useExplorerStore } from "@/components/providers/explorer-store-provider";
 import type { EditionRef } from "@/lib/explorer";
 import { startTiming } from "@/lib/timing";
@@ -40,7 +40,8 @@ function NumberField({
   );
 }
 
-export function OptionsBar({
+/** Memoised: a selection changes none of its props. */
+export const OptionsBar = memo(function OptionsBar({
   editions,
   edition,
   pathCount,
@@ -118,4 +119,4 @@ export function OptionsBar({
       {actions ? <span className="ml-auto flex items-center gap-2">{actions}</span> : null}
     </form>
   );
-}
+});

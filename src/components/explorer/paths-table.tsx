@@ -1,6 +1,7 @@
 "use client";
 
 import { useVirtualizer, type Virtualizer } from "@tanstack/react-virtual";
+import { afterNextPaint } from "@/lib/after-paint";
 import { memo, useEffect, useMemo, useRef, useState, type JSX, type KeyboardEvent } from "react";
 import {
   createColumnHelper,
@@ -249,8 +250,11 @@ export function PathsTable(props: {
     // Server render and the first paint before the box is measured: a screenful of rows.
     initialRect: { width: 0, height: 384 },
   });
+  // Once the selection is painted: the card and the highlight come first, the table's scroll
+  // (and the rows it brings in) in the frame after.
   useEffect(() => {
-    if (selectedIndex >= 0) keepRowInView(virtualizer, selectedIndex);
+    if (selectedIndex < 0) return;
+    return afterNextPaint(() => keepRowInView(virtualizer, selectedIndex));
   }, [selectedIndex, virtualizer]);
   const items = virtualizer.getVirtualItems();
   const padTop = items[0]?.start ?? 0;

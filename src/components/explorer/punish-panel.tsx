@@ -1,6 +1,6 @@
 "use client";
 
-import { useMemo } from "react";
+import { useMemo, useState, type ReactNode } from "react";
 import useSWR from "swr";
 import { useExplorerStore } from "@/components/providers/explorer-store-provider";
 import { Explained } from "@/components/ui/explained";
@@ -22,6 +22,27 @@ function OptionRow({ o, children }: { o: Option; children: React.ReactNode }) {
   );
 }
 
+/** Lists past this many rows start folded: the best come first, and the rest are one click away. */
+export const SHORT_LIST = 8;
+
+/** The first {@link SHORT_LIST} rows of a ranked list, and a button for the rest. */
+function ShortList<T>({ items, render, testId }: { items: readonly T[]; render: (item: T) => ReactNode; testId?: string }) {
+  const [open, setOpen] = useState(false);
+  const shown = open ? items : items.slice(0, SHORT_LIST);
+  return (
+    <>
+      <ul className="mt-1" data-testid={testId}>
+        {shown.map(render)}
+      </ul>
+      {items.length > SHORT_LIST && (
+        <button type="button" aria-expanded={open} onClick={() => setOpen((o) => !o)} className="mt-1 text-xs text-accent underline underline-offset-2">
+          {open ? `Show the best ${SHORT_LIST}` : `Show all ${items.length}`}
+        </button>
+      )}
+    </>
+  );
+}
+
 function FollowUps({ label, advantage, list, fastest }: { label: string; advantage: PathResult["onHit"]; list: FollowUpOption[]; fastest: number }) {
   return (
     <div data-follow-ups={label}>
@@ -33,8 +54,9 @@ function FollowUps({ label, advantage, list, fastest }: { label: string; advanta
       ) : list.length === 0 ? (
         <p className="text-sm text-ink-300">Nothing is guaranteed or a frame trap from here.</p>
       ) : (
-        <ul>
-          {list.map((o) => (
+        <ShortList
+          items={list}
+          render={(o) => (
             <OptionRow key={o.id} o={o}>
               <Explained
                 explain={
@@ -49,8 +71,8 @@ function FollowUps({ label, advantage, list, fastest }: { label: string; advanta
                 · {o.startup}f · {o.damage}
               </Explained>
             </OptionRow>
-          ))}
-        </ul>
+          )}
+        />
       )}
     </div>
   );
@@ -114,8 +136,10 @@ export function PunishPanel({ path, data, fastest }: { path: PathResult; data: G
           <p className="text-sm text-ink-300" data-testid="punish-verdict">
             At {formatFrames(a)}, {opponent?.character.name} ({path.defenderStance}) punishes with:
           </p>
-          <ul className="mt-1" data-testid="punishers">
-            {punishers.map((o) => (
+          <ShortList
+            testId="punishers"
+            items={punishers}
+            render={(o) => (
               <OptionRow key={o.id} o={o}>
                 <Explained
                   explain={`Startup ${o.startup} ≤ ${-a}: it lands before you recover. Can be done ${o.from === "any" ? "standing or crouching" : o.from}; ${o.damage} damage as ${o.comboInput}.`}
@@ -123,8 +147,8 @@ export function PunishPanel({ path, data, fastest }: { path: PathResult; data: G
                   {o.startup}f · {o.damage} dmg · {o.from}
                 </Explained>
               </OptionRow>
-            ))}
-          </ul>
+            )}
+          />
         </div>
       )}
       <div className="space-y-2 border-t border-ink-800 pt-2">

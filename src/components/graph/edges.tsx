@@ -45,7 +45,7 @@ export type MoveFlowEdge = Edge<{ kind: EdgeKind; label: string | null }, "move"
  * change), and labels are HTML, so drawing one never measures SVG text.
  */
 function MoveEdgeView({ id, data, sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition }: EdgeProps<MoveFlowEdge>) {
-  const onPath = useCanvas((m) => m.pathEdges.has(id));
+  const onPath = useCanvas(id, (m) => m.pathEdges.has(id));
   const kind = data?.kind ?? "follow";
   const geometry = { sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition };
   const [path, labelX, labelY] = kind === "follow" ? getBezierPath(geometry) : getSmoothStepPath(geometry);

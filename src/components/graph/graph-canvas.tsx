@@ -2,13 +2,14 @@
 
 import "@xyflow/react/dist/style.css";
 import { Background, Controls, MiniMap, ReactFlow, ViewportPortal } from "@xyflow/react";
-import { useLayoutEffect, useMemo, useState, type KeyboardEvent } from "react";
+import { useCallback, useLayoutEffect, useMemo, useRef, useState, type KeyboardEvent } from "react";
 import { ExportButton } from "./export-button";
 import type { BlockRules } from "@/components/ui/block-class";
 import type { MoveGraph, PathResult } from "@/lib/engine";
 import { layoutGraph } from "@/lib/layout-graph";
 import { ArrowDefs, edgeTypes, type MoveFlowEdge } from "./edges";
-import { CanvasContext, MOVE_SIZE, STANCE_SIZE, createCanvasStore, nodeTypes, type CanvasMarks, type MoveFlowNode, type StanceFlowNode } from "./nodes";
+import { createCanvasStore, type CanvasMarks } from "./canvas-store";
+import { CanvasContext, MOVE_SIZE, STANCE_SIZE, nodeTypes, type MoveFlowNode, type StanceFlowNode } from "./nodes";
 
 /** The frames a cancel saves over stopping at the hit it ends, when both are numbers. */
 export function cancelSaves(graph: MoveGraph, edge: MoveGraph["edges"][number]): number | null {
@@ -16,6 +17,10 @@ export function cancelSaves(graph: MoveGraph, edge: MoveGraph["edges"][number]):
   const from = graph.nodes.find((n) => n.id === edge.from);
   return from?.kind === "move" && typeof from.onBlock === "number" ? edge.onBlock - from.onBlock : null;
 }
+
+// Props React Flow compares by identity: one object for the life of the page.
+const FIT_VIEW_OPTIONS = { padding: 0.15 };
+const PRO_OPTIONS = { hideAttribution: false };
 
 export function GraphCanvas({
   graph,
@@ -48,6 +53,13 @@ export function GraphCanvas({
     performance.measure("framefork:layout", { start: started, end: performance.now() });
     return new Map(placed.map((p) => [p.id, p]));
   }, [graph]);
+
+  // One click handler for the life of the canvas: a new one would re-render every node.
+  const selectRef = useRef(onSelectNode);
+  useLayoutEffect(() => {
+    selectRef.current = onSelectNode;
+  }, [onSelectNode]);
+  const onNodeClick = useCallback((_: unknown, node: { id: string }) => selectRef.current(node.id), []);
 
   const [focused, setFocused] = useState<string | null>(null);
   const current = focused ?? selected?.nodes[selected.nodes.length - 1] ?? graph.nodes[0]?.id ?? null;
@@ -83,7 +95,7 @@ export function GraphCanvas({
     [rules.fastest, rules.launchAt, selected, current],
   );
   const [canvasStore] = useState(() => createCanvasStore(marks));
-  useLayoutEffect(() => canvasStore.setState(marks, true), [canvasStore, marks]);
+  useLayoutEffect(() => canvasStore.setState(marks), [canvasStore, marks]);
 
   const nodes = useMemo(
     () =>
@@ -109,6 +121,39 @@ export function GraphCanvas({
     [graph],
   );
 
+  // The same element while the graph is the same: a click re-renders the canvas store's few
+  // subscribers, not React Flow and its panels.
+  const large = graph.nodes.length > 24;
+  const flow = useMemo(
+    () => (
+      <ReactFlow
+        nodes={nodes}
+        edges={edges}
+        nodeTypes={nodeTypes}
+        edgeTypes={edgeTypes}
+        colorMode="dark"
+        fitView
+        fitViewOptions={FIT_VIEW_OPTIONS}
+        minZoom={0.2}
+        nodesDraggable={false}
+        nodesConnectable={false}
+        elementsSelectable={false}
+        onNodeClick={onNodeClick}
+        proOptions={PRO_OPTIONS}
+      >
+        {/* Inside the viewport, so the PNG export carries the arrowheads too. */}
+        <ViewportPortal>
+          <ArrowDefs />
+        </ViewportPortal>
+        <Background color="#283040" gap={24} />
+        <Controls showInteractive={false} position="bottom-left" />
+        <ExportButton fileName={exportName} />
+        {large && <MiniMap pannable zoomable position="bottom-right" nodeColor="#3a4458" maskColor="rgba(11,13,18,0.7)" />}
+      </ReactFlow>
+    ),
+    [nodes, edges, onNodeClick, exportName, large],
+  );
+
   const focusedNode = graph.nodes.find((n) => n.id === current);
   return (
     <CanvasContext value={canvasStore}>
@@ -123,30 +168,7 @@ export function GraphCanvas({
         <span id="graph-focus" className="sr-only" aria-live="polite">
           {focusedNode ? (focusedNode.kind === "move" ? `${focusedNode.input}, ${focusedNode.level}` : `stance ${focusedNode.name}`) : ""}
         </span>
-        <ReactFlow
-          nodes={nodes}
-          edges={edges}
-          nodeTypes={nodeTypes}
-          edgeTypes={edgeTypes}
-          colorMode="dark"
-          fitView
-          fitViewOptions={{ padding: 0.15 }}
-          minZoom={0.2}
-          nodesDraggable={false}
-          nodesConnectable={false}
-          elementsSelectable={false}
-          onNodeClick={(_, node) => onSelectNode(node.id)}
-          proOptions={{ hideAttribution: false }}
-        >
-          {/* Inside the viewport, so the PNG export carries the arrowheads too. */}
-          <ViewportPortal>
-            <ArrowDefs />
-          </ViewportPortal>
-          <Background color="#283040" gap={24} />
-          <Controls showInteractive={false} position="bottom-left" />
-          <ExportButton fileName={exportName} />
-          {graph.nodes.length > 24 && <MiniMap pannable zoomable position="bottom-right" nodeColor="#3a4458" maskColor="rgba(11,13,18,0.7)" />}
-        </ReactFlow>
+        {flow}
       </div>
     </CanvasContext>
   );

@@ -1,12 +1,12 @@
 "use client";
 
 import { Handle, Position, type Node, type NodeProps } from "@xyflow/react";
-import { createContext, memo, useContext } from "react";
-import { createStore, useStore, type StoreApi } from "zustand";
-import { BLOCK_CLASS_STYLE, BLOCK_CLASS_WORD, type BlockRules } from "@/components/ui/block-class";
+import { createContext, memo, useCallback, useContext, useSyncExternalStore } from "react";
+import { BLOCK_CLASS_STYLE, BLOCK_CLASS_WORD } from "@/components/ui/block-class";
 import { Frames } from "@/components/ui/frames";
 import { LevelBadge } from "@/components/ui/level-badge";
 import { classifyBlock, type MoveNode as EngineMove, type StanceNode as EngineStance } from "@/lib/engine";
+import type { CanvasMarks, CanvasStore } from "./canvas-store";
 
 export const MOVE_SIZE = { width: 176, height: 64 };
 export const STANCE_SIZE = { width: 168, height: 44 };
@@ -15,28 +15,18 @@ export const STANCE_SIZE = { width: 168, height: 44 };
 export type MoveFlowNode = Node<{ move: EngineMove }, "move">;
 export type StanceFlowNode = Node<{ stance: EngineStance }, "stance">;
 
-/**
- * What the canvas draws on top of the graph: the block rules and the selected
- * path. It lives in a small store of its own, not in the nodes' and edges'
- * data, so React Flow's node and edge objects never change when the user
- * selects a path or changes a rule: only the few nodes and edges whose look
- * changes re-render, and React Flow re-measures nothing.
- */
-export type CanvasMarks = BlockRules & {
-  pathNodes: ReadonlySet<string>;
-  pathEdges: ReadonlySet<string>;
-  end: string | null;
-  /** The keyboard's place in the graph. */
-  focus: string | null;
-};
-export type CanvasStore = StoreApi<CanvasMarks>;
-export const createCanvasStore = (marks: CanvasMarks): CanvasStore => createStore<CanvasMarks>()(() => marks);
 export const CanvasContext = createContext<CanvasStore | null>(null);
 
-export function useCanvas<T>(selector: (marks: CanvasMarks) => T): T {
+/**
+ * The part of the canvas marks that node or edge `id` draws. `select` must
+ * return a primitive, so an unchanged result re-renders nothing.
+ */
+export function useCanvas<T extends string | number | boolean>(id: string, select: (marks: CanvasMarks) => T): T {
   const store = useContext(CanvasContext);
   if (!store) throw new Error("Graph nodes and edges need a CanvasContext provider");
-  return useStore(store, selector);
+  const subscribe = useCallback((listener: () => void) => store.subscribe(id, listener), [store, id]);
+  const snapshot = () => select(store.getState());
+  return useSyncExternalStore(subscribe, snapshot, snapshot);
 }
 
 const ON_PATH = 1;
@@ -52,8 +42,8 @@ const ring = (bits: number) =>
 
 function MoveNodeView({ data }: NodeProps<MoveFlowNode>) {
   const { move } = data;
-  const bits = useCanvas((m) => marksOf(m, move.id));
-  const cls = useCanvas((rules) => classifyBlock(move.onBlock, rules));
+  const bits = useCanvas(move.id, (m) => marksOf(m, move.id));
+  const cls = useCanvas(move.id, (rules) => classifyBlock(move.onBlock, rules));
   return (
     <div
       data-node-id={move.id}
@@ -82,7 +72,7 @@ function MoveNodeView({ data }: NodeProps<MoveFlowNode>) {
 }
 
 function StanceNodeView({ data }: NodeProps<StanceFlowNode>) {
-  const bits = useCanvas((m) => marksOf(m, data.stance.id));
+  const bits = useCanvas(data.stance.id, (m) => marksOf(m, data.stance.id));
   return (
     <div
       data-node-id={data.stance.id}

@@ -2,7 +2,9 @@ import { useId, type ReactNode } from "react";
 
 /**
  * A figure that explains itself: the explanation shows on hover and on
- * keyboard focus, and is the figure's accessible description.
+ * keyboard focus, and is the figure's accessible description. Hidden, it is
+ * not laid out at all (display: none, which aria-describedby still reads), so
+ * a card full of figures costs no text layout for explanations nobody opened.
  */
 export function Explained({ children, explain, field }: { children: ReactNode; explain: string; field?: string }) {
   const id = useId();
@@ -12,7 +14,7 @@ export function Explained({ children, explain, field }: { children: ReactNode; e
       <span
         id={id}
         role="tooltip"
-        className="pointer-events-none invisible absolute bottom-full left-0 z-20 mb-1 w-64 rounded border border-ink-700 bg-ink-850 px-2 py-1 text-xs font-normal normal-case tracking-normal text-ink-200 opacity-0 shadow-lg transition-opacity group-hover:visible group-hover:opacity-100 group-focus:visible group-focus:opacity-100"
+        className="pointer-events-none absolute bottom-full left-0 z-20 mb-1 hidden w-64 rounded border border-ink-700 bg-ink-850 px-2 py-1 text-xs font-normal normal-case tracking-normal text-ink-200 shadow-lg group-hover:block group-focus:block"
       >
         {explain}
       </span>

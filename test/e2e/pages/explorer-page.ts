@@ -21,6 +21,11 @@ export class ExplorerPage {
     return this.card.locator(`[data-field="${name}"]`).first();
   }
 
+  /** The explanation of a Path card figure: the tooltip that describes it. */
+  explanation(name: string): Locator {
+    return this.field(name).locator("xpath=..").getByRole("tooltip");
+  }
+
   async setOption(label: string, value: number) {
     const input = this.page.getByRole("spinbutton", { name: label });
     await input.fill(String(value));

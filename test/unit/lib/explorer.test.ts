@@ -41,6 +41,13 @@ describe("computePaths", () => {
     expect(toStance.map((p) => p.input)).toEqual(["a,2~b", "a,2~b:1~b"]);
     expect(pathKey(toStance[0]!)).toBe("ab|bS");
   });
+
+  test("finds every path by its key, and only that path", () => {
+    const { paths, byKey } = computePaths(graph, "a", { maxStanceVisits: 2 });
+    expect(byKey.size).toBe(paths.length);
+    for (const p of paths) expect(byKey.get(pathKey(p))).toBe(p);
+    expect(byKey.get("ab|nope")).toBeUndefined();
+  });
 });
 
 describe("parseExplorerSearch", () => {
