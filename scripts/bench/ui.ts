@@ -63,16 +63,21 @@ async function measured(page: Page, name: string, act: () => Promise<void>): Pro
   return page.evaluate((n) => performance.getEntriesByName(n, "measure").at(-1)!.duration, name);
 }
 
+/** Ten measured clicks on nodes spread over the graph, for `--profile` and `--trace`. */
+async function tenSelects(page: Page, ids: string[]) {
+  for (let i = 0; i < 10; i++) {
+    const id = ids[(i * 53 + 11) % ids.length]!;
+    await measured(page, "framefork:select", () => page.locator(`[data-node-id="${id}"]`).dispatchEvent("click"));
+  }
+}
+
 /** `--profile`: a CPU profile of ten clicks, summed by function, to find where a select goes. */
 async function profileSelects(page: Page, ids: string[]) {
   const cdp = await page.context().newCDPSession(page);
   await cdp.send("Profiler.enable");
   await cdp.send("Profiler.setSamplingInterval", { interval: 200 });
   await cdp.send("Profiler.start");
-  for (let i = 0; i < 10; i++) {
-    const id = ids[(i * 53 + 11) % ids.length]!;
-    await measured(page, "framefork:select", () => page.locator(`[data-node-id="${id}"]`).dispatchEvent("click"));
-  }
+  await tenSelects(page, ids);
   const { profile } = (await cdp.send("Profiler.stop")) as {
     profile: {
       nodes: { id: number; children?: number[]; callFrame: { functionName: string; url: string; lineNumber: number } }[];
@@ -116,10 +121,7 @@ async function profileSelects(page: Page, ids: string[]) {
 async function traceSelects(page: Page, ids: string[]) {
   const browser = page.context().browser()!;
   await browser.startTracing(page, { categories: ["devtools.timeline", "disabled-by-default-devtools.timeline", "v8.execute", "blink.user_timing"] });
-  for (let i = 0; i < 10; i++) {
-    const id = ids[(i * 53 + 11) % ids.length]!;
-    await measured(page, "framefork:select", () => page.locator(`[data-node-id="${id}"]`).dispatchEvent("click"));
-  }
+  await tenSelects(page, ids);
   type TraceEvent = { name: string; ph: string; ts: number; dur?: number; pid: number; tid: number; id2?: { local?: string }; id?: string; args?: { name?: string } };
   const { traceEvents } = JSON.parse((await browser.stopTracing()).toString("utf8")) as { traceEvents: TraceEvent[] };
   const windows: [number, number][] = [];
@@ -132,18 +134,18 @@ async function traceSelects(page: Page, ids: string[]) {
   }
   const threads = new Map<string, string>();
   for (const e of traceEvents) if (e.ph === "M" && e.name === "thread_name") threads.set(`${e.pid}:${e.tid}`, e.args?.name ?? "");
+  const inside = traceEvents.filter((e) => e.ph === "X" && e.dur !== undefined && windows.some(([a, b]) => e.ts >= a && e.ts < b));
   const byName = new Map<string, number>();
-  for (const e of traceEvents) {
-    if (e.ph !== "X" || e.dur === undefined || !windows.some(([a, b]) => e.ts >= a && e.ts < b)) continue;
+  for (const e of inside) {
     const key = `${threads.get(`${e.pid}:${e.tid}`) ?? "?"} ${e.name}`;
-    byName.set(key, (byName.get(key) ?? 0) + e.dur / 1000);
+    byName.set(key, (byName.get(key) ?? 0) + e.dur! / 1000);
   }
   const spans = windows.map(([a, b]) => (b - a) / 1000);
   console.log(`trace of ${windows.length} selects (${spans.map((ms) => ms.toFixed(0)).join(", ")} ms), time per event inside them (ms, per select):`);
   for (const [name, ms] of [...byName].sort((a, b) => b[1] - a[1]).slice(0, 25)) console.log(`  ${(ms / Math.max(1, windows.length)).toFixed(2).padStart(8)}  ${name}`);
   if (process.env.BENCH_TRACE_DUMP) {
-    const inside = traceEvents.filter((e) => e.ph === "X" && windows.some(([a, b]) => e.ts >= a && e.ts < b) && threads.get(`${e.pid}:${e.tid}`) === "CrRendererMain");
-    writeFileSync(process.env.BENCH_TRACE_DUMP, JSON.stringify({ windows, events: inside }));
+    const main = inside.filter((e) => threads.get(`${e.pid}:${e.tid}`) === "CrRendererMain");
+    writeFileSync(process.env.BENCH_TRACE_DUMP, JSON.stringify({ windows, events: main }));
   }
 }
 

@@ -122,6 +122,28 @@ test("a blocked low leaves the defender crouching, and the card lists the punish
   await expect(panel.getByTestId("punish-verdict")).toContainText("Velka");
 });
 
+test("a long follow-up list shows the best 8 first and unfolds to all of them", async ({ page }) => {
+  const explorer = new ExplorerPage(page);
+  await page.goto("/games/vesper-circuit/tarrow/explore/1");
+  await explorer.node("1").click(); // the first hit alone: after it, ten of the character's moves are guaranteed or frame traps
+  const list = page.locator("[data-follow-ups='a hit']");
+  const rows = list.locator("[data-option]");
+  const more = list.getByRole("button", { name: /^Show all \d+$/ });
+  await expect(rows).toHaveCount(8);
+  const best = await rows.evaluateAll((els) => els.map((e) => e.getAttribute("data-option")));
+
+  const total = Number((await more.textContent())!.match(/\d+/)![0]);
+  expect(total).toBeGreaterThan(8);
+  await more.click();
+  await expect(rows).toHaveCount(total);
+  // Unfolding adds the rest below; the best stay first, in their order.
+  expect((await rows.evaluateAll((els) => els.map((e) => e.getAttribute("data-option")))).slice(0, 8)).toEqual(best);
+  await expect(list.getByRole("button", { name: "Show the best 8" })).toHaveAttribute("aria-expanded", "true");
+
+  await list.getByRole("button", { name: "Show the best 8" }).click();
+  await expect(rows).toHaveCount(8);
+});
+
 test("the table of all paths filters, and selecting a row selects the path in the graph and back", async ({ page }) => {
   const explorer = new ExplorerPage(page);
   await page.goto("/games/vesper-circuit/tarrow/explore/2");

@@ -21,8 +21,7 @@ function Line({ dash, color, label }: { dash?: string; color: string; label: str
   );
 }
 
-/** Every colour and line style of the graph, in words. */
-/** Static: memoised, so a selection does not re-render it. */
+/** Every colour and line style of the graph, in words. Static: memoised, so a selection does not re-render it. */
 export const Legend = memo(function Legend() {
   return (
     <details className="rounded-lg border border-ink-800 bg-ink-900 px-3 py-2 text-xs text-ink-300" open>

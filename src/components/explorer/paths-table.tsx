@@ -1,7 +1,6 @@
 "use client";
 
 import { useVirtualizer, type Virtualizer } from "@tanstack/react-virtual";
-import { afterNextPaint } from "@/lib/after-paint";
 import { memo, useEffect, useMemo, useRef, useState, type JSX, type KeyboardEvent } from "react";
 import {
   createColumnHelper,
@@ -17,6 +16,7 @@ import {
 import { BLOCK_CLASS_STYLE, BLOCK_CLASS_WORD, explainBlock, type BlockRules } from "@/components/ui/block-class";
 import { Frames } from "@/components/ui/frames";
 import { LevelBadge } from "@/components/ui/level-badge";
+import { afterNextPaint } from "@/lib/after-paint";
 import type { BlockClass, PathResult } from "@/lib/engine";
 import { pathKey } from "@/lib/explorer";
 import { formatFrames, formatOutcome } from "@/lib/format";

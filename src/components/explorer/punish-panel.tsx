@@ -23,7 +23,7 @@ function OptionRow({ o, children }: { o: Option; children: React.ReactNode }) {
 }
 
 /** Lists past this many rows start folded: the best come first, and the rest are one click away. */
-export const SHORT_LIST = 8;
+const SHORT_LIST = 8;
 
 /** The first {@link SHORT_LIST} rows of a ranked list, and a button for the rest. */
 function ShortList<T>({ items, render, testId }: { items: readonly T[]; render: (item: T) => ReactNode; testId?: string }) {

@@ -36,16 +36,15 @@ export function changedIds(prev: CanvasMarks, next: CanvasMarks): ReadonlySet<st
     for (const id of a) if (!b.has(id)) ids.add(id);
     for (const id of b) if (!a.has(id)) ids.add(id);
   };
+  const one = (a: string | null, b: string | null) => {
+    if (a === b) return;
+    if (a !== null) ids.add(a);
+    if (b !== null) ids.add(b);
+  };
   diff(prev.pathNodes, next.pathNodes);
   diff(prev.pathEdges, next.pathEdges);
-  for (const [a, b] of [
-    [prev.end, next.end],
-    [prev.focus, next.focus],
-  ]) {
-    if (a === b) continue;
-    if (a !== null && a !== undefined) ids.add(a);
-    if (b !== null && b !== undefined) ids.add(b);
-  }
+  one(prev.end, next.end);
+  one(prev.focus, next.focus);
   return ids;
 }
 
