@@ -1,3 +1,5 @@
+import { useEffect, useState } from "react";
+
 /**
  * Runs `fn` once the browser has painted the next frame: a task queued from
  * that frame's animation callback runs after its paint. Returns a cancel.
@@ -13,4 +15,17 @@ export function afterNextPaint(fn: () => void): () => void {
     cancelAnimationFrame(frame);
     if (timer !== undefined) clearTimeout(timer);
   };
+}
+
+/**
+ * `value`, one painted frame late: for a part of the page that should follow
+ * a change without holding up the paint of what the user acted on.
+ */
+export function useAfterPaint<T>(value: T): T {
+  const [shown, setShown] = useState(value);
+  useEffect(() => {
+    if (Object.is(shown, value)) return;
+    return afterNextPaint(() => setShown(value));
+  }, [shown, value]);
+  return shown;
 }

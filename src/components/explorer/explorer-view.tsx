@@ -9,6 +9,7 @@ import type { AppError } from "@/lib/errors";
 import { computePaths, graphUrl, pathKey, reachableSubgraph, type GraphResponse } from "@/lib/explorer";
 import { fetcher } from "@/lib/fetcher";
 import { explorerHref, explorerStateToView } from "@/lib/permalink";
+import { useAfterPaint } from "@/lib/after-paint";
 import { finishTimingAfterPaint, startTiming } from "@/lib/timing";
 import { FrameTimeline } from "./frame-timeline";
 import { Legend } from "./legend";
@@ -53,6 +54,9 @@ export function ExplorerView({ characterId, root, pinned = false, share }: Explo
     () => (selectedKey === null ? null : (computed?.byKey.get(selectedKey) ?? null)),
     [computed, selectedKey],
   );
+  // The table sits below the graph: its row highlight follows one frame after the card, so a
+  // click paints the card without waiting for the table to re-render and repaint.
+  const tableKey = useAfterPaint(selectedKey);
   const alternatives = selected ? (computed?.byEnd.get(selected.nodes[selected.nodes.length - 1]!) ?? []) : [];
 
   const shareButton = useMemo(() => (share ? <ShareButton teams={share.teams} characterId={characterId} root={root} /> : null), [share, characterId, root]);
@@ -174,7 +178,7 @@ export function ExplorerView({ characterId, root, pinned = false, share }: Explo
           )}
         </div>
       </div>
-      <PathsTable paths={computed.paths} selectedKey={selectedKey} onSelect={select} rules={rules} />
+      <PathsTable paths={computed.paths} selectedKey={tableKey} onSelect={select} rules={rules} />
       <Legend />
     </div>
   );

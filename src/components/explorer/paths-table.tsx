@@ -204,7 +204,8 @@ function toFilters(form: FormState): PathFilters {
 }
 
 /** Every path from this root in one sortable, filterable table; picking a row selects the path. */
-export function PathsTable(props: {
+/** Memoised: it re-renders when its paths, selection or rules change, not on every render of the Explorer. */
+export const PathsTable = memo(function PathsTable(props: {
   paths: PathResult[];
   selectedKey: string | null;
   onSelect: (pathKey: string) => void;
@@ -239,8 +240,6 @@ export function PathsTable(props: {
   // Only the rows in view (and a few either side) are in the DOM: a root can have thousands of
   // paths, and every row drawn costs style and layout on each selection.
   const scrollRef = useRef<HTMLDivElement>(null);
-  // The compiler leaves this component unmemoised because of the virtualiser; PathRow is memoised by hand.
-  // eslint-disable-next-line react-hooks/incompatible-library
   const virtualizer = useVirtualizer({
     count: rows.length,
     getScrollElement: () => scrollRef.current,
@@ -436,7 +435,7 @@ export function PathsTable(props: {
       </div>
     </section>
   );
-}
+});
 
 type RowVirtualizer = Virtualizer<HTMLDivElement, Element>;
 

@@ -52,7 +52,9 @@ function MoveEdgeView({ id, data, sourceX, sourceY, targetX, targetY, sourcePosi
   const style = onPath ? { ...EDGE_STYLE[kind], stroke: PATH_STROKE, strokeWidth: 3 } : EDGE_STYLE[kind];
   return (
     <>
-      <BaseEdge id={id} path={path} style={style} markerEnd={`url(#${onPath ? ARROW_IDS.path : ARROW_IDS[kind]})`} />
+      {/* No wide invisible stroke to catch the pointer: edges take no clicks, and the browser
+          hit-tests the pointer against every one after each layout under the cursor. */}
+      <BaseEdge id={id} path={path} style={style} interactionWidth={0} markerEnd={`url(#${onPath ? ARROW_IDS.path : ARROW_IDS[kind]})`} />
       {data?.label && (
         <EdgeLabelRenderer>
           <div

@@ -116,7 +116,8 @@ export function GraphCanvas({
         // Follow-ups need no label (the next node shows its whole input); a cancel's says what it saves.
         const label =
           e.kind === "cancel" ? `${e.input}${saves === null ? "" : ` · ${saves >= 0 ? "saves" : "costs"} ${Math.abs(saves)}f`}` : e.kind === "enter" ? e.input : null;
-        return { id: e.id, source: e.from, target: e.to, type: "move", data: { kind: e.kind, label }, focusable: false };
+        // Edges take no pointer events (the class beats React Flow's own stroke hit area).
+        return { id: e.id, source: e.from, target: e.to, type: "move", data: { kind: e.kind, label }, focusable: false, selectable: false, className: "!pointer-events-none" };
       }),
     [graph],
   );
