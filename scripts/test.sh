@@ -39,6 +39,13 @@ cleanup() {
 trap cleanup EXIT
 trap 'exit 130' INT TERM
 
+# Stops what the run started, then prints the count as the run's very last line.
+finish() {
+  trap - EXIT
+  cleanup
+  node scripts/test-summary.mjs "$reports" "$@"
+}
+
 failed_steps=()
 step() {
   local name="$1"
@@ -56,11 +63,11 @@ step() {
 }
 
 step "database" bash -c 'bash scripts/db.sh start && bash scripts/db.sh reset && npm run --silent db:migrate && npm run --silent db:seed' || {
-  node scripts/test-summary.mjs "$reports" "database"
+  finish "database"
   exit 1
 }
 step "mail" bash scripts/mail.sh start || {
-  node scripts/test-summary.mjs "$reports" "mail"
+  finish "mail"
   exit 1
 }
 step "typecheck" npm run --silent typecheck
@@ -72,4 +79,4 @@ else
   echo "[test] build failed: browser tests not run"
 fi
 
-node scripts/test-summary.mjs "$reports" "${failed_steps[@]}"
+finish "${failed_steps[@]}"
