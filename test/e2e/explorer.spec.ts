@@ -161,7 +161,7 @@ test("the table of all paths filters, and selecting a row selects the path in th
 
   await rows.filter({ hasText: "2,2,3~f" }).first().click();
   await expect(explorer.field("input")).toContainText("2,2,3~f");
-  await expect(explorer.node("stance:ember")).toHaveAttribute("data-on-path", "true");
+  await expect(explorer.pathMark("stance:ember")).toHaveCount(1);
 
   await table.getByLabel(/stance only/i).uncheck();
   await explorer.node("2,2").click();
@@ -174,14 +174,14 @@ test("the graph works from the keyboard: arrows move, Enter selects, Escape clea
   const canvas = page.getByRole("group", { name: /Move graph/ });
   await canvas.focus();
   await page.keyboard.press("ArrowRight");
-  await expect(explorer.node("2,2")).toHaveAttribute("data-focus", "true");
+  await expect(explorer.focusMark).toHaveAttribute("data-focus-node", "2,2");
   await page.keyboard.press("Enter");
   await expect(explorer.field("input")).toHaveText("2,2");
 
   await page.keyboard.press("ArrowRight");
-  const first = await explorer.graph.locator("[data-focus]").getAttribute("data-node-id");
+  const first = await explorer.focusMark.getAttribute("data-focus-node");
   await page.keyboard.press("ArrowDown");
-  const second = await explorer.graph.locator("[data-focus]").getAttribute("data-node-id");
+  const second = await explorer.focusMark.getAttribute("data-focus-node");
   expect(new Set([first, second])).toEqual(new Set(["2,2,3", "2,2,1+2"]));
   await page.keyboard.press("Enter");
   await expect(explorer.field("input")).toHaveText(second!);

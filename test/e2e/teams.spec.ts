@@ -101,7 +101,7 @@ test("a player shares a permalink; a stranger opens the public one, is refused t
   const shown = await stranger.goto(open);
   expect(shown?.status()).toBe(200);
   const strangerView = new ExplorerPage(stranger);
-  await expect(strangerView.node("2,2")).toHaveAttribute("data-on-path", "true");
+  await expect(strangerView.pathMark("2,2")).toHaveCount(1);
   await expect(strangerView.field("input")).toContainText("2,2");
   await expect(stranger.getByText(/Pinned to edition/)).toBeVisible();
   // Link previews get a PNG of it.

@@ -21,6 +21,30 @@ function Line({ dash, color, label }: { dash?: string; color: string; label: str
   );
 }
 
+/** A small node with the overlay's ring, as the graph draws it around a node. */
+function RingMark({ label, ring }: { label: string; ring: "path" | "end" | "focus" }) {
+  return (
+    <li className="flex items-center gap-2">
+      <svg width="36" height="16" aria-hidden>
+        <rect x="6" y="4" width="24" height="8" rx="2" className="fill-ink-850 stroke-ink-700" strokeWidth="1" />
+        {ring === "end" && <rect x="3" y="1" width="30" height="14" rx="4" fill="none" className="stroke-accent/40" strokeWidth="3" />}
+        <rect
+          x={ring === "focus" ? 1 : 3}
+          y={ring === "focus" ? 1 : 2}
+          width={ring === "focus" ? 34 : 30}
+          height={ring === "focus" ? 14 : 12}
+          rx="4"
+          fill="none"
+          strokeWidth="1.5"
+          strokeDasharray={ring === "focus" ? "3 2" : undefined}
+          className={ring === "path" ? "stroke-accent-muted" : ring === "end" ? "stroke-accent" : "stroke-ink-200"}
+        />
+      </svg>
+      {label}
+    </li>
+  );
+}
+
 /** Every colour and line style of the graph, in words. Static: memoised, so a selection does not re-render it. */
 export const Legend = memo(function Legend() {
   return (
@@ -32,6 +56,9 @@ export const Legend = memo(function Legend() {
           <Line color="#f5c451" dash="6 4" label="stance cancel (label: input · frames saved)" />
           <Line color="#6fd0b4" dash="1 4" label="move done from the stance" />
           <Line color="#ffd873" label="the selected path" />
+          <RingMark ring="path" label="ring: a move on the selected path" />
+          <RingMark ring="end" label="bright ring: where the path ends" />
+          <RingMark ring="focus" label="dashed ring: the keyboard's place" />
         </ul>
         <ul className="flex flex-wrap gap-1.5">
           {LEVELS.map((l) => (

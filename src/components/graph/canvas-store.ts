@@ -1,4 +1,5 @@
 import type { BlockRules } from "@/components/ui/block-class";
+import type { MoveGraph } from "@/lib/engine";
 
 /**
  * What the canvas draws on top of the graph: the block rules and the selected
@@ -14,63 +15,87 @@ export type CanvasMarks = BlockRules & {
   focus: string | null;
 };
 
+/** An edge as the canvas drew it: its SVG path, its kind (which sets its dashes) and its label. */
+export interface DrawnEdge {
+  d: string;
+  kind: MoveGraph["edges"][number]["kind"];
+  label: { text: string; x: number; y: number } | null;
+}
+
 /**
- * A store keyed by node and edge id. A general store (zustand's) calls every
- * subscriber on each change, and with a few hundred nodes and edges that is
- * most of a click's script time; this one calls only the subscribers of the
- * ids whose marks changed, or all of them when a rule changed.
+ * The canvas's store. Two kinds of listener: every node listens for the rules
+ * (its block class depends on them), and the one path overlay listens for the
+ * selection. A click re-renders the overlay alone: no node or edge of React
+ * Flow's, so React walks none of their few hundred siblings either.
  */
 export interface CanvasStore {
   getState(): CanvasMarks;
   setState(next: CanvasMarks): void;
-  /** Listens for changes to the marks of one node or edge. */
-  subscribe(id: string, listener: () => void): () => void;
+  /** Listens for a change of the rules (the opponent's fastest attack, the launch threshold). */
+  subscribeRules(listener: () => void): () => void;
+  /**
+   * Listens for a change of what the overlay draws: the path's nodes and
+   * edges, its end, the keyboard's place, or where one of the path's edges is
+   * drawn. `overlayVersion` counts those changes.
+   */
+  subscribeOverlay(listener: () => void): () => void;
+  overlayVersion(): number;
+  /** Records where an edge is drawn (`null` when it is no longer drawn). */
+  setDrawnEdge(id: string, drawn: DrawnEdge | null): void;
+  drawnEdge(id: string): DrawnEdge | undefined;
 }
 
-/** The node and edge ids whose marks differ between two states, or `"all"` when a rule changed. */
-export function changedIds(prev: CanvasMarks, next: CanvasMarks): ReadonlySet<string> | "all" {
-  if (prev.fastest !== next.fastest || prev.launchAt !== next.launchAt) return "all";
-  const ids = new Set<string>();
-  const diff = (a: ReadonlySet<string>, b: ReadonlySet<string>) => {
-    if (a === b) return;
-    for (const id of a) if (!b.has(id)) ids.add(id);
-    for (const id of b) if (!a.has(id)) ids.add(id);
-  };
-  const one = (a: string | null, b: string | null) => {
-    if (a === b) return;
-    if (a !== null) ids.add(a);
-    if (b !== null) ids.add(b);
-  };
-  diff(prev.pathNodes, next.pathNodes);
-  diff(prev.pathEdges, next.pathEdges);
-  one(prev.end, next.end);
-  one(prev.focus, next.focus);
-  return ids;
+/** True when two sets hold the same ids. */
+function sameIds(a: ReadonlySet<string>, b: ReadonlySet<string>): boolean {
+  if (a === b) return true;
+  if (a.size !== b.size) return false;
+  for (const id of a) if (!b.has(id)) return false;
+  return true;
 }
+
+/** Whether the overlay draws something else for `next` than for `prev`. */
+export function overlayChanged(prev: CanvasMarks, next: CanvasMarks): boolean {
+  return prev.end !== next.end || prev.focus !== next.focus || !sameIds(prev.pathNodes, next.pathNodes) || !sameIds(prev.pathEdges, next.pathEdges);
+}
+
+const sameDrawn = (a: DrawnEdge | undefined, b: DrawnEdge | null) =>
+  (a ?? null) === b ||
+  (a !== undefined && b !== null && a.d === b.d && a.kind === b.kind && a.label?.text === b.label?.text && a.label?.x === b.label?.x && a.label?.y === b.label?.y);
 
 export function createCanvasStore(initial: CanvasMarks): CanvasStore {
   let state = initial;
-  const listeners = new Map<string, Set<() => void>>();
+  let version = 0;
+  const ruleListeners = new Set<() => void>();
+  const overlayListeners = new Set<() => void>();
+  const drawn = new Map<string, DrawnEdge>();
+  const listen = (set: Set<() => void>, listener: () => void) => {
+    set.add(listener);
+    return () => {
+      set.delete(listener);
+    };
+  };
+  const overlayNews = () => {
+    version += 1;
+    for (const listener of overlayListeners) listener();
+  };
   return {
     getState: () => state,
     setState(next) {
       if (next === state) return;
-      const changed = changedIds(state, next);
+      const prev = state;
       state = next;
-      if (changed === "all") {
-        for (const set of listeners.values()) for (const listener of set) listener();
-        return;
-      }
-      for (const id of changed) listeners.get(id)?.forEach((listener) => listener());
+      if (overlayChanged(prev, next)) overlayNews();
+      if (prev.fastest !== next.fastest || prev.launchAt !== next.launchAt) for (const listener of ruleListeners) listener();
     },
-    subscribe(id, listener) {
-      let set = listeners.get(id);
-      if (!set) listeners.set(id, (set = new Set()));
-      set.add(listener);
-      return () => {
-        set.delete(listener);
-        if (set.size === 0) listeners.delete(id);
-      };
+    subscribeRules: (listener) => listen(ruleListeners, listener),
+    subscribeOverlay: (listener) => listen(overlayListeners, listener),
+    overlayVersion: () => version,
+    setDrawnEdge(id, edge) {
+      if (sameDrawn(drawn.get(id), edge)) return;
+      if (edge === null) drawn.delete(id);
+      else drawn.set(id, edge);
+      if (state.pathEdges.has(id)) overlayNews();
     },
+    drawnEdge: (id) => drawn.get(id),
   };
 }

@@ -1,9 +1,9 @@
 "use client";
 
 import { BaseEdge, EdgeLabelRenderer, getBezierPath, getSmoothStepPath, type Edge, type EdgeProps } from "@xyflow/react";
-import { memo } from "react";
+import { memo, useCallback, useLayoutEffect, useSyncExternalStore } from "react";
 import type { MoveGraph } from "@/lib/engine";
-import { useCanvas } from "./nodes";
+import { useCanvasStore } from "./nodes";
 
 export const EDGE_STYLE = {
   follow: { stroke: "#7d8aa3", strokeWidth: 1.5 },
@@ -41,31 +41,129 @@ export type MoveFlowEdge = Edge<{ kind: EdgeKind; label: string | null }, "move"
 
 /**
  * Every edge of the graph. Follow edges curve, cancel and enter edges step;
- * the selected path is read from the canvas store (so the edge objects never
- * change), and labels are HTML, so drawing one never measures SVG text.
+ * labels are HTML, so drawing one never measures SVG text. An edge is drawn
+ * once and never restyled: it records in the canvas store where it was drawn,
+ * and {@link PathOverlay} draws the selected path over it from that record.
  */
 function MoveEdgeView({ id, data, sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition }: EdgeProps<MoveFlowEdge>) {
-  const onPath = useCanvas(id, (m) => m.pathEdges.has(id));
+  const store = useCanvasStore();
   const kind = data?.kind ?? "follow";
+  const text = data?.label ?? null;
   const geometry = { sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition };
   const [path, labelX, labelY] = kind === "follow" ? getBezierPath(geometry) : getSmoothStepPath(geometry);
-  const style = onPath ? { ...EDGE_STYLE[kind], stroke: PATH_STROKE, strokeWidth: 3 } : EDGE_STYLE[kind];
+  useLayoutEffect(() => {
+    store.setDrawnEdge(id, { d: path, kind, label: text === null ? null : { text, x: labelX, y: labelY } });
+    return () => store.setDrawnEdge(id, null);
+  }, [store, id, path, kind, text, labelX, labelY]);
   return (
     <>
       {/* No wide invisible stroke to catch the pointer: edges take no clicks, and the browser
           hit-tests the pointer against every one after each layout under the cursor. */}
-      <BaseEdge id={id} path={path} style={style} interactionWidth={0} markerEnd={`url(#${onPath ? ARROW_IDS.path : ARROW_IDS[kind]})`} />
-      {data?.label && (
+      <BaseEdge id={id} path={path} style={EDGE_STYLE[kind]} interactionWidth={0} markerEnd={`url(#${ARROW_IDS[kind]})`} />
+      {text && (
         <EdgeLabelRenderer>
-          <div
-            data-edge-label={id}
-            style={{ transform: `translate(-50%, -50%) translate(${labelX}px, ${labelY}px)` }}
-            className={`pointer-events-none absolute rounded bg-ink-950 px-1 py-px font-mono text-[11px] ${onPath ? "text-accent" : "text-ink-200"}`}
-          >
-            {data.label}
-          </div>
+          <EdgeLabel id={id} text={text} x={labelX} y={labelY} />
         </EdgeLabelRenderer>
       )}
+    </>
+  );
+}
+
+/** A cancel's or an entry's label, centred on its edge; above the path overlay (z-index 1), so the path runs under it. */
+function EdgeLabel({ id, text, x, y, onPath = false }: { id: string; text: string; x: number; y: number; onPath?: boolean }) {
+  return (
+    <div
+      data-edge-label={onPath ? undefined : id}
+      data-path-label={onPath ? id : undefined}
+      style={{ transform: `translate(-50%, -50%) translate(${x}px, ${y}px)` }}
+      className={`pointer-events-none absolute z-[1] rounded bg-ink-950 px-1 py-px font-mono text-[11px] ${onPath ? "text-accent" : "text-ink-200"}`}
+    >
+      {text}
+    </div>
+  );
+}
+
+/** Where a node sits on the canvas, in the graph's units, and whether it is drawn round (a stance). */
+export interface NodeBox {
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+  round: boolean;
+}
+
+/** A rounded rectangle `gap` px outside a node's box, in the node's own shape. */
+function Ring({ box, gap, className, ...rest }: { box: NodeBox; gap: number; className: string } & React.SVGProps<SVGRectElement>) {
+  const radius = box.round ? box.height / 2 + gap : 6 + gap;
+  return (
+    <rect
+      x={box.x - gap}
+      y={box.y - gap}
+      width={box.width + 2 * gap}
+      height={box.height + 2 * gap}
+      rx={radius}
+      fill="none"
+      className={className}
+      {...rest}
+    />
+  );
+}
+
+/**
+ * The selected path, drawn over the graph: its edges again in the path's
+ * colour (over the graph's edges, under its nodes, which sit at z-index 1),
+ * its labels in the path's colour, a ring around each of its nodes (a wider
+ * one at its end), and a dashed ring at the keyboard's place. One component
+ * that re-renders on a click, in place of every node and edge the path enters
+ * or leaves. Rendered inside the viewport (a `ViewportPortal`), in the graph's
+ * units, so it pans, zooms and exports with the graph.
+ */
+export function PathOverlay({ boxes }: { boxes: ReadonlyMap<string, NodeBox> }) {
+  const store = useCanvasStore();
+  const subscribe = useCallback((listener: () => void) => store.subscribeOverlay(listener), [store]);
+  useSyncExternalStore(subscribe, store.overlayVersion, store.overlayVersion);
+  const { pathNodes, pathEdges, end, focus } = store.getState();
+  const edges = [...pathEdges].flatMap((id) => {
+    const drawn = store.drawnEdge(id);
+    return drawn ? [{ id, ...drawn }] : [];
+  });
+  const ring = (id: string | null) => (id === null ? undefined : boxes.get(id));
+  const endBox = ring(end);
+  const focusBox = ring(focus);
+  return (
+    <>
+      <svg aria-hidden="true" className="pointer-events-none absolute left-0 top-0 z-0 overflow-visible" width="1" height="1" data-testid="path-edges">
+        {edges.map((e) => (
+          <path
+            key={e.id}
+            d={e.d}
+            data-path-edge={e.id}
+            fill="none"
+            style={{ ...EDGE_STYLE[e.kind], stroke: PATH_STROKE, strokeWidth: 3 }}
+            markerEnd={`url(#${ARROW_IDS.path})`}
+          />
+        ))}
+      </svg>
+      {edges.some((e) => e.label) && (
+        <EdgeLabelRenderer>
+          {edges.map((e) => (e.label ? <EdgeLabel key={e.id} id={e.id} text={e.label.text} x={e.label.x} y={e.label.y} onPath /> : null))}
+        </EdgeLabelRenderer>
+      )}
+      <svg aria-hidden="true" className="pointer-events-none absolute left-0 top-0 z-[2] overflow-visible" width="1" height="1" data-testid="path-rings">
+        {[...pathNodes].map((id) => {
+          const box = ring(id);
+          return box && id !== end ? <Ring key={id} box={box} gap={2} strokeWidth={2} className="stroke-accent-muted" data-path-node={id} /> : null;
+        })}
+        {endBox && end !== null && (
+          <g data-path-node={end} data-path-end="true">
+            <Ring box={endBox} gap={3} strokeWidth={5} className="stroke-accent/40" />
+            <Ring box={endBox} gap={2} strokeWidth={2} className="stroke-accent" />
+          </g>
+        )}
+        {focusBox && focus !== null && (
+          <Ring box={focusBox} gap={7} strokeWidth={2} strokeDasharray="5 4" className="stroke-ink-200" data-focus-node={focus} />
+        )}
+      </svg>
     </>
   );
 }

@@ -7,7 +7,7 @@ import { ExportButton } from "./export-button";
 import type { BlockRules } from "@/components/ui/block-class";
 import type { MoveGraph, PathResult } from "@/lib/engine";
 import { layoutGraph } from "@/lib/layout-graph";
-import { ArrowDefs, edgeTypes, type MoveFlowEdge } from "./edges";
+import { ArrowDefs, PathOverlay, edgeTypes, type MoveFlowEdge, type NodeBox } from "./edges";
 import { createCanvasStore, type CanvasMarks } from "./canvas-store";
 import { CanvasContext, MOVE_SIZE, STANCE_SIZE, nodeTypes, type MoveFlowNode, type StanceFlowNode } from "./nodes";
 
@@ -97,11 +97,17 @@ export function GraphCanvas({
   const [canvasStore] = useState(() => createCanvasStore(marks));
   useLayoutEffect(() => canvasStore.setState(marks), [canvasStore, marks]);
 
+  const boxes = useMemo(
+    () => new Map<string, NodeBox>(graph.nodes.map((n) => [n.id, { ...layout.get(n.id)!, round: n.kind === "stance" }])),
+    [graph, layout],
+  );
+
   const nodes = useMemo(
     () =>
       graph.nodes.map((n): MoveFlowNode | StanceFlowNode => {
         const p = layout.get(n.id)!;
-        const common = { id: n.id, position: { x: p.x, y: p.y }, width: p.width, height: p.height, connectable: false, draggable: false };
+        // z-index 1: above the selected path's overlay, which lies over the edges (z-index 0).
+        const common = { id: n.id, position: { x: p.x, y: p.y }, width: p.width, height: p.height, zIndex: 1, connectable: false, draggable: false };
         return n.kind === "move"
           ? { ...common, type: "move", data: { move: n }, ariaLabel: `${n.input}, ${n.level}` }
           : { ...common, type: "stance", data: { stance: n }, ariaLabel: `stance ${n.name}` };
@@ -145,6 +151,7 @@ export function GraphCanvas({
         {/* Inside the viewport, so the PNG export carries the arrowheads too. */}
         <ViewportPortal>
           <ArrowDefs />
+          <PathOverlay boxes={boxes} />
         </ViewportPortal>
         <Background color="#283040" gap={24} />
         <Controls showInteractive={false} position="bottom-left" />
@@ -152,7 +159,7 @@ export function GraphCanvas({
         {large && <MiniMap pannable zoomable position="bottom-right" nodeColor="#3a4458" maskColor="rgba(11,13,18,0.7)" />}
       </ReactFlow>
     ),
-    [nodes, edges, onNodeClick, exportName, large],
+    [nodes, edges, boxes, onNodeClick, exportName, large],
   );
 
   const focusedNode = graph.nodes.find((n) => n.id === current);

@@ -17,39 +17,32 @@ export type StanceFlowNode = Node<{ stance: EngineStance }, "stance">;
 
 export const CanvasContext = createContext<CanvasStore | null>(null);
 
-/**
- * The part of the canvas marks that node or edge `id` draws. `select` must
- * return a primitive, so an unchanged result re-renders nothing.
- */
-export function useCanvas<T extends string | number | boolean>(id: string, select: (marks: CanvasMarks) => T): T {
+/** The canvas store of the graph being drawn. */
+export function useCanvasStore(): CanvasStore {
   const store = useContext(CanvasContext);
   if (!store) throw new Error("Graph nodes and edges need a CanvasContext provider");
-  const subscribe = useCallback((listener: () => void) => store.subscribe(id, listener), [store, id]);
+  return store;
+}
+
+/**
+ * The part of the rules a node draws (its block class). `select` must return a
+ * primitive, so an unchanged result re-renders nothing. The selected path is
+ * not read here: the path overlay draws it over the nodes.
+ */
+export function useCanvasRules<T extends string | number | boolean>(select: (marks: CanvasMarks) => T): T {
+  const store = useCanvasStore();
+  const subscribe = useCallback((listener: () => void) => store.subscribeRules(listener), [store]);
   const snapshot = () => select(store.getState());
   return useSyncExternalStore(subscribe, snapshot, snapshot);
 }
 
-const ON_PATH = 1;
-const IS_END = 2;
-const HAS_FOCUS = 4;
-/** One number per node, so a node re-renders only when its own marks change. */
-const marksOf = (m: CanvasMarks, id: string) => (m.pathNodes.has(id) ? ON_PATH : 0) | (m.end === id ? IS_END : 0) | (m.focus === id ? HAS_FOCUS : 0);
-
-const ring = (bits: number) =>
-  `${bits & IS_END ? "border-accent ring-2 ring-accent/50" : bits & ON_PATH ? "border-accent-muted" : "border-ink-700"} ${
-    bits & HAS_FOCUS ? "outline-2 outline-offset-2 outline-dashed outline-ink-200" : ""
-  }`;
-
 function MoveNodeView({ data }: NodeProps<MoveFlowNode>) {
   const { move } = data;
-  const bits = useCanvas(move.id, (m) => marksOf(m, move.id));
-  const cls = useCanvas(move.id, (rules) => classifyBlock(move.onBlock, rules));
+  const cls = useCanvasRules((rules) => classifyBlock(move.onBlock, rules));
   return (
     <div
       data-node-id={move.id}
-      data-on-path={bits & ON_PATH ? true : undefined}
-      data-focus={bits & HAS_FOCUS ? true : undefined}
-      className={`flex h-full w-full flex-col justify-between rounded-md border bg-ink-900 px-2 py-1.5 text-left ${ring(bits)}`}
+      className="flex h-full w-full flex-col justify-between rounded-md border border-ink-700 bg-ink-900 px-2 py-1.5 text-left"
       title={move.name}
     >
       <Handle type="target" position={Position.Left} className="!h-2 !w-2 !border-0 !bg-ink-600" />
@@ -72,13 +65,10 @@ function MoveNodeView({ data }: NodeProps<MoveFlowNode>) {
 }
 
 function StanceNodeView({ data }: NodeProps<StanceFlowNode>) {
-  const bits = useCanvas(data.stance.id, (m) => marksOf(m, data.stance.id));
   return (
     <div
       data-node-id={data.stance.id}
-      data-on-path={bits & ON_PATH ? true : undefined}
-      data-focus={bits & HAS_FOCUS ? true : undefined}
-      className={`flex h-full w-full items-center justify-center rounded-full border-2 border-dashed bg-ink-850 px-3 text-sm ${ring(bits)}`}
+      className="flex h-full w-full items-center justify-center rounded-full border-2 border-dashed border-ink-700 bg-ink-850 px-3 text-sm"
     >
       <Handle type="target" position={Position.Left} className="!h-2 !w-2 !border-0 !bg-ink-600" />
       <span className="text-[10px] uppercase tracking-wider text-ink-400">stance&nbsp;</span>

@@ -16,6 +16,16 @@ export class ExplorerPage {
     return this.graph.locator(`[data-node-id="${id}"]`);
   }
 
+  /** The ring the path overlay draws around a node of the selected path. */
+  pathMark(id: string): Locator {
+    return this.graph.locator(`[data-path-node="${id}"]`);
+  }
+
+  /** The dashed ring at the keyboard's place in the graph. */
+  get focusMark(): Locator {
+    return this.graph.locator("[data-focus-node]");
+  }
+
   /** A figure of the Path card by its PathResult field name. */
   field(name: string): Locator {
     return this.card.locator(`[data-field="${name}"]`).first();
