@@ -1,11 +1,12 @@
 "use client";
 
 import Link from "next/link";
-import { useEffect, useMemo } from "react";
+import { useCallback, useEffect, useMemo } from "react";
 import useSWR from "swr";
 import { GraphCanvas } from "@/components/graph/graph-canvas";
 import { useExplorerStore } from "@/components/providers/explorer-store-provider";
 import type { AppError } from "@/lib/errors";
+import type { PathResult } from "@/lib/engine";
 import { computePaths, graphUrl, pathKey, reachableSubgraph, type GraphResponse } from "@/lib/explorer";
 import { fetcher } from "@/lib/fetcher";
 import { explorerHref, explorerStateToView } from "@/lib/permalink";
@@ -31,6 +32,8 @@ export interface ExplorerViewProps {
   share?: { teams: ShareTeam[] };
 }
 
+const NO_PATHS: PathResult[] = [];
+
 export function ExplorerView({ characterId, root, pinned = false, share }: ExplorerViewProps) {
   const edition = useExplorerStore((s) => s.edition);
   const { data, error, isLoading, mutate } = useSWR<GraphResponse, AppError>(graphUrl(characterId, edition), fetcher, {
@@ -54,10 +57,15 @@ export function ExplorerView({ characterId, root, pinned = false, share }: Explo
     () => (selectedKey === null ? null : (computed?.byKey.get(selectedKey) ?? null)),
     [computed, selectedKey],
   );
-  // The table sits below the graph: its row highlight follows one frame after the card, so a
-  // click paints the card without waiting for the table to re-render and repaint.
-  const tableKey = useAfterPaint(selectedKey);
-  const alternatives = selected ? (computed?.byEnd.get(selected.nodes[selected.nodes.length - 1]!) ?? []) : [];
+  // The frame timeline and the table sit below the graph and follow one painted frame after the
+  // card: a click paints the card and the graph's path first, without waiting for them.
+  const laterKey = useAfterPaint(selectedKey);
+  const laterPath = laterKey === null ? null : (computed?.byKey.get(laterKey) ?? null);
+  const alternatives = useMemo(
+    () => (selected ? (computed?.byEnd.get(selected.nodes[selected.nodes.length - 1]!) ?? NO_PATHS) : NO_PATHS),
+    [computed, selected],
+  );
+  const pickAlternative = useCallback((p: PathResult) => select(pathKey(p)), [select]);
 
   const shareButton = useMemo(() => (share ? <ShareButton teams={share.teams} characterId={characterId} root={root} /> : null), [share, characterId, root]);
 
@@ -153,7 +161,7 @@ export function ExplorerView({ characterId, root, pinned = false, share }: Explo
               exportName={`framefork-${data.character.slug}-${root}-${data.edition.slug}.png`.replace(/[^\w.+-]+/g, "_")}
             />
           </div>
-          {selected ? <FrameTimeline path={selected} graph={sub} rules={rules} /> : null}
+          {laterPath ? <FrameTimeline path={laterPath} graph={sub} rules={rules} /> : null}
         </div>
         {/* Beside the graph on a wide screen, as tall as it and scrolling on its own: a new
             selection then lays out this column alone, not the page. Below the graph on a phone. */}
@@ -165,7 +173,7 @@ export function ExplorerView({ characterId, root, pinned = false, share }: Explo
                 graph={sub}
                 rules={rules}
                 alternatives={alternatives}
-                onPickAlternative={(p) => select(pathKey(p))}
+                onPickAlternative={pickAlternative}
               />
               <PunishPanel path={selected} data={data} fastest={options.fastest} />
             </>
@@ -178,7 +186,7 @@ export function ExplorerView({ characterId, root, pinned = false, share }: Explo
           )}
         </div>
       </div>
-      <PathsTable paths={computed.paths} selectedKey={tableKey} onSelect={select} rules={rules} />
+      <PathsTable paths={computed.paths} selectedKey={laterKey} onSelect={select} rules={rules} />
       <Legend />
     </div>
   );

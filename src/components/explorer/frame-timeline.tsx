@@ -1,6 +1,6 @@
 "use client";
 
-import { useState, type JSX, type ReactNode } from "react";
+import { memo, useState, type JSX, type ReactNode } from "react";
 import { classifyBlock, type BlockClass, type Level, type MoveGraph, type PathResult } from "@/lib/engine";
 import { formatFrames, formatOutcome } from "@/lib/format";
 import {
@@ -357,7 +357,7 @@ function End({
  * on hover and on keyboard focus; the line under the strip repeats the explanation, as a
  * native SVG tooltip does not show on focus.
  */
-export function FrameTimeline(props: { path: PathResult; graph: MoveGraph; rules: { fastest: number; launchAt: number } }): JSX.Element {
+function FrameTimelineView(props: { path: PathResult; graph: MoveGraph; rules: { fastest: number; launchAt: number } }): JSX.Element {
   const { path, graph, rules } = props;
   const [active, setActive] = useState<string | null>(null);
   const segments = timelineSegments(path, graph);
@@ -420,3 +420,6 @@ export function FrameTimeline(props: { path: PathResult; graph: MoveGraph; rules
     </figure>
   );
 }
+
+/** Memoised: it re-renders when its path, graph or rules change, not with every render of the Explorer. */
+export const FrameTimeline = memo(FrameTimelineView);

@@ -1,3 +1,4 @@
+import { memo } from "react";
 import { explainBlock, BlockClassTag, type BlockRules } from "@/components/ui/block-class";
 import { Explained } from "@/components/ui/explained";
 import { Frames } from "@/components/ui/frames";
@@ -17,7 +18,7 @@ function Row({ label, children }: { label: string; children: React.ReactNode }) 
 }
 
 /** Everything the engine computes for one path, each figure with where it came from. */
-export function PathCard({
+function PathCardView({
   path,
   graph,
   rules,
@@ -55,7 +56,8 @@ export function PathCard({
       <ol className="space-y-1" aria-label="Hits on this path">
         {hits.map((n, i) =>
           n?.kind === "move" ? (
-            <li key={`${n.id}-${i}`} className="flex items-center gap-2 text-sm">
+            // Keyed by place: the next path's rows reuse these elements, so a click changes text, not the tree.
+            <li key={i} className="flex items-center gap-2 text-sm">
               <span className="w-5 text-right font-mono text-xs text-ink-400">{i + 1}</span>
               <LevelBadge level={path.levels[i]!} />
               <span className="truncate text-ink-200">{n.name ?? n.input}</span>
@@ -175,3 +177,6 @@ export function PathCard({
     </section>
   );
 }
+
+/** Memoised: it re-renders when its path, graph or rules change, not with every render of the Explorer. */
+export const PathCard = memo(PathCardView);

@@ -1,6 +1,6 @@
 "use client";
 
-import { useMemo, useState, type ReactNode } from "react";
+import { memo, useMemo, useState, type ReactNode } from "react";
 import useSWR from "swr";
 import { useExplorerStore } from "@/components/providers/explorer-store-provider";
 import { Explained } from "@/components/ui/explained";
@@ -25,8 +25,12 @@ function OptionRow({ o, children }: { o: Option; children: React.ReactNode }) {
 /** Lists past this many rows start folded: the best come first, and the rest are one click away. */
 const SHORT_LIST = 8;
 
-/** The first {@link SHORT_LIST} rows of a ranked list, and a button for the rest. */
-function ShortList<T>({ items, render, testId }: { items: readonly T[]; render: (item: T) => ReactNode; testId?: string }) {
+/**
+ * The first {@link SHORT_LIST} rows of a ranked list, and a button for the rest.
+ * Rows are keyed by place: a new path's list reuses the rows, so a click changes
+ * their text rather than rebuilding them.
+ */
+function ShortList<T>({ items, render, testId }: { items: readonly T[]; render: (item: T, index: number) => ReactNode; testId?: string }) {
   const [open, setOpen] = useState(false);
   const shown = open ? items : items.slice(0, SHORT_LIST);
   return (
@@ -56,8 +60,8 @@ function FollowUps({ label, advantage, list, fastest }: { label: string; advanta
       ) : (
         <ShortList
           items={list}
-          render={(o) => (
-            <OptionRow key={o.id} o={o}>
+          render={(o, i) => (
+            <OptionRow key={i} o={o}>
               <Explained
                 explain={
                   o.kind === "guaranteed"
@@ -79,7 +83,7 @@ function FollowUps({ label, advantage, list, fastest }: { label: string; advanta
 }
 
 /** What the ending costs if blocked (the opponent's punishers) and what the attacker keeps on hit. */
-export function PunishPanel({ path, data, fastest }: { path: PathResult; data: GraphResponse; fastest: number }) {
+function PunishPanelView({ path, data, fastest }: { path: PathResult; data: GraphResponse; fastest: number }) {
   const opponentId = useExplorerStore((s) => s.opponent) ?? data.character.id;
   const setOpponent = useExplorerStore((s) => s.setOpponent);
   const same = opponentId === data.character.id;
@@ -139,8 +143,8 @@ export function PunishPanel({ path, data, fastest }: { path: PathResult; data: G
           <ShortList
             testId="punishers"
             items={punishers}
-            render={(o) => (
-              <OptionRow key={o.id} o={o}>
+            render={(o, i) => (
+              <OptionRow key={i} o={o}>
                 <Explained
                   explain={`Startup ${o.startup} ≤ ${-a}: it lands before you recover. Can be done ${o.from === "any" ? "standing or crouching" : o.from}; ${o.damage} damage as ${o.comboInput}.`}
                 >
@@ -159,3 +163,6 @@ export function PunishPanel({ path, data, fastest }: { path: PathResult; data: G
     </section>
   );
 }
+
+/** Memoised: it re-renders when its path, graph or rules change, not with every render of the Explorer. */
+export const PunishPanel = memo(PunishPanelView);
