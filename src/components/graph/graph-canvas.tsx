@@ -81,8 +81,8 @@ export function GraphCanvas({
     }
   };
 
-  // The selection and the rules reach nodes and edges through the canvas store; the node and
-  // edge objects below depend on the graph alone, so React Flow never re-measures on a click.
+  // The rules reach the nodes, and the selection the path overlay, through the canvas store; the
+  // node and edge objects below depend on the graph alone, so React Flow never re-measures on a click.
   const marks = useMemo(
     (): CanvasMarks => ({
       fastest: rules.fastest,
