@@ -178,5 +178,5 @@ function PathCardView({
   );
 }
 
-/** Memoised: it re-renders when its path, graph or rules change, not with every render of the Explorer. */
+/** Memoised: it re-renders when its path, graph, rules or alternatives change, not with every render of the Explorer. */
 export const PathCard = memo(PathCardView);

@@ -164,5 +164,5 @@ function PunishPanelView({ path, data, fastest }: { path: PathResult; data: Grap
   );
 }
 
-/** Memoised: it re-renders when its path, graph or rules change, not with every render of the Explorer. */
+/** Memoised: it re-renders when its path, data or fastest attack change, not with every render of the Explorer. */
 export const PunishPanel = memo(PunishPanelView);

@@ -69,14 +69,18 @@ function MoveEdgeView({ id, data, sourceX, sourceY, targetX, targetY, sourcePosi
   );
 }
 
-/** A cancel's or an entry's label, centred on its edge; above the path overlay (z-index 1), so the path runs under it. */
+/**
+ * A cancel's or an entry's label, centred on its edge, above the path overlay's edges (z-index 1),
+ * so the path runs under it. The path's own copy sits at z-index 2, over the graph's label
+ * whichever of the two was added to the page last.
+ */
 function EdgeLabel({ id, text, x, y, onPath = false }: { id: string; text: string; x: number; y: number; onPath?: boolean }) {
   return (
     <div
       data-edge-label={onPath ? undefined : id}
       data-path-label={onPath ? id : undefined}
       style={{ transform: `translate(-50%, -50%) translate(${x}px, ${y}px)` }}
-      className={`pointer-events-none absolute z-[1] rounded bg-ink-950 px-1 py-px font-mono text-[11px] ${onPath ? "text-accent" : "text-ink-200"}`}
+      className={`pointer-events-none absolute rounded bg-ink-950 px-1 py-px font-mono text-[11px] ${onPath ? "z-[2] text-accent" : "z-[1] text-ink-200"}`}
     >
       {text}
     </div>
