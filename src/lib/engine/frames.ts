@@ -38,6 +38,48 @@ export function classifyBlock(
   return classifyFrames(outcomeFrames(onBlock), fastest, launchAt);
 }
 
+/**
+ * Frames a stance cancel saves on block: the cancel's advantage minus the advantage of
+ * stopping at the hit it ends (`cancel.onBlock - lastMove.onBlock`). Null unless both are
+ * numbers. Negative when the cancel leaves you worse off.
+ */
+export function framesSaved(cancelOnBlock: Outcome, moveOnBlock: Outcome): number | null {
+  const saved = outcomeFrames(cancelOnBlock) - outcomeFrames(moveOnBlock);
+  return saved === saved ? saved : null;
+}
+
+/**
+ * The gap on block before a follow-up of startup `s` done at advantage `a`: `s - a - 1`
+ * frames in which a defender move of that startup or less hits first (`<= 0`: it jails).
+ * NaN when either is NaN (a state advantage or no startup): no gap is known.
+ */
+export function gapAtAdvantage(advantage: number, startup: number): number {
+  return startup - advantage - 1;
+}
+
+/** Whether a follow-up of startup `s` combos at on-hit advantage `a`: `s <= a`. False for NaN (a state). */
+export function combosAtAdvantage(advantage: number, startup: number): boolean {
+  return startup <= advantage;
+}
+
+/**
+ * A stance move done right after a cancel is a follow-up at the cancel's advantage: its
+ * gap on block (null for a state outcome or no startup) and whether it combos on hit and
+ * on counter hit.
+ */
+export function afterCancel(
+  cancel: { onBlock: Outcome; onHit: Outcome; onCounterHit: Outcome },
+  startup: number | null | undefined,
+): { gapOnBlock: number | null; comboOnHit: boolean; comboOnCounterHit: boolean } {
+  const s = startup ?? Number.NaN;
+  const gap = gapAtAdvantage(outcomeFrames(cancel.onBlock), s);
+  return {
+    gapOnBlock: gap === gap ? gap : null,
+    comboOnHit: combosAtAdvantage(outcomeFrames(cancel.onHit), s),
+    comboOnCounterHit: combosAtAdvantage(outcomeFrames(cancel.onCounterHit), s),
+  };
+}
+
 export function followUp(
   advantage: number,
   startup: number,

@@ -3,6 +3,10 @@ import {
   classifyBlock,
   explorePaths,
   followUp,
+  framesSaved,
+  gapAtAdvantage,
+  combosAtAdvantage,
+  afterCancel,
   punishersFor,
   type MoveGraph,
   type PunisherMove,
@@ -124,5 +128,55 @@ describe("facts of the trade through the engine", () => {
     const ids = punishersFor(p.onBlock, p.defenderStance, defenderMoves).map((m) => m.id);
     expect(ids).toEqual(["p11", "any12"]);
     expect(ids).not.toContain("p12");
+  });
+});
+
+describe("cancel rules", () => {
+  test("framesSaved is the cancel's advantage minus the hit's, null with a state on either side", () => {
+    expect(framesSaved(-1, -14)).toBe(13);
+    expect(framesSaved(-6, -2)).toBe(-4);
+    expect(framesSaved({ state: "knockdown" }, -14)).toBeNull();
+    expect(framesSaved(-1, { state: "crumple", frames: 3 })).toBeNull();
+  });
+
+  test("common practice, no source: a cancel from -14 to -1 saves 13 frames and turns punishable into safe", () => {
+    expect(framesSaved(-1, -14)).toBe(13);
+    expect(classifyBlock(-14)).toBe("punishable");
+    expect(classifyBlock(-1)).toBe("safe");
+  });
+
+  test("a stance move after a cancel is a follow-up at the cancel's advantage", () => {
+    // At -2 on block, a 12-frame stance move leaves 12 - (-2) - 1 = 13 free frames.
+    expect(afterCancel({ onBlock: -2, onHit: 8, onCounterHit: 14 }, 12)).toEqual({
+      gapOnBlock: 13,
+      comboOnHit: false,
+      comboOnCounterHit: true,
+    });
+    // At +5, a 6-frame move jails (gap 0) and combos from +6 on hit.
+    expect(afterCancel({ onBlock: 5, onHit: 6, onCounterHit: 6 }, 6)).toEqual({
+      gapOnBlock: 0,
+      comboOnHit: true,
+      comboOnCounterHit: true,
+    });
+    expect(afterCancel({ onBlock: { state: "knockdown" }, onHit: { state: "launch" }, onCounterHit: 20 }, 12)).toEqual({
+      gapOnBlock: null,
+      comboOnHit: false,
+      comboOnCounterHit: true,
+    });
+    expect(afterCancel({ onBlock: -2, onHit: 8, onCounterHit: 14 }, null)).toEqual({
+      gapOnBlock: null,
+      comboOnHit: false,
+      comboOnCounterHit: false,
+    });
+  });
+
+  test("interruptible is exactly where the fastest button (10f) hits first (startup <= gap) or trades (startup = gap + 1)", () => {
+    for (let a = -20; a <= 20; a++) {
+      for (let s = 1; s <= 30; s++) {
+        const gap = gapAtAdvantage(a, s);
+        expect(followUp(a, s) === "interruptible").toBe(10 <= gap + 1);
+        expect(combosAtAdvantage(a, s)).toBe(followUp(a, s) === "guaranteed");
+      }
+    }
   });
 });
