@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # `npm test`: install what is missing, start a throwaway MariaDB (its own
-# datadir and port, never the demo one), migrate, seed, then typecheck, lint,
+# datadir and port, never the demo one), migrate, seed, then check the formatting, typecheck, lint,
 # vitest, a production build and Playwright. Stops what it started, even when
 # a step fails, and ends with one line "N passed, N failed". A throwaway
 # maildev catches the mail the app sends.
@@ -70,6 +70,7 @@ step "mail" bash scripts/mail.sh start || {
   finish "mail"
   exit 1
 }
+step "format" npx prettier --check --log-level=warn .
 step "typecheck" npm run --silent typecheck
 step "lint" npx eslint --max-warnings=0 .
 step "vitest" npx vitest run --reporter=default --reporter=json --outputFile="$reports/vitest.json"

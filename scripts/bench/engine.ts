@@ -64,7 +64,15 @@ function median(xs: number[]): number {
 }
 
 function checksum(paths: PathResult[]): string {
-  let damage = 0, combos = 0, jails = 0, gapFrames = 0, duck = 0, mix = 0, saved = 0, guard = 0, inputs = 0;
+  let damage = 0,
+    combos = 0,
+    jails = 0,
+    gapFrames = 0,
+    duck = 0,
+    mix = 0,
+    saved = 0,
+    guard = 0,
+    inputs = 0;
   for (const p of paths) {
     damage += p.damage;
     if (p.naturalCombo) combos++;
@@ -235,7 +243,18 @@ function main(): void {
   const child = (kind: Case, stances: number, seed: number): ChildResult => {
     const out = execFileSync(
       process.execPath,
-      ["--expose-gc", "--max-old-space-size=8192", "--max-semi-space-size=64", "--import", "tsx", self, "--child", kind, String(stances), String(seed)],
+      [
+        "--expose-gc",
+        "--max-old-space-size=8192",
+        "--max-semi-space-size=64",
+        "--import",
+        "tsx",
+        self,
+        "--child",
+        kind,
+        String(stances),
+        String(seed),
+      ],
       { encoding: "utf8", maxBuffer: 1 << 24 },
     );
     return JSON.parse(out.trim().split("\n").pop()!) as ChildResult;
@@ -249,7 +268,9 @@ function main(): void {
       const found = search ? findGraph(target, acyclic) : GRAPHS[`${acyclic ? "acyclic" : "cyclic"} ${target}`]!;
       const graph = generateGraph(found.stances, found.seed, acyclic);
       const graphDesc = `${graph.nodes.length} nodes, ${graph.edges.length} edges (stances ${found.stances}, seed ${found.seed})`;
-      const cases: Case[] = acyclic ? ["engine-stream", "engine", "peer"] : ["walk", "stream", "generator", "materialise"];
+      const cases: Case[] = acyclic
+        ? ["engine-stream", "engine", "peer"]
+        : ["walk", "stream", "generator", "materialise"];
       for (const kind of cases) {
         const r = child(kind, found.stances, found.seed);
         rows.push({ ...r, family: acyclic ? "acyclic" : "cyclic", target, graph: graphDesc });
@@ -266,7 +287,9 @@ function main(): void {
     const head = `${r.family} ~1e${Math.log10(r.target)}: ${r.graph}`;
     if (head !== lastGraph) {
       console.log(`\n${head}`);
-      console.log(`  ${"case".padEnd(12)}${pad("paths", 9)}${pad("median ms", 11)}${pad("reps", 5)}${pad("paths/s", 13)}${pad("heap base MB", 14)}${pad("heap peak MB", 14)}${pad("max RSS MB", 12)}`);
+      console.log(
+        `  ${"case".padEnd(12)}${pad("paths", 9)}${pad("median ms", 11)}${pad("reps", 5)}${pad("paths/s", 13)}${pad("heap base MB", 14)}${pad("heap peak MB", 14)}${pad("max RSS MB", 12)}`,
+      );
       lastGraph = head;
     }
     const perS = r.ms > 0 ? Math.round(r.paths / (r.ms / 1000)) : 0;
@@ -275,7 +298,8 @@ function main(): void {
     );
   }
 
-  const pick = (family: string, target: number, kind: Case) => rows.find((r) => r.family === family && r.target === target && r.case === kind)!;
+  const pick = (family: string, target: number, kind: Case) =>
+    rows.find((r) => r.family === family && r.target === target && r.case === kind)!;
   console.log("\nratios (same graph, same run)");
   for (const target of sizes) {
     const walk = pick("cyclic", target, "walk");
@@ -285,13 +309,16 @@ function main(): void {
     const eng = pick("acyclic", target, "engine");
     const peer = pick("acyclic", target, "peer");
     const engStream = pick("acyclic", target, "engine-stream");
-    const same = eng.checksum === peer.checksum ? "same paths and annotations" : `MISMATCH ${eng.checksum} vs ${peer.checksum}`;
+    const same =
+      eng.checksum === peer.checksum ? "same paths and annotations" : `MISMATCH ${eng.checksum} vs ${peer.checksum}`;
     console.log(
       `  ~1e${Math.log10(target)}: stream/walk ${(stream.ms / walk.ms).toFixed(2)}, generator/walk ${(gen.ms / walk.ms).toFixed(2)}, materialise/walk ${(mat.ms / walk.ms).toFixed(2)}; ` +
         `peer/engine ${(peer.ms / eng.ms).toFixed(2)} (materialising), peer/engine ${(peer.ms / engStream.ms).toFixed(1)} (streaming); peer check: ${same}`,
     );
   }
-  const streamMem = sizes.map((t) => `${pick("cyclic", t, "stream").peakMb.toFixed(1)} MB @ ~1e${Math.log10(t)}`).join(", ");
+  const streamMem = sizes
+    .map((t) => `${pick("cyclic", t, "stream").peakMb.toFixed(1)} MB @ ~1e${Math.log10(t)}`)
+    .join(", ");
   console.log(`  stream heap peak: ${streamMem}`);
 
   const big = 1e6;
@@ -300,7 +327,9 @@ function main(): void {
     JSON.stringify({
       paths_per_s: Math.round(stream.paths / (stream.ms / 1000)),
       stream_time_over_walk_time: Number((stream.ms / pick("cyclic", big, "walk").ms).toFixed(3)),
-      peer_time_over_engine_time: Number((pick("acyclic", big, "peer").ms / pick("acyclic", big, "engine").ms).toFixed(3)),
+      peer_time_over_engine_time: Number(
+        (pick("acyclic", big, "peer").ms / pick("acyclic", big, "engine").ms).toFixed(3),
+      ),
       peak_mb_stream_1e6: Number(stream.peakMb.toFixed(2)),
     }),
   );

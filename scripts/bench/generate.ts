@@ -96,7 +96,8 @@ export function generateGraph(stances: number, seed: number, acyclic = false, la
     stanceMoves.push(moves);
   }
   stanceIds.forEach((s, k) => {
-    for (const m of stanceMoves[k]!) edges.push({ id: `e${edgeCount++}`, kind: "enter", from: s, to: m, input: `${int(1, 4)}` });
+    for (const m of stanceMoves[k]!)
+      edges.push({ id: `e${edgeCount++}`, kind: "enter", from: s, to: m, input: `${int(1, 4)}` });
   });
   const seen = new Set<string>();
   for (const h of hits) {

@@ -15,7 +15,6 @@ import type {
   PathResult,
 } from "../../src/lib/engine";
 
-
 const SINK = "\u0000every-stop";
 
 /**
@@ -29,7 +28,11 @@ const SINK = "\u0000every-stop";
  * whole tree once per node. Only valid on a graph without cycles and parallel edges, where
  * simple paths are the engine's paths when no bound cuts them.
  */
-export function peerPaths(g: MoveGraph, root: string, { fastest = 10, launchAt = 15 }: ExploreOptions = {}): PathResult[] {
+export function peerPaths(
+  g: MoveGraph,
+  root: string,
+  { fastest = 10, launchAt = 15 }: ExploreOptions = {},
+): PathResult[] {
   const graph = new DirectedGraph<Record<string, unknown>, { edge: GraphEdge }>();
   for (const n of g.nodes) graph.addNode(n.id, { node: n });
   for (const e of g.edges) graph.addDirectedEdgeWithKey(e.id, e.from, e.to, { edge: e });
@@ -113,7 +116,8 @@ export function peerPaths(g: MoveGraph, root: string, { fastest = 10, launchAt =
     let framesSaved: number | null = null;
     if (last.kind === "stance") {
       const before = nodes[nodes.length - 2] as MoveNode;
-      if (typeof step.onBlock === "number" && typeof before.onBlock === "number") framesSaved = step.onBlock - before.onBlock;
+      if (typeof step.onBlock === "number" && typeof before.onBlock === "number")
+        framesSaved = step.onBlock - before.onBlock;
     }
     const a = step.onBlock;
     const blockClass: BlockClass =

@@ -14,7 +14,7 @@ const STANCES = ["s1", "s2", "s3", "s4"];
 export function benchCharacter(seed = 7): DemoCharacter {
   const r = rng(seed);
   const int = (lo: number, hi: number) => lo + Math.floor(r() * (hi - lo + 1));
-  const pick = <T,>(xs: readonly T[]) => xs[Math.floor(r() * xs.length)]!;
+  const pick = <T>(xs: readonly T[]) => xs[Math.floor(r() * xs.length)]!;
   const h = (name: string) => hit(name, pick(LEVELS), int(5, 20), [int(-16, 3), int(-2, 8), int(0, 10)]);
 
   let cancels = 0;
@@ -24,14 +24,26 @@ export function benchCharacter(seed = 7): DemoCharacter {
       follow(`,${b}`, { gap: int(-2, 6), combo: r() < 0.5 }, h(`${label}-${b}`), tree(depth + 1, `${label}-${b}`)),
     );
     if (depth >= 2 && depth <= 3 && r() < 0.4) {
-      steps.push(cancel("~b", STANCES[cancels++ % STANCES.length]!, [int(-6, 3), int(0, 8), int(2, 10)], r() < 0.3 ? ["high"] : []));
+      steps.push(
+        cancel(
+          "~b",
+          STANCES[cancels++ % STANCES.length]!,
+          [int(-6, 3), int(0, 8), int(2, 10)],
+          r() < 0.3 ? ["high"] : [],
+        ),
+      );
     }
     return steps;
   };
 
   const stanceMoves: Root[] = STANCES.flatMap((s) =>
     Array.from({ length: 11 }, (_, i) =>
-      fromStance(s, `:${i + 1}`, first(int(10, 20), h(`${s}-${i}`)), [1, 2, 3].map((b) => follow(`,${b}`, { gap: int(-1, 5), combo: r() < 0.5 }, h(`${s}-${i}-${b}`)))),
+      fromStance(
+        s,
+        `:${i + 1}`,
+        first(int(10, 20), h(`${s}-${i}`)),
+        [1, 2, 3].map((b) => follow(`,${b}`, { gap: int(-1, 5), combo: r() < 0.5 }, h(`${s}-${i}-${b}`))),
+      ),
     ),
   );
 

@@ -7,7 +7,11 @@ export default function ErrorPage({ reset }: { error: Error & { digest?: string 
       <p className="text-ink-300">
         The page could not be loaded. If the database was restarting, trying again usually works.
       </p>
-      <button type="button" onClick={reset} className="rounded-md bg-accent px-4 py-2 font-medium text-ink-950 hover:bg-accent-strong">
+      <button
+        type="button"
+        onClick={reset}
+        className="rounded-md bg-accent px-4 py-2 font-medium text-ink-950 hover:bg-accent-strong"
+      >
         Try again
       </button>
     </div>

@@ -27,9 +27,7 @@ export default function LandingPage() {
   return (
     <div className="space-y-10">
       <section className="max-w-3xl space-y-4 pt-6">
-        <h1 className="text-3xl font-semibold tracking-tight sm:text-4xl">
-          Know what every string leaves you with.
-        </h1>
+        <h1 className="text-3xl font-semibold tracking-tight sm:text-4xl">Know what every string leaves you with.</h1>
         <p className="text-lg text-ink-300">
           Framefork is where competitive fighting-game players and coaches study strings and stance cancels: which
           ending keeps your turn, what a blocked string costs, where the opponent has to guess, and what is guaranteed
@@ -42,13 +40,16 @@ export default function LandingPage() {
           >
             Browse games
           </Link>
-          <Link href="/help" className="rounded-md border border-ink-700 px-4 py-2 text-ink-200 no-underline hover:border-ink-400">
+          <Link
+            href="/help"
+            className="rounded-md border border-ink-700 px-4 py-2 text-ink-200 no-underline hover:border-ink-400"
+          >
             How to read the numbers
           </Link>
         </div>
       </section>
       <section aria-labelledby="what" className="space-y-4">
-        <h2 id="what" className="text-sm font-semibold uppercase tracking-wider text-ink-400">
+        <h2 id="what" className="text-sm font-semibold tracking-wider text-ink-400 uppercase">
           What it does
         </h2>
         <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">

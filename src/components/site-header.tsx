@@ -6,7 +6,10 @@ export async function SiteHeader() {
   const user = await auth();
   return (
     <header className="border-b border-ink-800 bg-ink-900/80">
-      <nav aria-label="Main" className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3 sm:px-6">
+      <nav
+        aria-label="Main"
+        className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3 sm:px-6"
+      >
         <Link href="/" className="flex items-center gap-2 font-mono text-lg font-bold text-accent no-underline">
           <span aria-hidden className="inline-block h-3 w-3 rotate-45 bg-accent" />
           Framefork
@@ -25,7 +28,11 @@ export async function SiteHeader() {
         <div className="ml-auto flex items-center gap-4 text-sm" data-testid="account-area">
           {user ? (
             <>
-              <Link href="/account" className="max-w-[12rem] truncate text-ink-200 hover:text-ink-100 hover:underline" title={user.email}>
+              <Link
+                href="/account"
+                className="max-w-[12rem] truncate text-ink-200 hover:text-ink-100 hover:underline"
+                title={user.email}
+              >
                 {user.name ?? user.email}
               </Link>
               <SignOutButton />
@@ -35,7 +42,10 @@ export async function SiteHeader() {
               <Link href="/sign-in" className="text-ink-200 hover:text-ink-100 hover:underline">
                 Sign in
               </Link>
-              <Link href="/sign-up" className="rounded border border-accent-muted px-2 py-1 text-accent no-underline hover:bg-ink-800">
+              <Link
+                href="/sign-up"
+                className="rounded border border-accent-muted px-2 py-1 text-accent no-underline hover:bg-ink-800"
+              >
                 Sign up
               </Link>
             </>

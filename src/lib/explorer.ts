@@ -86,7 +86,11 @@ export const pathKey = (p: Pick<PathResult, "edges">) => p.edges.join("|");
 
 /** What the Explorer keeps in the search params, so a reload or a shared address opens the same view. */
 export const explorerSearchSchema = z.object({
-  edition: z.string().regex(/^[a-z0-9-]{1,32}$/).optional().catch(undefined),
+  edition: z
+    .string()
+    .regex(/^[a-z0-9-]{1,32}$/)
+    .optional()
+    .catch(undefined),
   path: z.string().max(4000).optional().catch(undefined),
   depth: z.coerce.number().int().min(1).max(16).optional().catch(undefined),
   visits: z.coerce.number().int().min(0).max(4).optional().catch(undefined),

@@ -52,7 +52,14 @@ export function layoutGraph(
 ): PlacedNode[] {
   const fast = effort === "fast";
   const g = new dagre.graphlib.Graph({ multigraph: true });
-  g.setGraph({ rankdir: direction, nodesep: nodeSep, ranksep: rankSep, marginx: 0, marginy: 0, ranker: fast ? "tight-tree" : "network-simplex" });
+  g.setGraph({
+    rankdir: direction,
+    nodesep: nodeSep,
+    ranksep: rankSep,
+    marginx: 0,
+    marginy: 0,
+    ranker: fast ? "tight-tree" : "network-simplex",
+  });
   g.setDefaultEdgeLabel(() => ({}));
   for (const n of nodes) g.setNode(n.id, { width: n.width, height: n.height });
   for (const e of edges) {

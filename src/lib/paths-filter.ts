@@ -20,7 +20,14 @@ export const NO_FILTERS: PathFilters = {
   naturalOnly: false,
 };
 
-export const BLOCK_CLASSES: readonly BlockClass[] = ["plus", "even", "safe", "punishable", "launch-punishable", "state"];
+export const BLOCK_CLASSES: readonly BlockClass[] = [
+  "plus",
+  "even",
+  "safe",
+  "punishable",
+  "launch-punishable",
+  "state",
+];
 export const ON_HIT_KINDS: readonly OnHitKind[] = ["numeric", "knockdown", "launch", "wall-splat", "crumple", "throw"];
 
 export function outcomeKind(o: Outcome): OnHitKind {
@@ -28,9 +35,7 @@ export function outcomeKind(o: Outcome): OnHitKind {
 }
 
 export function hasFilters(f: PathFilters): boolean {
-  return (
-    f.blockClass !== "any" || f.minDamage !== null || f.onHit !== "any" || f.stanceOnly || f.naturalOnly
-  );
+  return f.blockClass !== "any" || f.minDamage !== null || f.onHit !== "any" || f.stanceOnly || f.naturalOnly;
 }
 
 /** The paths that pass every filter, in their original order (the walk's order). */

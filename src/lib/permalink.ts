@@ -61,7 +61,10 @@ export const VISIBILITY_TEXT: Record<PermalinkVisibility, { label: string; expla
 };
 
 const id = (what: string) =>
-  z.number({ error: `${what} must be a number.` }).int({ error: `${what} must be a whole number.` }).positive({ error: `${what} must be positive.` });
+  z
+    .number({ error: `${what} must be a number.` })
+    .int({ error: `${what} must be a whole number.` })
+    .positive({ error: `${what} must be positive.` });
 
 /** The body of POST /api/permalinks. */
 export const createPermalinkSchema = z
@@ -72,7 +75,9 @@ export const createPermalinkSchema = z
       .string({ error: "Say which Edition the link is pinned to." })
       .regex(/^[a-z0-9-]{1,32}$/, { error: "An Edition is named by its slug, such as 1-1." }),
     view: permalinkViewSchema,
-    visibility: z.enum(PERMALINK_VISIBILITIES, { error: 'Visibility is "team" (members only) or "link" (anyone with the link).' }),
+    visibility: z.enum(PERMALINK_VISIBILITIES, {
+      error: 'Visibility is "team" (members only) or "link" (anyone with the link).',
+    }),
   })
   .strict();
 
@@ -118,7 +123,8 @@ export function explorerHref({
   const params = new URLSearchParams({ edition });
   if (view.path !== null) params.set("path", view.path);
   if (view.options.maxDepth !== VIEW_BOUNDS.maxDepth.default) params.set("depth", String(view.options.maxDepth));
-  if (view.options.maxStanceVisits !== VIEW_BOUNDS.maxStanceVisits.default) params.set("visits", String(view.options.maxStanceVisits));
+  if (view.options.maxStanceVisits !== VIEW_BOUNDS.maxStanceVisits.default)
+    params.set("visits", String(view.options.maxStanceVisits));
   if (view.options.fastest !== gameFastest) params.set("fastest", String(view.options.fastest));
   if (view.opponent !== null) params.set("vs", String(view.opponent));
   return `/games/${encodeURIComponent(gameSlug)}/${encodeURIComponent(characterSlug)}/explore/${encodeURIComponent(view.root)}?${params.toString()}`;
@@ -138,7 +144,10 @@ export function canRevoke({ role, isCreator }: { role: Role | null; isCreator: b
  * from the root) and gives the path's input: the root's input followed by
  * each edge's input, as the engine joins it.
  */
-export function tracePath(graph: MoveGraph, view: Pick<PermalinkView, "root" | "path">): { ok: true; input: string } | { ok: false; error: string } {
+export function tracePath(
+  graph: MoveGraph,
+  view: Pick<PermalinkView, "root" | "path">,
+): { ok: true; input: string } | { ok: false; error: string } {
   const root = graph.nodes.find((n) => n.id === view.root);
   if (!root || root.kind !== "move") return { ok: false, error: `There is no move "${view.root}" to start from.` };
   if (view.path === null || view.path === "") return { ok: true, input: root.input };

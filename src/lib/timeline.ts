@@ -1,4 +1,14 @@
-import type { BlockClass, CancelEdge, GraphEdge, GraphNode, Level, MoveGraph, MoveNode, Outcome, PathResult } from "@/lib/engine";
+import type {
+  BlockClass,
+  CancelEdge,
+  GraphEdge,
+  GraphNode,
+  Level,
+  MoveGraph,
+  MoveNode,
+  Outcome,
+  PathResult,
+} from "@/lib/engine";
 import { BLOCK_CLASS_WORD, formatFrames, formatOutcome } from "@/lib/format";
 
 /**
@@ -115,7 +125,11 @@ function stepGap(
     return { frames: edge.gapOnBlock, via: "follow", why: `the follow-up's gap is ${edge.gapOnBlock} frames` };
   }
   if (cancelBefore === null) {
-    return { frames: null, via: "enter", why: "the stance move has no cancel before it on the path, so nothing fixes its timing" };
+    return {
+      frames: null,
+      via: "enter",
+      why: "the stance move has no cancel before it on the path, so nothing fixes its timing",
+    };
   }
   const a = cancelBefore.onBlock;
   if (typeof a !== "number") {
@@ -137,7 +151,11 @@ function stepGap(
   };
 }
 
-function gapWords(after: number, frames: number | null, why: string): { status: GapStatus; label: string; explain: string } {
+function gapWords(
+  after: number,
+  frames: number | null,
+  why: string,
+): { status: GapStatus; label: string; explain: string } {
   const where = `after ${hitOrdinal(after)}`;
   if (frames === null) {
     return { status: "unknown", label: "? no gap known", explain: `No gap on block known ${where}: ${why}.` };
@@ -219,7 +237,8 @@ export function timelineSegments(path: PathResult, graph: MoveGraph): TimelineSe
       const final = i === path.nodes.length - 1;
       const framesSaved = final ? path.framesSaved : null;
       const after = hits - 1;
-      const guard = edge.autoGuard.length > 0 ? ` During the transition it auto-guards ${edge.autoGuard.join(", ")}.` : "";
+      const guard =
+        edge.autoGuard.length > 0 ? ` During the transition it auto-guards ${edge.autoGuard.join(", ")}.` : "";
       const explain =
         final && framesSaved !== null
           ? `Cancel ${edge.input} into ${node.name} after ${hitOrdinal(after)}: ${formatOutcome(edge.onBlock)} on block instead of ${formatOutcome(lastMove.onBlock)} when stopping at the hit: ${formatOutcome(edge.onBlock)} − (${formatOutcome(lastMove.onBlock)}) = ${framesSaved} frames ${framesSaved >= 0 ? "saved" : "lost"}.${guard}`
@@ -289,7 +308,12 @@ export function timelineSegments(path: PathResult, graph: MoveGraph): TimelineSe
       via,
       fromStance,
       explain: `Hit ${index + 1} (${node.name ?? node.input}): ${how}. Level ${node.level}${path.guards[index] ? `, stopped by ${path.guards[index].join(" or ")}` : ""}; damage ${node.damage}.`,
-      width: Math.max(textWidth(label, TIMELINE_FONT.figure), textWidth(node.level, TIMELINE_FONT.caption), textWidth("hit 00", TIMELINE_FONT.caption)) + 16,
+      width:
+        Math.max(
+          textWidth(label, TIMELINE_FONT.figure),
+          textWidth(node.level, TIMELINE_FONT.caption),
+          textWidth("hit 00", TIMELINE_FONT.caption),
+        ) + 16,
     });
     hits++;
     lastMove = node;

@@ -31,11 +31,17 @@ async function run(fn: () => Promise<string>): Promise<ActionState> {
   }
 }
 
-function parse<S extends z.ZodType>(schema: S, formData: FormData): { ok: true; data: z.infer<S> } | { ok: false; state: ActionState } {
+function parse<S extends z.ZodType>(
+  schema: S,
+  formData: FormData,
+): { ok: true; data: z.infer<S> } | { ok: false; state: ActionState } {
   const parsed = schema.safeParse(Object.fromEntries(formData));
   if (parsed.success) return { ok: true, data: parsed.data };
   const errors = fieldErrors(parsed.error);
-  return { ok: false, state: { ok: false, code: "bad_request", error: "Check the fields marked below.", fieldErrors: errors } };
+  return {
+    ok: false,
+    state: { ok: false, code: "bad_request", error: "Check the fields marked below.", fieldErrors: errors },
+  };
 }
 
 /**
@@ -51,7 +57,10 @@ export function validatedAction<S extends z.ZodType>(schema: S, action: (data: z
 }
 
 /** The same, for actions of a signed-in user: parse, then the session (unauthorized without one). */
-export function validatedActionWithUser<S extends z.ZodType>(schema: S, action: (data: z.infer<S>, user: SessionUser) => Promise<string>) {
+export function validatedActionWithUser<S extends z.ZodType>(
+  schema: S,
+  action: (data: z.infer<S>, user: SessionUser) => Promise<string>,
+) {
   return async (_previous: ActionState, formData: FormData): Promise<ActionState> => {
     const parsed = parse(schema, formData);
     if (!parsed.ok) return parsed.state;

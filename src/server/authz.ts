@@ -22,9 +22,18 @@ export async function getRole({ teamId, userId }: { teamId: number; userId: stri
  * session: a non-member gets the same 404 as a team that does not exist (so
  * nothing leaks about other teams); a member whose role is too low gets 403.
  */
-export async function requireRole({ teamId, userId, needed }: { teamId: number; userId: string; needed: Role }): Promise<Role> {
+export async function requireRole({
+  teamId,
+  userId,
+  needed,
+}: {
+  teamId: number;
+  userId: string;
+  needed: Role;
+}): Promise<Role> {
   const role = await getRole({ teamId, userId });
   if (role === null) throw new AppError("not_found", "No such team.");
-  if (!atLeast(role, needed)) throw new AppError("forbidden", `This needs the ${needed} role or higher in the team; you are a ${role}.`);
+  if (!atLeast(role, needed))
+    throw new AppError("forbidden", `This needs the ${needed} role or higher in the team; you are a ${role}.`);
   return role;
 }

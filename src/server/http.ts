@@ -5,7 +5,10 @@ import { AppError, type ErrorIssue } from "@/lib/errors";
 export const DEFAULT_MAX_BODY_BYTES = 1_000_000;
 
 export function zodIssues(error: z.ZodError): ErrorIssue[] {
-  return error.issues.map((i) => ({ path: i.path.map((p) => (typeof p === "symbol" ? String(p) : p)), message: i.message }));
+  return error.issues.map((i) => ({
+    path: i.path.map((p) => (typeof p === "symbol" ? String(p) : p)),
+    message: i.message,
+  }));
 }
 
 /**
@@ -51,11 +54,19 @@ export async function readJson<S extends z.ZodType>(
 }
 
 /** Validates path or query parameters: 400 with zod's issues when they do not fit. */
-export function parseWith<S extends z.ZodType>(schema: S, input: unknown, where: "body" | "path" | "query"): z.infer<S> {
+export function parseWith<S extends z.ZodType>(
+  schema: S,
+  input: unknown,
+  where: "body" | "path" | "query",
+): z.infer<S> {
   const parsed = schema.safeParse(input);
   if (!parsed.success) {
     const issues = zodIssues(parsed.error);
-    throw new AppError("bad_request", `Invalid ${where}: ${issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ")}`, issues);
+    throw new AppError(
+      "bad_request",
+      `Invalid ${where}: ${issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ")}`,
+      issues,
+    );
   }
   return parsed.data;
 }

@@ -9,6 +9,16 @@ export function inviteLink(token: string): string {
   return new URL(`/invites/${encodeURIComponent(token)}`, env().NEXTAUTH_URL).toString();
 }
 
-export async function sendInviteMail({ to, ...content }: { to: string; teamName: string; inviterName: string; role: Role; url: string; expiresInDays: number }) {
+export async function sendInviteMail({
+  to,
+  ...content
+}: {
+  to: string;
+  teamName: string;
+  inviterName: string;
+  role: Role;
+  url: string;
+  expiresInDays: number;
+}) {
   await sendMail({ to, ...inviteMail(content) });
 }

@@ -20,7 +20,13 @@ async function signedIn(currentUser: CurrentUser, doing: string): Promise<{ id: 
 }
 
 /** POST /api/permalinks: a player or higher of the team shares a view; 201 with the permalink. */
-export async function respondCreatePermalink({ request, currentUser }: { request: Request; currentUser: CurrentUser }): Promise<Response> {
+export async function respondCreatePermalink({
+  request,
+  currentUser,
+}: {
+  request: Request;
+  currentUser: CurrentUser;
+}): Promise<Response> {
   const input = await readJson(request, createPermalinkSchema, { maxBytes: 16_000 });
   const user = await signedIn(currentUser, "share");
   await requireRole({ teamId: input.teamId, userId: user.id, needed: "player" });
@@ -35,10 +41,18 @@ export async function respondCreatePermalink({ request, currentUser }: { request
   return Response.json({ permalink }, { status: 201 });
 }
 
-const slugParamsSchema = z.object({ slug: z.string().regex(SLUG_PATTERN, { error: "That is not a permalink's address." }) });
+const slugParamsSchema = z.object({
+  slug: z.string().regex(SLUG_PATTERN, { error: "That is not a permalink's address." }),
+});
 
 /** DELETE /api/permalinks/[slug]: the creator, a coach or an owner revokes it (again: no change). */
-export async function respondRevokePermalink({ params, currentUser }: { params: unknown; currentUser: CurrentUser }): Promise<Response> {
+export async function respondRevokePermalink({
+  params,
+  currentUser,
+}: {
+  params: unknown;
+  currentUser: CurrentUser;
+}): Promise<Response> {
   const { slug } = parseWith(slugParamsSchema, params, "path");
   const user = await signedIn(currentUser, "revoke a link");
   const permalink = await revokePermalink({ slug, actorId: user.id });

@@ -33,7 +33,10 @@ test("a new player signs up, signs out and signs in again", async ({ page }) => 
   await signUp(page, "Rin Ashby", email);
 
   // The account is in MariaDB with an argon2id hash, never the password itself.
-  const [row] = await query<{ password_hash: string; name: string }>("select password_hash, name from users where email = ?", [email]);
+  const [row] = await query<{ password_hash: string; name: string }>(
+    "select password_hash, name from users where email = ?",
+    [email],
+  );
   expect(row?.name).toBe("Rin Ashby");
   expect(row?.password_hash).toMatch(/^\$argon2id\$/);
 

@@ -42,7 +42,10 @@ test("a player opens a string from the move list, picks a node and reads its pat
   await expect(explorer.field("autoGuard")).toContainText("high, mid");
 });
 
-test("a figure explains itself on focus and on hover (a tap on a phone), and hides again", async ({ page, hasTouch }) => {
+test("a figure explains itself on focus and on hover (a tap on a phone), and hides again", async ({
+  page,
+  hasTouch,
+}) => {
   const explorer = new ExplorerPage(page);
   await page.goto("/games/vesper-circuit/tarrow/explore/2");
   await explorer.node("2,2,3").click();
@@ -95,7 +98,9 @@ test("an unknown move is a 404", async ({ page }) => {
   expect(response?.status()).toBe(404);
 });
 
-test("a blocked low leaves the defender crouching, and the card lists the punishers that come out of a crouch", async ({ page }) => {
+test("a blocked low leaves the defender crouching, and the card lists the punishers that come out of a crouch", async ({
+  page,
+}) => {
   const explorer = new ExplorerPage(page);
   await page.goto("/games/vesper-circuit/tarrow/explore/1");
   await explorer.node("1,2,4").click(); // ends in a low at -13
@@ -111,7 +116,9 @@ test("a blocked low leaves the defender crouching, and the card lists the punish
   // A long list starts folded to the best few; unfold it to read every punisher.
   const more = panel.getByRole("button", { name: /^Show all \d+$/ }).first();
   if (await more.isVisible()) await more.click();
-  const listed = await panel.locator("[data-testid=punishers] [data-option]").evaluateAll((els) => els.map((e) => e.getAttribute("data-option")));
+  const listed = await panel
+    .locator("[data-testid=punishers] [data-option]")
+    .evaluateAll((els) => els.map((e) => e.getAttribute("data-option")));
   const expected = startups.filter((m) => m.startup <= 13 && m.from_posture !== "standing").map((m) => m.input);
   expect(listed.sort()).toEqual(expected.sort());
   expect(listed.length).toBeGreaterThan(0);
@@ -212,7 +219,9 @@ test("the Path card reads each hit's level and the path's damage from the data",
      where c.slug = 'tarrow' and e.slug = '1-1' and m.\`key\` in ('1', '1,2', '1,2,3')`,
   );
   const byKey = new Map(rows.map((r) => [r.key, r]));
-  const levels = await explorer.card.locator("ol [data-level]").evaluateAll((els) => els.map((e) => e.getAttribute("data-level")));
+  const levels = await explorer.card
+    .locator("ol [data-level]")
+    .evaluateAll((els) => els.map((e) => e.getAttribute("data-level")));
   expect(levels).toEqual(["1", "1,2", "1,2,3"].map((k) => byKey.get(k)?.level));
   const damage = ["1", "1,2", "1,2,3"].reduce((sum, k) => sum + (byKey.get(k)?.damage ?? 0), 0);
   await expect(explorer.field("damage")).toHaveText(String(damage));

@@ -17,7 +17,10 @@ async function freshPage(browser: Browser) {
   return context.newPage();
 }
 
-test("an owner invites a player by e-mail; the player accepts from the mail and sees the team", async ({ page, browser }) => {
+test("an owner invites a player by e-mail; the player accepts from the mail and sees the team", async ({
+  page,
+  browser,
+}) => {
   const ownerEmail = newEmail("owner");
   const playerEmail = newEmail("player");
   const teamName = `Harbor Lights ${randomUUID().slice(0, 4)}`;
@@ -64,7 +67,10 @@ test("an owner invites a player by e-mail; the player accepts from the mail and 
   await expect(team.log).toContainText("Jun Okada");
 });
 
-test("a player shares a permalink; a stranger opens the public one, is refused the team-only one; a revoked link is a 404", async ({ page, browser }) => {
+test("a player shares a permalink; a stranger opens the public one, is refused the team-only one; a revoked link is a 404", async ({
+  page,
+  browser,
+}) => {
   const playerEmail = newEmail("sharer");
   await signUpAs(page, "Ivo Stratt", playerEmail);
   // The team and the player's place in it come straight from the database: this test is about sharing.
@@ -142,12 +148,17 @@ test("a team name that looks like a script or SQL is shown as the text it is", a
   await expect(page.getByTestId("team-list")).toContainText(name);
 });
 
-test("the sign-up, team, invite and shared pages have no serious or critical accessibility violations", async ({ page, browser }) => {
+test("the sign-up, team, invite and shared pages have no serious or critical accessibility violations", async ({
+  page,
+  browser,
+}) => {
   const { default: AxeBuilder } = await import("@axe-core/playwright");
   const check = async (p: typeof page, where: string) => {
     const results = await new AxeBuilder({ page: p }).analyze();
     const bad = results.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
-    expect(bad.map((v) => `${where} ${v.id}: ${v.nodes.length} node(s), e.g. ${v.nodes[0]?.target.join(" ")}`)).toEqual([]);
+    expect(bad.map((v) => `${where} ${v.id}: ${v.nodes.length} node(s), e.g. ${v.nodes[0]?.target.join(" ")}`)).toEqual(
+      [],
+    );
   };
   await page.goto("/sign-up");
   await check(page, "sign-up");

@@ -12,24 +12,31 @@ const good = {
 describe("checkEnv", () => {
   test("accepts a full local setup", () => {
     expect(checkEnv(good)).toMatchObject({ ...good, NODE_ENV: "development" });
-    expect(checkEnv({ ...good, MAIL_FROM: "no-reply@example.test", SMTP_URL: "smtps://user:pw@mail.example.test:465" }).MAIL_FROM).toBe(
-      "no-reply@example.test",
-    );
+    expect(
+      checkEnv({ ...good, MAIL_FROM: "no-reply@example.test", SMTP_URL: "smtps://user:pw@mail.example.test:465" })
+        .MAIL_FROM,
+    ).toBe("no-reply@example.test");
   });
 
   test("names the variable and points at .env.example when it is missing or wrong", () => {
     expect(() => checkEnv({})).toThrow(/DATABASE_URL[\s\S]*\.env\.example/);
-    expect(() => checkEnv({ ...good, DATABASE_URL: "postgres://u@h/db" })).toThrow(/DATABASE_URL must look like mysql:\/\//);
+    expect(() => checkEnv({ ...good, DATABASE_URL: "postgres://u@h/db" })).toThrow(
+      /DATABASE_URL must look like mysql:\/\//,
+    );
   });
 
   test("refuses a short NEXTAUTH_SECRET, and says how long it must be", () => {
-    expect(() => checkEnv({ ...good, NEXTAUTH_SECRET: "a".repeat(31) })).toThrow(/NEXTAUTH_SECRET must be at least 32 characters/);
+    expect(() => checkEnv({ ...good, NEXTAUTH_SECRET: "a".repeat(31) })).toThrow(
+      /NEXTAUTH_SECRET must be at least 32 characters/,
+    );
     expect(() => checkEnv({ ...good, NEXTAUTH_SECRET: undefined })).toThrow(/NEXTAUTH_SECRET/);
   });
 
   test("refuses mail settings that cannot send", () => {
     expect(() => checkEnv({ ...good, SMTP_URL: "http://127.0.0.1:1080" })).toThrow(/SMTP_URL must look like smtp:\/\//);
     expect(() => checkEnv({ ...good, MAIL_FROM: "Framefork" })).toThrow(/MAIL_FROM must be an address/);
-    expect(() => checkEnv({ ...good, NEXTAUTH_URL: "127.0.0.1:3000" })).toThrow(/NEXTAUTH_URL must be the app's own address/);
+    expect(() => checkEnv({ ...good, NEXTAUTH_URL: "127.0.0.1:3000" })).toThrow(
+      /NEXTAUTH_URL must be the app's own address/,
+    );
   });
 });

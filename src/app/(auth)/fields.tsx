@@ -67,7 +67,15 @@ export function NewPasswordField({ name, label, error }: { name: string; label: 
   );
 }
 
-export function Submit({ pending, children, pendingText }: { pending: boolean; children: React.ReactNode; pendingText: string }) {
+export function Submit({
+  pending,
+  children,
+  pendingText,
+}: {
+  pending: boolean;
+  children: React.ReactNode;
+  pendingText: string;
+}) {
   return (
     <button
       type="submit"
@@ -102,4 +110,5 @@ export function Notice({ error, message }: { error?: string | null; message?: st
 export const fieldError = (state: ActionState, name: string): string | undefined =>
   state && !state.ok ? state.fieldErrors?.[name] : undefined;
 
-export const formError = (state: ActionState): string | null => (state && !state.ok && !state.fieldErrors ? state.error : null);
+export const formError = (state: ActionState): string | null =>
+  state && !state.ok && !state.fieldErrors ? state.error : null;

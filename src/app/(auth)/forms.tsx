@@ -64,7 +64,12 @@ export function PasswordSignInForm({ callbackUrl }: { callbackUrl: string }) {
       submit="Sign in"
       pendingText="Signing in…"
       send={async (form) => {
-        const result = await signIn("credentials", { redirect: false, email: text(form, "email"), password: text(form, "password"), callbackUrl });
+        const result = await signIn("credentials", {
+          redirect: false,
+          email: text(form, "email"),
+          password: text(form, "password"),
+          callbackUrl,
+        });
         if (result?.ok && !result.error) {
           go(callbackUrl);
           return null;
@@ -95,7 +100,9 @@ export function SignInLinkForm({ callbackUrl }: { callbackUrl: string }) {
           go("/check-email?for=link");
           return null;
         }
-        return result?.error === "EmailSignin" ? "We could not send the e-mail. Try again in a moment." : signInMessage(result?.error);
+        return result?.error === "EmailSignin"
+          ? "We could not send the e-mail. Try again in a moment."
+          : signInMessage(result?.error);
       }}
     >
       <Field name="email" label="E-mail" type="email" autoComplete="email" />
@@ -130,7 +137,14 @@ export function SignUpForm({ callbackUrl, defaultEmail }: { callbackUrl: string;
     >
       <Notice error={formError(state)} message={state?.ok ? `${state.message} Signing you in…` : null} />
       <Field name="name" label="Name" autoComplete="name" error={fieldError(state, "name")} />
-      <Field name="email" label="E-mail" type="email" autoComplete="email" defaultValue={defaultEmail} error={fieldError(state, "email")} />
+      <Field
+        name="email"
+        label="E-mail"
+        type="email"
+        autoComplete="email"
+        defaultValue={defaultEmail}
+        error={fieldError(state, "email")}
+      />
       <NewPasswordField name="password" label="Password" error={fieldError(state, "password")} />
       <Submit pending={pending} pendingText="Creating your account…">
         Create account
@@ -144,7 +158,14 @@ export function ForgotPasswordForm({ defaultEmail }: { defaultEmail?: string }) 
   return (
     <form action={action} aria-label="Reset your password" className="space-y-4">
       <Notice error={formError(state)} />
-      <Field name="email" label="E-mail" type="email" autoComplete="email" defaultValue={defaultEmail} error={fieldError(state, "email")} />
+      <Field
+        name="email"
+        label="E-mail"
+        type="email"
+        autoComplete="email"
+        defaultValue={defaultEmail}
+        error={fieldError(state, "email")}
+      />
       <Submit pending={pending} pendingText="Sending…">
         E-mail me a reset link
       </Submit>
@@ -174,7 +195,11 @@ export function ResetPasswordForm({ token }: { token: string }) {
         </Link>
       ) : null}
       <input type="hidden" name="token" value={token} />
-      <NewPasswordField name="password" label="New password" error={fieldError(state, "password") ?? fieldError(state, "token")} />
+      <NewPasswordField
+        name="password"
+        label="New password"
+        error={fieldError(state, "password") ?? fieldError(state, "token")}
+      />
       <Submit pending={pending} pendingText="Saving…">
         Save the new password
       </Submit>
@@ -187,7 +212,13 @@ export function ChangePasswordForm() {
   return (
     <form action={action} aria-label="Change your password" className="space-y-4">
       <Notice error={formError(state)} message={state?.ok ? state.message : null} />
-      <Field name="currentPassword" label="Current password" type="password" autoComplete="current-password" error={fieldError(state, "currentPassword")} />
+      <Field
+        name="currentPassword"
+        label="Current password"
+        type="password"
+        autoComplete="current-password"
+        error={fieldError(state, "currentPassword")}
+      />
       <NewPasswordField name="newPassword" label="New password" error={fieldError(state, "newPassword")} />
       <Submit pending={pending} pendingText="Saving…">
         Change password

@@ -67,7 +67,10 @@ export function ExplorerView({ characterId, root, pinned = false, share }: Explo
   );
   const pickAlternative = useCallback((p: PathResult) => select(pathKey(p)), [select]);
 
-  const shareButton = useMemo(() => (share ? <ShareButton teams={share.teams} characterId={characterId} root={root} /> : null), [share, characterId, root]);
+  const shareButton = useMemo(
+    () => (share ? <ShareButton teams={share.teams} characterId={characterId} root={root} /> : null),
+    [share, characterId, root],
+  );
 
   useEffect(() => finishTimingAfterPaint("select"), [selected]);
   useEffect(() => finishTimingAfterPaint("recompute"), [computed]);
@@ -113,7 +116,10 @@ export function ExplorerView({ characterId, root, pinned = false, share }: Explo
     return (
       <p role="alert" className="rounded-lg border border-dashed border-ink-700 p-6 text-ink-300">
         {data.edition.name} has no move “{root}” for {data.character.name}.{" "}
-        <Link href={`/games/${data.game.slug}/${data.character.slug}?edition=${data.edition.slug}`} className="text-accent underline">
+        <Link
+          href={`/games/${data.game.slug}/${data.character.slug}?edition=${data.edition.slug}`}
+          className="text-accent underline"
+        >
           Back to the move list
         </Link>
       </p>
@@ -151,14 +157,20 @@ export function ExplorerView({ characterId, root, pinned = false, share }: Explo
       />
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="min-w-0 space-y-3">
-          <div className="h-[55vh] min-h-80 overflow-hidden rounded-lg border border-ink-800 bg-ink-950 [contain:strict] lg:h-[68vh]" data-testid="graph">
+          <div
+            className="h-[55vh] min-h-80 overflow-hidden rounded-lg border border-ink-800 bg-ink-950 [contain:strict] lg:h-[68vh]"
+            data-testid="graph"
+          >
             <GraphCanvas
               graph={sub}
               rules={rules}
               selected={selected}
               onSelectNode={onSelectNode}
               onClear={() => select(null)}
-              exportName={`framefork-${data.character.slug}-${root}-${data.edition.slug}.png`.replace(/[^\w.+-]+/g, "_")}
+              exportName={`framefork-${data.character.slug}-${root}-${data.edition.slug}.png`.replace(
+                /[^\w.+-]+/g,
+                "_",
+              )}
             />
           </div>
           {laterPath ? <FrameTimeline path={laterPath} graph={sub} rules={rules} /> : null}
@@ -178,7 +190,10 @@ export function ExplorerView({ characterId, root, pinned = false, share }: Explo
               <PunishPanel path={selected} data={data} fastest={options.fastest} />
             </>
           ) : (
-            <div className="rounded-lg border border-dashed border-ink-700 p-4 text-sm text-ink-300" data-testid="path-card-empty">
+            <div
+              className="rounded-lg border border-dashed border-ink-700 p-4 text-sm text-ink-300"
+              data-testid="path-card-empty"
+            >
               {selectedKey !== null
                 ? "The selected path is not reachable with these options. Pick a node to choose another."
                 : "Pick a node in the graph: the path to it is selected and its outcome shows here."}

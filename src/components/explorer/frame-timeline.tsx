@@ -86,15 +86,22 @@ function classSentence(cls: BlockClass, onBlock: PathResult["onBlock"], rules: R
 }
 
 function explainEnd(end: EndSegment, cancel: CancelSegment | null, rules: Rules): string {
-  const parts = [`On block: ${formatOutcome(end.onBlock)}, from ${end.source}.`, classSentence(end.blockClass, end.onBlock, rules)];
+  const parts = [
+    `On block: ${formatOutcome(end.onBlock)}, from ${end.source}.`,
+    classSentence(end.blockClass, end.onBlock, rules),
+  ];
   if (cancel !== null) {
     const raw = cancel.hitOnBlock;
-    parts.push(`Stopping at the hit instead of cancelling: ${formatOutcome(raw)} (${BLOCK_WORD[classifyBlock(raw, rules)]}).`);
+    parts.push(
+      `Stopping at the hit instead of cancelling: ${formatOutcome(raw)} (${BLOCK_WORD[classifyBlock(raw, rules)]}).`,
+    );
   }
   // The engine classified with the options the paths were explored with; say so if these differ.
   const now = classifyBlock(end.onBlock, rules);
   if (now !== end.blockClass) {
-    parts.push(`With fastest ${rules.fastest}f and launch at ${rules.launchAt}f it would be ${BLOCK_WORD[now]}: the paths were computed with other rules.`);
+    parts.push(
+      `With fastest ${rules.fastest}f and launch at ${rules.launchAt}f it would be ${BLOCK_WORD[now]}: the paths were computed with other rules.`,
+    );
   }
   return parts.join(" ");
 }
@@ -168,11 +175,25 @@ function Hit({ seg, onActive }: { seg: HitSegment; onActive: (id: string, on: bo
       <text x={cx} y={CAPTION_Y} textAnchor="middle" fontSize={TIMELINE_FONT.caption} className="fill-ink-400">
         hit {seg.index + 1}
       </text>
-      <rect x={seg.x + 4} y={BOX_TOP} width={seg.width - 8} height={BOX_H} rx={4} strokeWidth={2} className={`fill-ink-850 ${LEVEL_STROKE[seg.level]}`} />
+      <rect
+        x={seg.x + 4}
+        y={BOX_TOP}
+        width={seg.width - 8}
+        height={BOX_H}
+        rx={4}
+        strokeWidth={2}
+        className={`fill-ink-850 ${LEVEL_STROKE[seg.level]}`}
+      />
       <text x={cx} y={FIGURE_Y} textAnchor="middle" fontSize={TIMELINE_FONT.figure} className="fill-ink-100">
         {seg.label}
       </text>
-      <text x={cx} y={WORD_Y} textAnchor="middle" fontSize={TIMELINE_FONT.caption} className={`uppercase ${LEVEL_TEXT[seg.level]}`}>
+      <text
+        x={cx}
+        y={WORD_Y}
+        textAnchor="middle"
+        fontSize={TIMELINE_FONT.caption}
+        className={`uppercase ${LEVEL_TEXT[seg.level]}`}
+      >
         {seg.level}
       </text>
     </Figure>
@@ -201,9 +222,29 @@ function Gap({ seg, onActive }: { seg: GapSegment; onActive: (id: string, on: bo
       {seg.status === "open" && (
         <>
           <line x1={x1} y1={MID_Y} x2={x2} y2={MID_Y} strokeWidth={3} className="stroke-block-punishable" />
-          <line x1={x1 + 4} y1={MID_Y - 5} x2={x1 + 4} y2={MID_Y + 5} strokeWidth={2} className="stroke-block-punishable" />
-          <line x1={x2 - 4} y1={MID_Y - 5} x2={x2 - 4} y2={MID_Y + 5} strokeWidth={2} className="stroke-block-punishable" />
-          <text x={cx} y={MID_Y - 9} textAnchor="middle" fontSize={TIMELINE_FONT.label} className="fill-block-punishable">
+          <line
+            x1={x1 + 4}
+            y1={MID_Y - 5}
+            x2={x1 + 4}
+            y2={MID_Y + 5}
+            strokeWidth={2}
+            className="stroke-block-punishable"
+          />
+          <line
+            x1={x2 - 4}
+            y1={MID_Y - 5}
+            x2={x2 - 4}
+            y2={MID_Y + 5}
+            strokeWidth={2}
+            className="stroke-block-punishable"
+          />
+          <text
+            x={cx}
+            y={MID_Y - 9}
+            textAnchor="middle"
+            fontSize={TIMELINE_FONT.label}
+            className="fill-block-punishable"
+          >
             {seg.label}
           </text>
         </>
@@ -213,7 +254,15 @@ function Gap({ seg, onActive }: { seg: GapSegment; onActive: (id: string, on: bo
           {/* Bars across the join: the defender is held between the hits. */}
           <line x1={x1} y1={MID_Y} x2={x2} y2={MID_Y} strokeWidth={3} className="stroke-block-plus" />
           {[cx - 6, cx, cx + 6].map((bx) => (
-            <line key={bx} x1={bx} y1={MID_Y - 6} x2={bx} y2={MID_Y + 6} strokeWidth={2} className="stroke-block-plus" />
+            <line
+              key={bx}
+              x1={bx}
+              y1={MID_Y - 6}
+              x2={bx}
+              y2={MID_Y + 6}
+              strokeWidth={2}
+              className="stroke-block-plus"
+            />
           ))}
           <text x={cx} y={MID_Y - 10} textAnchor="middle" fontSize={TIMELINE_FONT.label} className="fill-block-plus">
             {seg.label}
@@ -225,7 +274,15 @@ function Gap({ seg, onActive }: { seg: GapSegment; onActive: (id: string, on: bo
       )}
       {seg.status === "unknown" && (
         <>
-          <line x1={x1} y1={MID_Y} x2={x2} y2={MID_Y} strokeWidth={2} strokeDasharray="3 4" className="stroke-ink-400" />
+          <line
+            x1={x1}
+            y1={MID_Y}
+            x2={x2}
+            y2={MID_Y}
+            strokeWidth={2}
+            strokeDasharray="3 4"
+            className="stroke-ink-400"
+          />
           <text x={cx} y={MID_Y - 9} textAnchor="middle" fontSize={TIMELINE_FONT.label} className="fill-ink-300">
             {seg.label}
           </text>
@@ -295,7 +352,13 @@ function Start({ seg, onActive }: { seg: StartSegment; onActive: (id: string, on
         strokeDasharray="6 4"
         className="fill-ink-900 stroke-ink-600"
       />
-      <text x={seg.x + seg.width / 2} y={MID_Y + 4} textAnchor="middle" fontSize={TIMELINE_FONT.label} className="fill-ink-300">
+      <text
+        x={seg.x + seg.width / 2}
+        y={MID_Y + 4}
+        textAnchor="middle"
+        fontSize={TIMELINE_FONT.label}
+        className="fill-ink-300"
+      >
         from {seg.stance}
       </text>
     </Figure>
@@ -317,7 +380,14 @@ function End({
   const width = seg.width - 12;
   const block = formatOutcome(seg.onBlock);
   const row = (id: string, y: number, word: string, value: string, explain: string) => (
-    <Figure id={id} label={`${word} ${value}`} explain={explain} box={{ x: x - 3, y: y - 13, width: width + 2, height: 18 }} onActive={onActive} data={{ "data-outcome": id }}>
+    <Figure
+      id={id}
+      label={`${word} ${value}`}
+      explain={explain}
+      box={{ x: x - 3, y: y - 13, width: width + 2, height: 18 }}
+      onActive={onActive}
+      data={{ "data-outcome": id }}
+    >
       <text x={x + 4} y={y} fontSize={TIMELINE_FONT.label}>
         <tspan className="fill-ink-400">{word} </tspan>
         <tspan className="fill-ink-100">{value}</tspan>
@@ -337,7 +407,15 @@ function End({
         <text x={x + 4} y={CAPTION_Y} fontSize={TIMELINE_FONT.caption} className="fill-ink-400">
           on block
         </text>
-        <rect x={x} y={BOX_TOP} width={seg.boxWidth - 4} height={BOX_H} rx={4} strokeWidth={2} className={`fill-ink-850 ${BLOCK_STROKE[seg.blockClass]}`} />
+        <rect
+          x={x}
+          y={BOX_TOP}
+          width={seg.boxWidth - 4}
+          height={BOX_H}
+          rx={4}
+          strokeWidth={2}
+          className={`fill-ink-850 ${BLOCK_STROKE[seg.blockClass]}`}
+        />
         <text x={x + 8} y={FIGURE_Y} fontSize={TIMELINE_FONT.figure} className="fill-ink-100">
           {block}
         </text>
@@ -346,7 +424,13 @@ function End({
         </text>
       </Figure>
       {row("on-hit", ON_HIT_Y, "on hit", formatOutcome(seg.onHit), explainOutcome("hit", seg.onHit, seg))}
-      {row("on-counter-hit", ON_CH_Y, "on counter hit", formatOutcome(seg.onCounterHit), explainOutcome("counter hit", seg.onCounterHit, seg))}
+      {row(
+        "on-counter-hit",
+        ON_CH_Y,
+        "on counter hit",
+        formatOutcome(seg.onCounterHit),
+        explainOutcome("counter hit", seg.onCounterHit, seg),
+      )}
     </>
   );
 }
@@ -357,7 +441,11 @@ function End({
  * on hover and on keyboard focus; the line under the strip repeats the explanation, as a
  * native SVG tooltip does not show on focus.
  */
-function FrameTimelineView(props: { path: PathResult; graph: MoveGraph; rules: { fastest: number; launchAt: number } }): JSX.Element {
+function FrameTimelineView(props: {
+  path: PathResult;
+  graph: MoveGraph;
+  rules: { fastest: number; launchAt: number };
+}): JSX.Element {
   const { path, graph, rules } = props;
   const [active, setActive] = useState<string | null>(null);
   const segments = timelineSegments(path, graph);
@@ -397,7 +485,14 @@ function FrameTimelineView(props: { path: PathResult; graph: MoveGraph; rules: {
           className="block font-mono tabular-nums"
         >
           {/* The time axis the segments sit on, from the first box to the on-block box. */}
-          <line x1={(segments[0]?.x ?? 0) + 4} y1={MID_Y} x2={(segments.at(-1)?.x ?? 0) + 12} y2={MID_Y} strokeWidth={1} className="stroke-ink-600" />
+          <line
+            x1={(segments[0]?.x ?? 0) + 4}
+            y1={MID_Y}
+            x2={(segments.at(-1)?.x ?? 0) + 12}
+            y2={MID_Y}
+            strokeWidth={1}
+            className="stroke-ink-600"
+          />
           {segments.map((seg) => {
             switch (seg.kind) {
               case "hit":

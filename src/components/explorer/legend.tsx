@@ -14,7 +14,16 @@ function Line({ dash, color, label }: { dash?: string; color: string; label: str
   return (
     <li className="flex items-center gap-2">
       <svg width="36" height="8" aria-hidden>
-        <line x1="0" y1="4" x2="36" y2="4" stroke={color} strokeWidth="2" strokeDasharray={dash} strokeLinecap="round" />
+        <line
+          x1="0"
+          y1="4"
+          x2="36"
+          y2="4"
+          stroke={color}
+          strokeWidth="2"
+          strokeDasharray={dash}
+          strokeLinecap="round"
+        />
       </svg>
       {label}
     </li>
@@ -27,7 +36,9 @@ function RingMark({ label, ring }: { label: string; ring: "path" | "end" | "focu
     <li className="flex items-center gap-2">
       <svg width="36" height="16" aria-hidden>
         <rect x="6" y="4" width="24" height="8" rx="2" className="fill-ink-850 stroke-ink-700" strokeWidth="1" />
-        {ring === "end" && <rect x="3" y="1" width="30" height="14" rx="4" fill="none" className="stroke-accent/40" strokeWidth="3" />}
+        {ring === "end" && (
+          <rect x="3" y="1" width="30" height="14" rx="4" fill="none" className="stroke-accent/40" strokeWidth="3" />
+        )}
         <rect
           x={ring === "focus" ? 1 : 3}
           y={ring === "focus" ? 1 : 2}
@@ -74,7 +85,9 @@ export const Legend = memo(function Legend() {
             </li>
           ))}
           <li>
-            <span className="inline-block rounded-full border-2 border-dashed border-ink-600 px-2">rounded, dashed</span>{" "}
+            <span className="inline-block rounded-full border-2 border-dashed border-ink-600 px-2">
+              rounded, dashed
+            </span>{" "}
             <span className="text-ink-400">— a stance</span>
           </li>
         </ul>

@@ -66,7 +66,11 @@ export const OptionsBar = memo(function OptionsBar({
     setOptionNow(key, value);
   };
   return (
-    <form className="flex flex-wrap items-center gap-x-5 gap-y-2 text-sm" onSubmit={(e) => e.preventDefault()} aria-label="Explorer options">
+    <form
+      className="flex flex-wrap items-center gap-x-5 gap-y-2 text-sm"
+      onSubmit={(e) => e.preventDefault()}
+      aria-label="Explorer options"
+    >
       {pinnedTo ? (
         <span className="flex items-center gap-2" data-testid="pinned-edition">
           <span className="text-ink-400">Pinned to edition</span>
@@ -91,7 +95,14 @@ export const OptionsBar = memo(function OptionsBar({
           </select>
         </label>
       )}
-      <NumberField label="Depth" value={options.maxDepth} min={1} max={16} onChange={(v) => setOption("maxDepth", v)} hint="Most hits on one path" />
+      <NumberField
+        label="Depth"
+        value={options.maxDepth}
+        min={1}
+        max={16}
+        onChange={(v) => setOption("maxDepth", v)}
+        hint="Most hits on one path"
+      />
       <NumberField
         label="Stance re-entries"
         value={options.maxStanceVisits}
@@ -112,7 +123,10 @@ export const OptionsBar = memo(function OptionsBar({
         {pathCount} paths{truncated ? " (cut: too many to show)" : ""}
       </span>
       {pinnedTo ? (
-        <Link href={pinnedTo.liveHref} className="text-accent underline underline-offset-2 focus-visible:outline-2 focus-visible:outline-accent">
+        <Link
+          href={pinnedTo.liveHref}
+          className="text-accent underline underline-offset-2 focus-visible:outline-2 focus-visible:outline-accent"
+        >
           Open in the live Explorer
         </Link>
       ) : null}

@@ -11,7 +11,7 @@ const GUARD_WORD = { stand: "stand", duck: "duck", crouch: "crouch", break: "bre
 function Row({ label, children }: { label: string; children: React.ReactNode }) {
   return (
     <div className="flex items-baseline justify-between gap-3 border-t border-ink-800 py-1.5 first:border-t-0">
-      <dt className="text-xs uppercase tracking-wider text-ink-400">{label}</dt>
+      <dt className="text-xs tracking-wider text-ink-400 uppercase">{label}</dt>
       <dd className="text-right text-sm">{children}</dd>
     </div>
   );
@@ -37,12 +37,16 @@ function PathCardView({
   const cls = path.blockClass;
 
   return (
-    <section aria-labelledby="path-card-title" className="space-y-3 rounded-lg border border-ink-800 bg-ink-900 p-4" data-testid="path-card">
+    <section
+      aria-labelledby="path-card-title"
+      className="space-y-3 rounded-lg border border-ink-800 bg-ink-900 p-4"
+      data-testid="path-card"
+    >
       <header>
-        <h2 id="path-card-title" className="text-xs uppercase tracking-wider text-ink-400">
+        <h2 id="path-card-title" className="text-xs tracking-wider text-ink-400 uppercase">
           Path card
         </h2>
-        <p className="mt-1 break-all font-mono text-lg text-ink-100">
+        <p className="mt-1 font-mono text-lg break-all text-ink-100">
           <Explained field="input" explain="The root's input followed by the input of each step taken, as entered.">
             {path.input}
           </Explained>
@@ -77,7 +81,11 @@ function PathCardView({
             <Frames value={path.onBlock} />
           </Explained>
           <span data-field="blockClass" className="ml-1">
-            {cls === "state" ? <span className="text-xs text-block-state">state</span> : <BlockClassTag onBlock={path.onBlock} rules={rules} />}
+            {cls === "state" ? (
+              <span className="text-xs text-block-state">state</span>
+            ) : (
+              <BlockClassTag onBlock={path.onBlock} rules={rules} />
+            )}
           </span>
         </Row>
         <Row label="On hit">
@@ -86,7 +94,10 @@ function PathCardView({
           </Explained>
         </Row>
         <Row label="On counter hit">
-          <Explained field="onCounterHit" explain={`If the last hit lands as a counter hit: ${formatOutcome(path.onCounterHit)}.`}>
+          <Explained
+            field="onCounterHit"
+            explain={`If the last hit lands as a counter hit: ${formatOutcome(path.onCounterHit)}.`}
+          >
             <Frames value={path.onCounterHit} />
           </Explained>
         </Row>
@@ -104,17 +115,26 @@ function PathCardView({
           </Row>
         )}
         <Row label="Damage">
-          <Explained field="damage" explain={`The sum of the hits' damage (${hits.map((n) => (n?.kind === "move" ? n.damage : 0)).join(" + ")}), with no scaling.`}>
+          <Explained
+            field="damage"
+            explain={`The sum of the hits' damage (${hits.map((n) => (n?.kind === "move" ? n.damage : 0)).join(" + ")}), with no scaling.`}
+          >
             <span className="font-mono">{path.damage}</span>
           </Explained>
         </Row>
         <Row label="Natural combo">
-          <Explained field="naturalCombo" explain="Yes when every hit after the first is guaranteed once the previous one connects.">
+          <Explained
+            field="naturalCombo"
+            explain="Yes when every hit after the first is guaranteed once the previous one connects."
+          >
             {path.naturalCombo ? "yes" : "no"}
           </Explained>
         </Row>
         <Row label="Jails on block">
-          <Explained field="jails" explain="Yes when no step on the path leaves the defender a frame to act (every gap is 0 or less).">
+          <Explained
+            field="jails"
+            explain="Yes when no step on the path leaves the defender a frame to act (every gap is 0 or less)."
+          >
             {path.jails ? "yes" : "no"}
           </Explained>
         </Row>
@@ -123,7 +143,10 @@ function PathCardView({
             {path.gaps.length === 0
               ? "none"
               : path.gaps.map((g) => (
-                  <Explained key={g.after} explain={`After hit ${g.after + 1}, the defender is free for ${g.frames} frame(s): a move of startup ${g.frames} or less hits first.`}>
+                  <Explained
+                    key={g.after}
+                    explain={`After hit ${g.after + 1}, the defender is free for ${g.frames} frame(s): a move of startup ${g.frames} or less hits first.`}
+                  >
                     <span className="ml-2 font-mono">
                       after {g.after + 1}: {g.frames}f
                     </span>
@@ -132,15 +155,23 @@ function PathCardView({
           </span>
         </Row>
         <Row label="Duckable highs">
-          <Explained field="duckable" explain="Highs that open the path or come after a gap: the defender can duck them on reaction to the gap.">
+          <Explained
+            field="duckable"
+            explain="Highs that open the path or come after a gap: the defender can duck them on reaction to the gap."
+          >
             {path.duckable.length === 0 ? "none" : path.duckable.map((i) => `hit ${i + 1}`).join(", ")}
           </Explained>
         </Row>
         <Row label="Guess points">
-          <Explained field="mixupPoints" explain="Hits after which the string can go on with hits that need different guards: the defender must guess there.">
+          <Explained
+            field="mixupPoints"
+            explain="Hits after which the string can go on with hits that need different guards: the defender must guess there."
+          >
             {path.mixupPoints.length === 0
               ? "none"
-              : path.mixupPoints.map((id) => (byId.get(id)?.kind === "move" ? (byId.get(id) as { input: string }).input : id)).join(", ")}
+              : path.mixupPoints
+                  .map((id) => (byId.get(id)?.kind === "move" ? (byId.get(id) as { input: string }).input : id))
+                  .join(", ")}
           </Explained>
         </Row>
         <Row label="Auto-guard">
@@ -149,7 +180,10 @@ function PathCardView({
           </Explained>
         </Row>
         <Row label="Defender after block">
-          <Explained field="defenderStance" explain="Crouching when the last hit is a low (they blocked it crouching), else standing: it decides which punishers apply.">
+          <Explained
+            field="defenderStance"
+            explain="Crouching when the last hit is a low (they blocked it crouching), else standing: it decides which punishers apply."
+          >
             {path.defenderStance}
           </Explained>
         </Row>

@@ -110,7 +110,9 @@ function buildColumns(rules: BlockRules) {
       header: "On hit",
       sortFn: byOutcome("onHit"),
       sortUndefined: "last",
-      cell: (c) => <Frames value={c.row.original.onHit} title={`If the last hit lands: ${formatOutcome(c.row.original.onHit)}.`} />,
+      cell: (c) => (
+        <Frames value={c.row.original.onHit} title={`If the last hit lands: ${formatOutcome(c.row.original.onHit)}.`} />
+      ),
     }),
     col.display({
       id: "onCounterHit",
@@ -144,14 +146,21 @@ function buildColumns(rules: BlockRules) {
     col.display({
       id: "endsIn",
       header: "Ends in",
-      cell: (c) => <span className={c.row.original.endsIn === "stance" ? "text-ink-100" : "text-ink-400"}>{c.row.original.endsIn}</span>,
+      cell: (c) => (
+        <span className={c.row.original.endsIn === "stance" ? "text-ink-100" : "text-ink-400"}>
+          {c.row.original.endsIn}
+        </span>
+      ),
     }),
     col.display({
       id: "naturalCombo",
       header: "Natural combo",
       cell: (c) =>
         c.row.original.naturalCombo ? (
-          <span className="text-block-plus" title="Every hit after the first is guaranteed once the previous one connects.">
+          <span
+            className="text-block-plus"
+            title="Every hit after the first is guaranteed once the previous one connects."
+          >
             yes
           </span>
         ) : (
@@ -162,7 +171,10 @@ function buildColumns(rules: BlockRules) {
       id: "gaps",
       header: "Gaps",
       cell: (c) => (
-        <span className={`font-mono tabular-nums ${c.row.original.gaps.length === 0 ? "text-ink-400" : ""}`} title={gapsTitle(c.row.original)}>
+        <span
+          className={`font-mono tabular-nums ${c.row.original.gaps.length === 0 ? "text-ink-400" : ""}`}
+          title={gapsTitle(c.row.original)}
+        >
           {c.row.original.gaps.length}
         </span>
       ),
@@ -262,15 +274,15 @@ export const PathsTable = memo(function PathsTable(props: {
   const set = <K extends keyof FormState>(key: K, value: FormState[K]) => setForm((f) => ({ ...f, [key]: value }));
   const clear = () => setForm(EMPTY_FORM);
 
-
   return (
     <section aria-labelledby="paths-table-title" className="space-y-2" data-testid="paths-table">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
-        <h2 id="paths-table-title" className="text-xs uppercase tracking-wider text-ink-400">
+        <h2 id="paths-table-title" className="text-xs tracking-wider text-ink-400 uppercase">
           All paths from this root
         </h2>
         <p className="text-xs text-ink-400" aria-live="polite" data-testid="paths-count">
-          <span className="font-mono text-ink-200">{data.length}</span> of <span className="font-mono text-ink-200">{paths.length}</span> paths
+          <span className="font-mono text-ink-200">{data.length}</span> of{" "}
+          <span className="font-mono text-ink-200">{paths.length}</span> paths
         </p>
       </div>
 
@@ -353,7 +365,10 @@ export const PathsTable = memo(function PathsTable(props: {
         <p className="text-xs text-ink-400">The selected path is filtered out of this list.</p>
       )}
 
-      <div ref={scrollRef} className="max-h-96 overflow-auto rounded-lg border border-ink-800 bg-ink-900 [contain:content]">
+      <div
+        ref={scrollRef}
+        className="max-h-96 overflow-auto rounded-lg border border-ink-800 bg-ink-900 [contain:content]"
+      >
         {rows.length === 0 ? (
           <div className="flex flex-col items-start gap-2 p-4 text-sm text-ink-300" role="status">
             <p>{filtered ? "No path matches these filters" : "No paths from this root"}</p>
@@ -458,7 +473,13 @@ function keepRowInView(virtualizer: RowVirtualizer, index: number) {
   else if (top + ROW_HEIGHT > offset + height) box.scrollTop = top + ROW_HEIGHT - height;
 }
 
-function onRowKey(e: KeyboardEvent<HTMLTableRowElement>, key: string, index: number, onSelect: (key: string) => void, virtualizer: RowVirtualizer) {
+function onRowKey(
+  e: KeyboardEvent<HTMLTableRowElement>,
+  key: string,
+  index: number,
+  onSelect: (key: string) => void,
+  virtualizer: RowVirtualizer,
+) {
   if (e.key === "Enter" || e.key === " ") {
     e.preventDefault();
     onSelect(key);
@@ -518,8 +539,10 @@ const PathRow = memo(function PathRow({
           <td
             key={cell.id}
             data-field={id}
-            className={`whitespace-nowrap border-t border-ink-850 px-2 py-1 align-middle ${
-              first ? `sticky left-0 z-[1] border-l-2 ${selected ? "border-l-accent" : "border-l-transparent"} ${stickyBg}` : ""
+            className={`border-t border-ink-850 px-2 py-1 align-middle whitespace-nowrap ${
+              first
+                ? `sticky left-0 z-[1] border-l-2 ${selected ? "border-l-accent" : "border-l-transparent"} ${stickyBg}`
+                : ""
             } ${id === "blockClass" ? "pl-0" : ""}`}
           >
             <FlexRender cell={cell} />

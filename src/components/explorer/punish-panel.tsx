@@ -15,7 +15,8 @@ function OptionRow({ o, children }: { o: Option; children: React.ReactNode }) {
   return (
     <li className="flex items-baseline justify-between gap-2 py-0.5 text-sm" data-option={o.id}>
       <span className="min-w-0 truncate">
-        <span className="font-mono text-ink-100">{o.comboInput}</span> <span className="text-xs text-ink-400">{o.name}</span>
+        <span className="font-mono text-ink-100">{o.comboInput}</span>{" "}
+        <span className="text-xs text-ink-400">{o.name}</span>
       </span>
       <span className="shrink-0 text-xs text-ink-300">{children}</span>
     </li>
@@ -30,7 +31,15 @@ const SHORT_LIST = 8;
  * Rows are keyed by place: a new path's list reuses the rows, so a click changes
  * their text rather than rebuilding them.
  */
-function ShortList<T>({ items, render, testId }: { items: readonly T[]; render: (item: T, index: number) => ReactNode; testId?: string }) {
+function ShortList<T>({
+  items,
+  render,
+  testId,
+}: {
+  items: readonly T[];
+  render: (item: T, index: number) => ReactNode;
+  testId?: string;
+}) {
   const [open, setOpen] = useState(false);
   const shown = open ? items : items.slice(0, SHORT_LIST);
   return (
@@ -39,7 +48,12 @@ function ShortList<T>({ items, render, testId }: { items: readonly T[]; render: 
         {shown.map(render)}
       </ul>
       {items.length > SHORT_LIST && (
-        <button type="button" aria-expanded={open} onClick={() => setOpen((o) => !o)} className="mt-1 text-xs text-accent underline underline-offset-2">
+        <button
+          type="button"
+          aria-expanded={open}
+          onClick={() => setOpen((o) => !o)}
+          className="mt-1 text-xs text-accent underline underline-offset-2"
+        >
           {open ? `Show the best ${SHORT_LIST}` : `Show all ${items.length}`}
         </button>
       )}
@@ -47,7 +61,17 @@ function ShortList<T>({ items, render, testId }: { items: readonly T[]; render: 
   );
 }
 
-function FollowUps({ label, advantage, list, fastest }: { label: string; advantage: PathResult["onHit"]; list: FollowUpOption[]; fastest: number }) {
+function FollowUps({
+  label,
+  advantage,
+  list,
+  fastest,
+}: {
+  label: string;
+  advantage: PathResult["onHit"];
+  list: FollowUpOption[];
+  fastest: number;
+}) {
   return (
     <div data-follow-ups={label}>
       <h4 className="text-xs text-ink-400">
@@ -87,19 +111,30 @@ function PunishPanelView({ path, data, fastest }: { path: PathResult; data: Grap
   const opponentId = useExplorerStore((s) => s.opponent) ?? data.character.id;
   const setOpponent = useExplorerStore((s) => s.setOpponent);
   const same = opponentId === data.character.id;
-  const { data: other, error, isLoading } = useSWR<GraphResponse, AppError>(same ? null : graphUrl(opponentId, data.edition.slug), fetcher);
+  const {
+    data: other,
+    error,
+    isLoading,
+  } = useSWR<GraphResponse, AppError>(same ? null : graphUrl(opponentId, data.edition.slug), fetcher);
   const opponent = same ? data : other;
 
   const own = useMemo(() => withBestCombos(data.graph, data.starters), [data]);
-  const theirs = useMemo(() => (opponent ? (same ? own : withBestCombos(opponent.graph, opponent.starters)) : null), [opponent, same, own]);
+  const theirs = useMemo(
+    () => (opponent ? (same ? own : withBestCombos(opponent.graph, opponent.starters)) : null),
+    [opponent, same, own],
+  );
 
   const punishers = theirs ? punishesFor(path, theirs) : [];
   const a = typeof path.onBlock === "number" ? path.onBlock : null;
 
   return (
-    <section aria-labelledby="punish-title" className="space-y-3 rounded-lg border border-ink-800 bg-ink-900 p-4" data-testid="punish-panel">
+    <section
+      aria-labelledby="punish-title"
+      className="space-y-3 rounded-lg border border-ink-800 bg-ink-900 p-4"
+      data-testid="punish-panel"
+    >
       <div className="flex flex-wrap items-center justify-between gap-2">
-        <h3 id="punish-title" className="text-xs uppercase tracking-wider text-ink-400">
+        <h3 id="punish-title" className="text-xs tracking-wider text-ink-400 uppercase">
           If blocked
         </h3>
         <label className="flex items-center gap-2 text-sm">
@@ -156,9 +191,19 @@ function PunishPanelView({ path, data, fastest }: { path: PathResult; data: Grap
         </div>
       )}
       <div className="space-y-2 border-t border-ink-800 pt-2">
-        <h3 className="text-xs uppercase tracking-wider text-ink-400">If it lands</h3>
-        <FollowUps label="a hit" advantage={path.onHit} list={followUpsAt(path, path.onHit, own, fastest)} fastest={fastest} />
-        <FollowUps label="a counter hit" advantage={path.onCounterHit} list={followUpsAt(path, path.onCounterHit, own, fastest)} fastest={fastest} />
+        <h3 className="text-xs tracking-wider text-ink-400 uppercase">If it lands</h3>
+        <FollowUps
+          label="a hit"
+          advantage={path.onHit}
+          list={followUpsAt(path, path.onHit, own, fastest)}
+          fastest={fastest}
+        />
+        <FollowUps
+          label="a counter hit"
+          advantage={path.onCounterHit}
+          list={followUpsAt(path, path.onCounterHit, own, fastest)}
+          fastest={fastest}
+        />
       </div>
     </section>
   );

@@ -4,7 +4,12 @@ import { useId, useRef, useState } from "react";
 import { useExplorerStore } from "@/components/providers/explorer-store-provider";
 import { AppError } from "@/lib/errors";
 import { sendJson } from "@/lib/fetcher";
-import { explorerStateToView, PERMALINK_VISIBILITIES, VISIBILITY_TEXT, type PermalinkVisibility } from "@/lib/permalink";
+import {
+  explorerStateToView,
+  PERMALINK_VISIBILITIES,
+  VISIBILITY_TEXT,
+  type PermalinkVisibility,
+} from "@/lib/permalink";
 
 export interface ShareTeam {
   id: number;
@@ -25,7 +30,8 @@ const primary =
 async function postPermalink(body: unknown): Promise<string> {
   const made = await sendJson<{ permalink?: { path?: unknown } }>("POST", "/api/permalinks", body);
   const path = made?.permalink?.path;
-  if (typeof path !== "string") throw new AppError("internal", "The server made the link but did not say where it is. Try again.");
+  if (typeof path !== "string")
+    throw new AppError("internal", "The server made the link but did not say where it is. Try again.");
   return new URL(path, window.location.origin).toString();
 }
 
@@ -60,7 +66,10 @@ export function ShareButton({ teams, characterId, root }: { teams: ShareTeam[]; 
       const url = await postPermalink({ teamId, characterId, edition, view, visibility });
       setStatus({ kind: "done", url, copied: "no" });
     } catch (error) {
-      setStatus({ kind: "error", message: error instanceof AppError ? error.message : "The link could not be made. Try again." });
+      setStatus({
+        kind: "error",
+        message: error instanceof AppError ? error.message : "The link could not be made. Try again.",
+      });
     }
   };
 
@@ -162,7 +171,12 @@ export function ShareButton({ teams, characterId, root }: { teams: ShareTeam[]; 
                 {status.message}
               </p>
             ) : null}
-            <button type="button" className={primary} disabled={status.kind === "sending"} onClick={() => void create()}>
+            <button
+              type="button"
+              className={primary}
+              disabled={status.kind === "sending"}
+              onClick={() => void create()}
+            >
               {status.kind === "sending" ? "Making the link…" : "Make the link"}
             </button>
           </div>

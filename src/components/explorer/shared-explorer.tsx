@@ -28,7 +28,8 @@ export function SharedExplorer({ view: shared }: { view: SharedViewDto }) {
         <p className="text-sm text-ink-300">
           Shared by {shared.creatorName ?? "a team member"} on{" "}
           <time dateTime={shared.createdAt}>{dateFormat.format(new Date(shared.createdAt))}</time> ·{" "}
-          <span title={visibility.explain}>{visibility.label}</span> · read-only: clicking around does not change the link.
+          <span title={visibility.explain}>{visibility.label}</span> · read-only: clicking around does not change the
+          link.
         </p>
       </header>
       <SWRConfig
@@ -54,7 +55,8 @@ export function SharedUnavailable() {
     <div className="mx-auto max-w-xl space-y-3 py-12 text-center">
       <h1 className="text-xl font-semibold">This link is not available</h1>
       <p className="text-ink-300">
-        It may have been revoked, mistyped, or shared only with a team you are not in. Ask the person who sent it for a new one.
+        It may have been revoked, mistyped, or shared only with a team you are not in. Ask the person who sent it for a
+        new one.
       </p>
       <Link href="/games" className="text-accent underline underline-offset-2">
         Browse the games

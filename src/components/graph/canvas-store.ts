@@ -55,12 +55,23 @@ function sameIds(a: ReadonlySet<string>, b: ReadonlySet<string>): boolean {
 
 /** Whether the overlay draws something else for `next` than for `prev`. */
 export function overlayChanged(prev: CanvasMarks, next: CanvasMarks): boolean {
-  return prev.end !== next.end || prev.focus !== next.focus || !sameIds(prev.pathNodes, next.pathNodes) || !sameIds(prev.pathEdges, next.pathEdges);
+  return (
+    prev.end !== next.end ||
+    prev.focus !== next.focus ||
+    !sameIds(prev.pathNodes, next.pathNodes) ||
+    !sameIds(prev.pathEdges, next.pathEdges)
+  );
 }
 
 const sameDrawn = (a: DrawnEdge | undefined, b: DrawnEdge | null) =>
   (a ?? null) === b ||
-  (a !== undefined && b !== null && a.d === b.d && a.kind === b.kind && a.label?.text === b.label?.text && a.label?.x === b.label?.x && a.label?.y === b.label?.y);
+  (a !== undefined &&
+    b !== null &&
+    a.d === b.d &&
+    a.kind === b.kind &&
+    a.label?.text === b.label?.text &&
+    a.label?.x === b.label?.x &&
+    a.label?.y === b.label?.y);
 
 export function createCanvasStore(initial: CanvasMarks): CanvasStore {
   let state = initial;
@@ -85,7 +96,8 @@ export function createCanvasStore(initial: CanvasMarks): CanvasStore {
       const prev = state;
       state = next;
       if (overlayChanged(prev, next)) overlayNews();
-      if (prev.fastest !== next.fastest || prev.launchAt !== next.launchAt) for (const listener of ruleListeners) listener();
+      if (prev.fastest !== next.fastest || prev.launchAt !== next.launchAt)
+        for (const listener of ruleListeners) listener();
     },
     subscribeRules: (listener) => listen(ruleListeners, listener),
     subscribeOverlay: (listener) => listen(overlayListeners, listener),

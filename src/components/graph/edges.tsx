@@ -1,6 +1,13 @@
 "use client";
 
-import { BaseEdge, EdgeLabelRenderer, getBezierPath, getSmoothStepPath, type Edge, type EdgeProps } from "@xyflow/react";
+import {
+  BaseEdge,
+  EdgeLabelRenderer,
+  getBezierPath,
+  getSmoothStepPath,
+  type Edge,
+  type EdgeProps,
+} from "@xyflow/react";
 import { memo, useCallback, useLayoutEffect, useSyncExternalStore } from "react";
 import type { MoveGraph } from "@/lib/engine";
 import { useCanvasStore } from "./nodes";
@@ -13,7 +20,12 @@ export const EDGE_STYLE = {
 const PATH_STROKE = "#ffd873";
 
 /** Arrowheads, drawn once for the canvas: one per edge kind and one for the selected path. */
-export const ARROW_IDS = { follow: "ff-arrow-follow", cancel: "ff-arrow-cancel", enter: "ff-arrow-enter", path: "ff-arrow-path" } as const;
+export const ARROW_IDS = {
+  follow: "ff-arrow-follow",
+  cancel: "ff-arrow-cancel",
+  enter: "ff-arrow-enter",
+  path: "ff-arrow-path",
+} as const;
 
 export function ArrowDefs() {
   const arrows: [string, string][] = [
@@ -26,8 +38,25 @@ export function ArrowDefs() {
     <svg aria-hidden="true" width="0" height="0" className="absolute">
       <defs>
         {arrows.map(([id, color]) => (
-          <marker key={id} id={id} viewBox="-10 -10 20 20" markerWidth="16" markerHeight="16" orient="auto-start-reverse" refX="0" refY="0" markerUnits="userSpaceOnUse">
-            <polyline points="-5,-4 0,0 -5,4 -5,-4" fill={color} stroke={color} strokeLinejoin="round" strokeLinecap="round" strokeWidth="1" />
+          <marker
+            key={id}
+            id={id}
+            viewBox="-10 -10 20 20"
+            markerWidth="16"
+            markerHeight="16"
+            orient="auto-start-reverse"
+            refX="0"
+            refY="0"
+            markerUnits="userSpaceOnUse"
+          >
+            <polyline
+              points="-5,-4 0,0 -5,4 -5,-4"
+              fill={color}
+              stroke={color}
+              strokeLinejoin="round"
+              strokeLinecap="round"
+              strokeWidth="1"
+            />
           </marker>
         ))}
       </defs>
@@ -45,7 +74,16 @@ export type MoveFlowEdge = Edge<{ kind: EdgeKind; label: string | null }, "move"
  * once and never restyled: it records in the canvas store where it was drawn,
  * and {@link PathOverlay} draws the selected path over it from that record.
  */
-function MoveEdgeView({ id, data, sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition }: EdgeProps<MoveFlowEdge>) {
+function MoveEdgeView({
+  id,
+  data,
+  sourceX,
+  sourceY,
+  targetX,
+  targetY,
+  sourcePosition,
+  targetPosition,
+}: EdgeProps<MoveFlowEdge>) {
   const store = useCanvasStore();
   const kind = data?.kind ?? "follow";
   const text = data?.label ?? null;
@@ -59,7 +97,13 @@ function MoveEdgeView({ id, data, sourceX, sourceY, targetX, targetY, sourcePosi
     <>
       {/* No wide invisible stroke to catch the pointer: edges take no clicks, and the browser
           hit-tests the pointer against every one after each layout under the cursor. */}
-      <BaseEdge id={id} path={path} style={EDGE_STYLE[kind]} interactionWidth={0} markerEnd={`url(#${ARROW_IDS[kind]})`} />
+      <BaseEdge
+        id={id}
+        path={path}
+        style={EDGE_STYLE[kind]}
+        interactionWidth={0}
+        markerEnd={`url(#${ARROW_IDS[kind]})`}
+      />
       {text && (
         <EdgeLabelRenderer>
           <EdgeLabel id={id} text={text} x={labelX} y={labelY} />
@@ -74,7 +118,19 @@ function MoveEdgeView({ id, data, sourceX, sourceY, targetX, targetY, sourcePosi
  * so the path runs under it. The path's own copy sits at z-index 2, over the graph's label
  * whichever of the two was added to the page last.
  */
-function EdgeLabel({ id, text, x, y, onPath = false }: { id: string; text: string; x: number; y: number; onPath?: boolean }) {
+function EdgeLabel({
+  id,
+  text,
+  x,
+  y,
+  onPath = false,
+}: {
+  id: string;
+  text: string;
+  x: number;
+  y: number;
+  onPath?: boolean;
+}) {
   return (
     <div
       data-edge-label={onPath ? undefined : id}
@@ -97,7 +153,12 @@ export interface NodeBox {
 }
 
 /** A rounded rectangle `gap` px outside a node's box, in the node's own shape. */
-function Ring({ box, gap, className, ...rest }: { box: NodeBox; gap: number; className: string } & React.SVGProps<SVGRectElement>) {
+function Ring({
+  box,
+  gap,
+  className,
+  ...rest
+}: { box: NodeBox; gap: number; className: string } & React.SVGProps<SVGRectElement>) {
   const radius = box.round ? box.height / 2 + gap : 6 + gap;
   return (
     <rect
@@ -136,7 +197,13 @@ export function PathOverlay({ boxes }: { boxes: ReadonlyMap<string, NodeBox> }) 
   const focusBox = ring(focus);
   return (
     <>
-      <svg aria-hidden="true" className="pointer-events-none absolute left-0 top-0 z-0 overflow-visible" width="1" height="1" data-testid="path-edges">
+      <svg
+        aria-hidden="true"
+        className="pointer-events-none absolute top-0 left-0 z-0 overflow-visible"
+        width="1"
+        height="1"
+        data-testid="path-edges"
+      >
         {edges.map((e) => (
           <path
             key={e.id}
@@ -150,13 +217,23 @@ export function PathOverlay({ boxes }: { boxes: ReadonlyMap<string, NodeBox> }) 
       </svg>
       {edges.some((e) => e.label) && (
         <EdgeLabelRenderer>
-          {edges.map((e) => (e.label ? <EdgeLabel key={e.id} id={e.id} text={e.label.text} x={e.label.x} y={e.label.y} onPath /> : null))}
+          {edges.map((e) =>
+            e.label ? <EdgeLabel key={e.id} id={e.id} text={e.label.text} x={e.label.x} y={e.label.y} onPath /> : null,
+          )}
         </EdgeLabelRenderer>
       )}
-      <svg aria-hidden="true" className="pointer-events-none absolute left-0 top-0 z-[2] overflow-visible" width="1" height="1" data-testid="path-rings">
+      <svg
+        aria-hidden="true"
+        className="pointer-events-none absolute top-0 left-0 z-[2] overflow-visible"
+        width="1"
+        height="1"
+        data-testid="path-rings"
+      >
         {[...pathNodes].map((id) => {
           const box = ring(id);
-          return box && id !== end ? <Ring key={id} box={box} gap={2} strokeWidth={2} className="stroke-accent-muted" data-path-node={id} /> : null;
+          return box && id !== end ? (
+            <Ring key={id} box={box} gap={2} strokeWidth={2} className="stroke-accent-muted" data-path-node={id} />
+          ) : null;
         })}
         {endBox && end !== null && (
           <g data-path-node={end} data-path-end="true">
@@ -165,7 +242,14 @@ export function PathOverlay({ boxes }: { boxes: ReadonlyMap<string, NodeBox> }) 
           </g>
         )}
         {focusBox && focus !== null && (
-          <Ring box={focusBox} gap={7} strokeWidth={2} strokeDasharray="5 4" className="stroke-ink-200" data-focus-node={focus} />
+          <Ring
+            box={focusBox}
+            gap={7}
+            strokeWidth={2}
+            strokeDasharray="5 4"
+            className="stroke-ink-200"
+            data-focus-node={focus}
+          />
         )}
       </svg>
     </>

@@ -98,7 +98,8 @@ export function GraphCanvas({
   useLayoutEffect(() => canvasStore.setState(marks), [canvasStore, marks]);
 
   const boxes = useMemo(
-    () => new Map<string, NodeBox>(graph.nodes.map((n) => [n.id, { ...layout.get(n.id)!, round: n.kind === "stance" }])),
+    () =>
+      new Map<string, NodeBox>(graph.nodes.map((n) => [n.id, { ...layout.get(n.id)!, round: n.kind === "stance" }])),
     [graph, layout],
   );
 
@@ -107,7 +108,15 @@ export function GraphCanvas({
       graph.nodes.map((n): MoveFlowNode | StanceFlowNode => {
         const p = layout.get(n.id)!;
         // z-index 1: above the selected path's overlay, which lies over the edges (z-index 0).
-        const common = { id: n.id, position: { x: p.x, y: p.y }, width: p.width, height: p.height, zIndex: 1, connectable: false, draggable: false };
+        const common = {
+          id: n.id,
+          position: { x: p.x, y: p.y },
+          width: p.width,
+          height: p.height,
+          zIndex: 1,
+          connectable: false,
+          draggable: false,
+        };
         return n.kind === "move"
           ? { ...common, type: "move", data: { move: n }, ariaLabel: `${n.input}, ${n.level}` }
           : { ...common, type: "stance", data: { stance: n }, ariaLabel: `stance ${n.name}` };
@@ -121,9 +130,22 @@ export function GraphCanvas({
         const saves = cancelSaves(graph, e);
         // Follow-ups need no label (the next node shows its whole input); a cancel's says what it saves.
         const label =
-          e.kind === "cancel" ? `${e.input}${saves === null ? "" : ` · ${saves >= 0 ? "saves" : "costs"} ${Math.abs(saves)}f`}` : e.kind === "enter" ? e.input : null;
+          e.kind === "cancel"
+            ? `${e.input}${saves === null ? "" : ` · ${saves >= 0 ? "saves" : "costs"} ${Math.abs(saves)}f`}`
+            : e.kind === "enter"
+              ? e.input
+              : null;
         // Edges take no pointer events (the class beats React Flow's own stroke hit area).
-        return { id: e.id, source: e.from, target: e.to, type: "move", data: { kind: e.kind, label }, focusable: false, selectable: false, className: "!pointer-events-none" };
+        return {
+          id: e.id,
+          source: e.from,
+          target: e.to,
+          type: "move",
+          data: { kind: e.kind, label },
+          focusable: false,
+          selectable: false,
+          className: "!pointer-events-none",
+        };
       }),
     [graph],
   );
@@ -156,7 +178,9 @@ export function GraphCanvas({
         <Background color="#283040" gap={24} />
         <Controls showInteractive={false} position="bottom-left" />
         <ExportButton fileName={exportName} />
-        {large && <MiniMap pannable zoomable position="bottom-right" nodeColor="#3a4458" maskColor="rgba(11,13,18,0.7)" />}
+        {large && (
+          <MiniMap pannable zoomable position="bottom-right" nodeColor="#3a4458" maskColor="rgba(11,13,18,0.7)" />
+        )}
       </ReactFlow>
     ),
     [nodes, edges, boxes, onNodeClick, exportName, large],
@@ -174,7 +198,11 @@ export function GraphCanvas({
         onKeyDown={onKeyDown}
       >
         <span id="graph-focus" className="sr-only" aria-live="polite">
-          {focusedNode ? (focusedNode.kind === "move" ? `${focusedNode.input}, ${focusedNode.level}` : `stance ${focusedNode.name}`) : ""}
+          {focusedNode
+            ? focusedNode.kind === "move"
+              ? `${focusedNode.input}, ${focusedNode.level}`
+              : `stance ${focusedNode.name}`
+            : ""}
         </span>
         {flow}
       </div>

@@ -71,7 +71,7 @@ function StanceNodeView({ data }: NodeProps<StanceFlowNode>) {
       className="flex h-full w-full items-center justify-center rounded-full border-2 border-dashed border-ink-700 bg-ink-850 px-3 text-sm"
     >
       <Handle type="target" position={Position.Left} className="!h-2 !w-2 !border-0 !bg-ink-600" />
-      <span className="text-[10px] uppercase tracking-wider text-ink-400">stance&nbsp;</span>
+      <span className="text-[10px] tracking-wider text-ink-400 uppercase">stance&nbsp;</span>
       <span className="truncate text-ink-100">{data.stance.name}</span>
       <Handle type="source" position={Position.Right} className="!h-2 !w-2 !border-0 !bg-ink-600" />
     </div>

@@ -41,7 +41,11 @@ function GapCell({ move }: { move: MoveEntry }) {
       }
     >
       {jails ? "jail" : via.gapOnBlock}
-      {via.comboOnHit ? <span className="ml-1 text-block-plus" title="Combos if the previous hit connected">combo</span> : null}
+      {via.comboOnHit ? (
+        <span className="ml-1 text-block-plus" title="Combos if the previous hit connected">
+          combo
+        </span>
+      ) : null}
     </span>
   );
 }
@@ -51,14 +55,20 @@ function CancelRow({ cancel, from, rules }: { cancel: CancelEntry; from: MoveEnt
     typeof cancel.onBlock === "number" && typeof from.onBlock === "number" ? cancel.onBlock - from.onBlock : null;
   return (
     <tr data-cancel-key={cancel.key} className="border-t border-ink-850 bg-ink-900/40 text-ink-300">
-      <td className={`${td} sticky left-0 bg-ink-900 font-mono`} style={{ paddingLeft: `${0.5 + (from.depth + 1) * 1}rem` }}>
+      <td
+        className={`${td} sticky left-0 bg-ink-900 font-mono`}
+        style={{ paddingLeft: `${0.5 + (from.depth + 1) * 1}rem` }}
+      >
         {from.input}
         <span className="text-accent">{cancel.input}</span>
       </td>
       <td className={td}>
         cancel into {cancel.stance.name}
         {saved !== null && (
-          <span className="ml-2 font-mono text-xs text-ink-400" title={`${formatFrames(cancel.onBlock as number)} − (${formatFrames(from.onBlock as number)}) on block`}>
+          <span
+            className="ml-2 font-mono text-xs text-ink-400"
+            title={`${formatFrames(cancel.onBlock as number)} − (${formatFrames(from.onBlock as number)}) on block`}
+          >
             {saved >= 0 ? "saves" : "costs"} {Math.abs(saved)}f
           </span>
         )}
@@ -102,7 +112,7 @@ export function MoveTable({
     <div className="space-y-8">
       {sections(list).map((section) => (
         <section key={section.id} aria-labelledby={section.id} className="space-y-2">
-          <h2 id={section.id} className="text-sm font-semibold uppercase tracking-wider text-ink-400">
+          <h2 id={section.id} className="text-sm font-semibold tracking-wider text-ink-400 uppercase">
             {section.title}
           </h2>
           {section.note && <p className="text-sm text-ink-300">{section.note}</p>}
@@ -110,21 +120,47 @@ export function MoveTable({
             <table className="min-w-full text-sm">
               <thead className="bg-ink-900">
                 <tr>
-                  <th scope="col" className={`${th} sticky left-0 bg-ink-900`}>Input</th>
-                  <th scope="col" className={th}>Name</th>
-                  <th scope="col" className={th}>Level</th>
-                  <th scope="col" className={th}>Damage</th>
-                  <th scope="col" className={th}>Startup</th>
-                  <th scope="col" className={th} title="Frames the defender is free on block before this hit">Gap</th>
-                  <th scope="col" className={th}>On block</th>
-                  <th scope="col" className={th}>On hit</th>
-                  <th scope="col" className={th}>On counter hit</th>
-                  <th scope="col" className={th}>Notes</th>
+                  <th scope="col" className={`${th} sticky left-0 bg-ink-900`}>
+                    Input
+                  </th>
+                  <th scope="col" className={th}>
+                    Name
+                  </th>
+                  <th scope="col" className={th}>
+                    Level
+                  </th>
+                  <th scope="col" className={th}>
+                    Damage
+                  </th>
+                  <th scope="col" className={th}>
+                    Startup
+                  </th>
+                  <th scope="col" className={th} title="Frames the defender is free on block before this hit">
+                    Gap
+                  </th>
+                  <th scope="col" className={th}>
+                    On block
+                  </th>
+                  <th scope="col" className={th}>
+                    On hit
+                  </th>
+                  <th scope="col" className={th}>
+                    On counter hit
+                  </th>
+                  <th scope="col" className={th}>
+                    Notes
+                  </th>
                 </tr>
               </thead>
               <tbody>
                 {section.moves.map((m) => (
-                  <MoveRows key={m.id} move={m} cancels={cancelsFrom.get(m.id) ?? []} rules={rules} exploreHref={exploreHref} />
+                  <MoveRows
+                    key={m.id}
+                    move={m}
+                    cancels={cancelsFrom.get(m.id) ?? []}
+                    rules={rules}
+                    exploreHref={exploreHref}
+                  />
                 ))}
               </tbody>
             </table>
@@ -156,7 +192,11 @@ function MoveRows({
           style={{ paddingLeft: `${0.5 + move.depth * 1}rem` }}
         >
           {move.depth === 0 ? (
-            <Link href={exploreHref(move.key)} className="text-ink-100 underline decoration-ink-600 hover:decoration-accent" title={`Open ${move.input} in the Explorer`}>
+            <Link
+              href={exploreHref(move.key)}
+              className="text-ink-100 underline decoration-ink-600 hover:decoration-accent"
+              title={`Open ${move.input} in the Explorer`}
+            >
               {move.input}
             </Link>
           ) : (

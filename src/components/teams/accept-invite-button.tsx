@@ -22,7 +22,12 @@ export function AcceptInviteButton({ token }: { token: string }) {
   };
   return (
     <div className="space-y-2">
-      <button type="button" onClick={() => void accept()} disabled={busy} className="rounded bg-accent px-3 py-1.5 text-sm font-medium text-ink-950 disabled:opacity-50">
+      <button
+        type="button"
+        onClick={() => void accept()}
+        disabled={busy}
+        className="rounded bg-accent px-3 py-1.5 text-sm font-medium text-ink-950 disabled:opacity-50"
+      >
         {busy ? "Joining…" : "Accept and join"}
       </button>
       {error && (

@@ -42,7 +42,11 @@ export function CreateTeamForm() {
             className="w-64 rounded border border-ink-700 bg-ink-900 px-2 py-1 text-ink-100"
           />
         </label>
-        <button type="submit" disabled={busy} className="rounded bg-accent px-3 py-1.5 text-sm font-medium text-ink-950 disabled:opacity-50">
+        <button
+          type="submit"
+          disabled={busy}
+          className="rounded bg-accent px-3 py-1.5 text-sm font-medium text-ink-950 disabled:opacity-50"
+        >
           {busy ? "Creating…" : "Create team"}
         </button>
       </div>

@@ -10,7 +10,11 @@ export const ROLE_HINT: Record<Role, string> = {
 /** A role as a word, with what it allows on hover. */
 export function RoleTag({ role }: { role: Role }) {
   return (
-    <span title={ROLE_HINT[role]} data-role={role} className="rounded border border-ink-700 px-1.5 py-0.5 text-xs uppercase tracking-wider text-ink-300">
+    <span
+      title={ROLE_HINT[role]}
+      data-role={role}
+      className="rounded border border-ink-700 px-1.5 py-0.5 text-xs tracking-wider text-ink-300 uppercase"
+    >
       {role}
     </span>
   );

@@ -13,11 +13,11 @@ import { canRevoke, VISIBILITY_TEXT } from "@/lib/permalink";
 import { atLeast, ROLES, type Role } from "@/lib/roles";
 import { RoleTag, ROLE_HINT } from "./role-tag";
 
-
 const control = "rounded border border-ink-700 bg-ink-900 px-2 py-1 text-sm text-ink-100";
 const button = "rounded border border-ink-700 px-2 py-1 text-xs text-ink-200 hover:border-ink-500 disabled:opacity-40";
 
-const date = (iso: string) => new Date(iso).toLocaleDateString(undefined, { year: "numeric", month: "short", day: "numeric" });
+const date = (iso: string) =>
+  new Date(iso).toLocaleDateString(undefined, { year: "numeric", month: "short", day: "numeric" });
 
 /** The words of the team log, one line per action. */
 function describe(e: AuditEntryDto): string {
@@ -49,7 +49,7 @@ function describe(e: AuditEntryDto): string {
 function Section({ title, id, children }: { title: string; id: string; children: ReactNode }) {
   return (
     <section aria-labelledby={id} className="space-y-2 rounded-lg border border-ink-800 p-4" data-testid={id}>
-      <h2 id={id} className="text-sm font-medium uppercase tracking-wider text-ink-400">
+      <h2 id={id} className="text-sm font-medium tracking-wider text-ink-400 uppercase">
         {title}
       </h2>
       {children}
@@ -71,10 +71,18 @@ export function TeamAdmin({
   const base = `/api/teams/${team.slug}`;
   const owner = me.role === "owner";
   const manages = atLeast(me.role, "coach");
-  const members = useSWR<{ members: MemberDto[] }, AppError>(`${base}/members`, fetcher, { fallbackData: { members: initial.members } });
-  const invites = useSWR<{ invites: InviteDto[] }, AppError>(manages ? `${base}/invites` : null, fetcher, { fallbackData: { invites: initial.invites } });
-  const audit = useSWR<{ entries: AuditEntryDto[] }, AppError>(manages ? `${base}/audit` : null, fetcher, { fallbackData: { entries: initial.audit } });
-  const links = useSWR<{ permalinks: TeamPermalinkDto[] }, AppError>(`${base}/permalinks`, fetcher, { fallbackData: { permalinks: initial.permalinks } });
+  const members = useSWR<{ members: MemberDto[] }, AppError>(`${base}/members`, fetcher, {
+    fallbackData: { members: initial.members },
+  });
+  const invites = useSWR<{ invites: InviteDto[] }, AppError>(manages ? `${base}/invites` : null, fetcher, {
+    fallbackData: { invites: initial.invites },
+  });
+  const audit = useSWR<{ entries: AuditEntryDto[] }, AppError>(manages ? `${base}/audit` : null, fetcher, {
+    fallbackData: { entries: initial.audit },
+  });
+  const links = useSWR<{ permalinks: TeamPermalinkDto[] }, AppError>(`${base}/permalinks`, fetcher, {
+    fallbackData: { permalinks: initial.permalinks },
+  });
   const [error, setError] = useState<string | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
 
@@ -85,7 +93,12 @@ export function TeamAdmin({
     try {
       await change();
       if (done) setNotice(done);
-      await Promise.all([members.mutate(), links.mutate(), manages ? invites.mutate() : null, manages ? audit.mutate() : null]);
+      await Promise.all([
+        members.mutate(),
+        links.mutate(),
+        manages ? invites.mutate() : null,
+        manages ? audit.mutate() : null,
+      ]);
     } catch (err) {
       setError(err instanceof AppError ? err.message : "That did not work. Try again.");
     }
@@ -130,29 +143,54 @@ export function TeamAdmin({
       </div>
 
       <Section title="Members" id="team-members">
-        {members.error && <p role="alert" className="text-sm">The members could not be loaded: {members.error.message}</p>}
+        {members.error && (
+          <p role="alert" className="text-sm">
+            The members could not be loaded: {members.error.message}
+          </p>
+        )}
         <div className="overflow-x-auto">
           <table className="min-w-full text-sm">
             <thead>
               <tr className="text-left text-xs text-ink-400">
-                <th scope="col" className="py-1 pr-3 font-medium">Name</th>
-                <th scope="col" className="py-1 pr-3 font-medium">E-mail</th>
-                <th scope="col" className="py-1 pr-3 font-medium">Role</th>
-                <th scope="col" className="py-1 pr-3 font-medium">Joined</th>
-                <th scope="col" className="py-1 font-medium"><span className="sr-only">Actions</span></th>
+                <th scope="col" className="py-1 pr-3 font-medium">
+                  Name
+                </th>
+                <th scope="col" className="py-1 pr-3 font-medium">
+                  E-mail
+                </th>
+                <th scope="col" className="py-1 pr-3 font-medium">
+                  Role
+                </th>
+                <th scope="col" className="py-1 pr-3 font-medium">
+                  Joined
+                </th>
+                <th scope="col" className="py-1 font-medium">
+                  <span className="sr-only">Actions</span>
+                </th>
               </tr>
             </thead>
             <tbody>
               {(members.data?.members ?? []).map((m) => (
                 <tr key={m.userId} className="border-t border-ink-850" data-member={m.email}>
-                  <td className="py-1.5 pr-3 text-ink-100">{m.name ?? "—"}{m.userId === me.id && <span className="ml-1 text-ink-400">(you)</span>}</td>
+                  <td className="py-1.5 pr-3 text-ink-100">
+                    {m.name ?? "—"}
+                    {m.userId === me.id && <span className="ml-1 text-ink-400">(you)</span>}
+                  </td>
                   <td className="py-1.5 pr-3 text-ink-300">{m.email}</td>
                   <td className="py-1.5 pr-3">
                     {owner ? (
                       <select
                         aria-label={`Role of ${m.name ?? m.email}`}
                         value={m.role}
-                        onChange={(e) => void run(() => sendJson("PATCH", `${base}/members/${encodeURIComponent(m.userId)}`, { role: e.target.value }), "Role changed.")}
+                        onChange={(e) =>
+                          void run(
+                            () =>
+                              sendJson("PATCH", `${base}/members/${encodeURIComponent(m.userId)}`, {
+                                role: e.target.value,
+                              }),
+                            "Role changed.",
+                          )
+                        }
                         className={control}
                       >
                         {ROLES.map((r) => (
@@ -168,7 +206,16 @@ export function TeamAdmin({
                   <td className="py-1.5 pr-3 text-ink-400">{date(m.joinedAt)}</td>
                   <td className="py-1.5 text-right">
                     {owner && m.userId !== me.id && (
-                      <button type="button" className={button} onClick={() => void run(() => sendJson("DELETE", `${base}/members/${encodeURIComponent(m.userId)}`), `${m.email} was removed.`)}>
+                      <button
+                        type="button"
+                        className={button}
+                        onClick={() =>
+                          void run(
+                            () => sendJson("DELETE", `${base}/members/${encodeURIComponent(m.userId)}`),
+                            `${m.email} was removed.`,
+                          )
+                        }
+                      >
                         Remove
                       </button>
                     )}
@@ -188,7 +235,14 @@ export function TeamAdmin({
           <form onSubmit={invite} className="flex flex-wrap items-end gap-2">
             <label className="flex flex-col gap-1 text-sm">
               <span className="text-ink-400">E-mail</span>
-              <input type="email" required value={email} onChange={(e) => setEmail(e.target.value)} className={`${control} w-64`} autoComplete="off" />
+              <input
+                type="email"
+                required
+                value={email}
+                onChange={(e) => setEmail(e.target.value)}
+                className={`${control} w-64`}
+                autoComplete="off"
+              />
             </label>
             <label className="flex flex-col gap-1 text-sm">
               <span className="text-ink-400">Role</span>
@@ -204,8 +258,10 @@ export function TeamAdmin({
               Send invite
             </button>
           </form>
-          <p className="text-xs text-ink-400">{ROLE_HINT[inviteRole]}. The link in the e-mail works once and expires in 7 days.</p>
-          <h3 className="pt-2 text-xs uppercase tracking-wider text-ink-400">Waiting for an answer</h3>
+          <p className="text-xs text-ink-400">
+            {ROLE_HINT[inviteRole]}. The link in the e-mail works once and expires in 7 days.
+          </p>
+          <h3 className="pt-2 text-xs tracking-wider text-ink-400 uppercase">Waiting for an answer</h3>
           {(invites.data?.invites ?? []).length === 0 ? (
             <p className="text-sm text-ink-400">No invites are waiting.</p>
           ) : (
@@ -216,7 +272,16 @@ export function TeamAdmin({
                     <span className="text-ink-100">{i.email}</span> as <RoleTag role={i.role} />{" "}
                     <span className="text-ink-400">until {date(i.expiresAt)}</span>
                   </span>
-                  <button type="button" className={button} onClick={() => void run(() => sendJson("DELETE", `${base}/invites/${i.id}`), `The invite to ${i.email} was withdrawn.`)}>
+                  <button
+                    type="button"
+                    className={button}
+                    onClick={() =>
+                      void run(
+                        () => sendJson("DELETE", `${base}/invites/${i.id}`),
+                        `The invite to ${i.email} was withdrawn.`,
+                      )
+                    }
+                  >
                     Withdraw
                   </button>
                 </li>
@@ -228,11 +293,17 @@ export function TeamAdmin({
 
       <Section title="Shared links" id="team-links">
         {(links.data?.permalinks ?? []).length === 0 ? (
-          <p className="text-sm text-ink-400">No links yet. Open a string in the Explorer and choose Share to make one.</p>
+          <p className="text-sm text-ink-400">
+            No links yet. Open a string in the Explorer and choose Share to make one.
+          </p>
         ) : (
           <ul className="divide-y divide-ink-850 text-sm">
             {(links.data?.permalinks ?? []).map((p) => (
-              <li key={p.slug} className="flex flex-wrap items-center justify-between gap-2 py-1.5" data-permalink={p.slug}>
+              <li
+                key={p.slug}
+                className="flex flex-wrap items-center justify-between gap-2 py-1.5"
+                data-permalink={p.slug}
+              >
                 <span className="min-w-0">
                   {p.revoked ? (
                     <span className="text-ink-400 line-through">{p.title}</span>
@@ -242,12 +313,19 @@ export function TeamAdmin({
                     </a>
                   )}{" "}
                   <span className="text-ink-400">
-                    · {VISIBILITY_TEXT[p.visibility].label} · by {p.createdBy.name ?? "a team member"}, {date(p.createdAt)}
+                    · {VISIBILITY_TEXT[p.visibility].label} · by {p.createdBy.name ?? "a team member"},{" "}
+                    {date(p.createdAt)}
                     {p.revoked && " · revoked"}
                   </span>
                 </span>
                 {!p.revoked && canRevoke({ role: me.role, isCreator: p.createdBy.id === me.id }) && (
-                  <button type="button" className={button} onClick={() => void run(() => sendJson("DELETE", `/api/permalinks/${p.slug}`), "The link was revoked.")}>
+                  <button
+                    type="button"
+                    className={button}
+                    onClick={() =>
+                      void run(() => sendJson("DELETE", `/api/permalinks/${p.slug}`), "The link was revoked.")
+                    }
+                  >
                     Revoke
                   </button>
                 )}

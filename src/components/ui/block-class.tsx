@@ -12,7 +12,6 @@ export const BLOCK_CLASS_STYLE: Record<BlockClass, string> = {
   state: "text-block-state",
 };
 
-
 export interface BlockRules {
   fastest: number;
   launchAt: number;

@@ -14,7 +14,7 @@ export function Explained({ children, explain, field }: { children: ReactNode; e
       <span
         id={id}
         role="tooltip"
-        className="pointer-events-none absolute bottom-full left-0 z-20 mb-1 hidden w-64 rounded border border-ink-700 bg-ink-850 px-2 py-1 text-xs font-normal normal-case tracking-normal text-ink-200 shadow-lg group-hover:block group-focus:block"
+        className="pointer-events-none absolute bottom-full left-0 z-20 mb-1 hidden w-64 rounded border border-ink-700 bg-ink-850 px-2 py-1 text-xs font-normal tracking-normal text-ink-200 normal-case shadow-lg group-hover:block group-focus:block"
       >
         {explain}
       </span>

@@ -5,7 +5,13 @@ import { formatOutcome } from "@/lib/format";
 export function Frames({ value, title }: { value: Outcome | null; title?: string }) {
   if (value === null) return <span className="text-ink-600">—</span>;
   const tone =
-    typeof value !== "number" ? "text-block-state" : value > 0 ? "text-block-plus" : value < 0 ? "text-ink-100" : "text-ink-300";
+    typeof value !== "number"
+      ? "text-block-state"
+      : value > 0
+        ? "text-block-plus"
+        : value < 0
+          ? "text-ink-100"
+          : "text-ink-300";
   return (
     <span className={`font-mono tabular-nums ${tone}`} title={title}>
       {formatOutcome(value)}

@@ -10,10 +10,7 @@ export const stateSchema = z.enum(STATES);
 const frames = z.number().int();
 const id = z.string().min(1, "an id must not be empty");
 
-export const outcomeSchema = z.union([
-  frames,
-  z.object({ state: stateSchema, frames: frames.optional() }),
-]);
+export const outcomeSchema = z.union([frames, z.object({ state: stateSchema, frames: frames.optional() })]);
 
 export const moveNodeSchema = z.object({
   id,
@@ -71,11 +68,7 @@ export const enterEdgeSchema = z.object({
   input: z.string(),
 });
 
-export const edgeSchema = z.discriminatedUnion("kind", [
-  followEdgeSchema,
-  cancelEdgeSchema,
-  enterEdgeSchema,
-]);
+export const edgeSchema = z.discriminatedUnion("kind", [followEdgeSchema, cancelEdgeSchema, enterEdgeSchema]);
 
 type NodeShape = z.infer<typeof nodeSchema>;
 type EdgeShape = z.infer<typeof edgeSchema>;

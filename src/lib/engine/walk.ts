@@ -30,9 +30,7 @@ const GUARDS = frames.GUARDS;
 export function resolveOptions(options?: ExploreOptions): ResolvedOptions {
   const parsed = optionsSchema.safeParse(options ?? {});
   if (!parsed.success) {
-    throw new EngineInputError(
-      parsed.error.issues.map((i) => `option ${i.path.join(".") || "(root)"}: ${i.message}`),
-    );
+    throw new EngineInputError(parsed.error.issues.map((i) => `option ${i.path.join(".") || "(root)"}: ${i.message}`));
   }
   return parsed.data;
 }
@@ -315,7 +313,9 @@ export class PathWalker implements PathView {
   /** Info-word bits of the step into the move at depth i >= 1, when it is not the path's first hit. */
   private stepInto(i: number): number {
     const slot = this.sNext[i - 1]! - 1;
-    return this.slotKind[slot] === FOLLOW ? this.followStep[slot]! : this.enterStep(this.sNext[i - 2]! - 1, this.sNode[i]!);
+    return this.slotKind[slot] === FOLLOW
+      ? this.followStep[slot]!
+      : this.enterStep(this.sNext[i - 2]! - 1, this.sNode[i]!);
   }
 
   /** The gap on block of that step (NaN: none known). */
@@ -585,11 +585,7 @@ export function* iteratePaths(
   while (walker.advance()) yield walker;
 }
 
-export function explorePaths(
-  graph: MoveGraph | CompiledGraph,
-  rootId: string,
-  options?: ExploreOptions,
-): PathResult[] {
+export function explorePaths(graph: MoveGraph | CompiledGraph, rootId: string, options?: ExploreOptions): PathResult[] {
   const walker = new PathWalker(graph, rootId, options);
   const out: PathResult[] = [];
   while (walker.advance()) out.push(walker.toResult());

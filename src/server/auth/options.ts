@@ -30,7 +30,9 @@ export async function authorizePassword(credentials: unknown, headers: Record<st
     ["signInIp", clientIp(headers)],
   ]);
   const user = await findUserByEmail({ email });
-  const ok = user?.passwordHash ? await verifyPassword(user.passwordHash, password) : await verifyAgainstDummy(password);
+  const ok = user?.passwordHash
+    ? await verifyPassword(user.passwordHash, password)
+    : await verifyAgainstDummy(password);
   if (!user || !ok) throw new AppError("unauthorized", MISMATCH);
   await resetLimit("signInEmail", email);
   return { id: user.id, email: user.email, name: user.name };

@@ -26,12 +26,23 @@ export const findUserByEmail = ({ email }: { email: string }) => findUser(eq(use
 export const findUserById = ({ id }: { id: string }) => findUser(eq(users.id, id));
 
 /** Creates a password account; false when the e-mail is taken (the unique index decides, so two racing sign-ups cannot both win). */
-export async function createUser({ email, name, passwordHash }: { email: string; name: string; passwordHash: string }): Promise<boolean> {
+export async function createUser({
+  email,
+  name,
+  passwordHash,
+}: {
+  email: string;
+  name: string;
+  passwordHash: string;
+}): Promise<boolean> {
   try {
     await getDb().insert(users).values({ email, name, passwordHash });
     return true;
   } catch (error) {
-    if ((error as { cause?: { code?: string }; code?: string }).cause?.code === "ER_DUP_ENTRY" || (error as { code?: string }).code === "ER_DUP_ENTRY") {
+    if (
+      (error as { cause?: { code?: string }; code?: string }).cause?.code === "ER_DUP_ENTRY" ||
+      (error as { code?: string }).code === "ER_DUP_ENTRY"
+    ) {
       return false;
     }
     throw error;
@@ -43,7 +54,13 @@ export async function updatePassword({ id, passwordHash }: { id: string; passwor
 }
 
 /** A new single-use reset token; only its SHA-256 is stored. Returns the token for the e-mail. */
-export async function createPasswordReset({ userId, expiresInMinutes }: { userId: string; expiresInMinutes: number }): Promise<string> {
+export async function createPasswordReset({
+  userId,
+  expiresInMinutes,
+}: {
+  userId: string;
+  expiresInMinutes: number;
+}): Promise<string> {
   const token = newToken();
   await getDb()
     .insert(passwordResets)
@@ -70,13 +87,25 @@ export async function resetTokenState({ token }: { token: string }): Promise<Res
  * claimed by an update that only matches an unused, unexpired token, so two
  * submissions of the same link cannot both succeed.
  */
-export async function usePasswordReset({ token, passwordHash }: { token: string; passwordHash: string }): Promise<ResetTokenState> {
+export async function usePasswordReset({
+  token,
+  passwordHash,
+}: {
+  token: string;
+  passwordHash: string;
+}): Promise<ResetTokenState> {
   const tokenHash = hashToken(token);
   return getDb().transaction(async (tx) => {
     const [claimed] = await tx
       .update(passwordResets)
       .set({ usedAt: new Date() })
-      .where(and(eq(passwordResets.tokenHash, tokenHash), isNull(passwordResets.usedAt), gt(passwordResets.expiresAt, new Date())));
+      .where(
+        and(
+          eq(passwordResets.tokenHash, tokenHash),
+          isNull(passwordResets.usedAt),
+          gt(passwordResets.expiresAt, new Date()),
+        ),
+      );
     if (claimed.affectedRows !== 1) {
       const [row] = await tx
         .select({ usedAt: passwordResets.usedAt })
@@ -85,7 +114,11 @@ export async function usePasswordReset({ token, passwordHash }: { token: string;
         .limit(1);
       return row ? (row.usedAt ? "used" : "expired") : "unknown";
     }
-    const [reset] = await tx.select({ userId: passwordResets.userId }).from(passwordResets).where(eq(passwordResets.tokenHash, tokenHash)).limit(1);
+    const [reset] = await tx
+      .select({ userId: passwordResets.userId })
+      .from(passwordResets)
+      .where(eq(passwordResets.tokenHash, tokenHash))
+      .limit(1);
     if (!reset) return "unknown";
     await tx.update(users).set({ passwordHash }).where(eq(users.id, reset.userId));
     // Other links sent to this account stop working once one was used.

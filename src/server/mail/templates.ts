@@ -16,7 +16,19 @@ export function escapeHtml(value: string): string {
 }
 
 /** The shared frame: a heading, paragraphs, one button-like link and a closing note. */
-function layout({ heading, paragraphs, action, url, footnote }: { heading: string; paragraphs: string[]; action: string; url: string; footnote: string }): string {
+function layout({
+  heading,
+  paragraphs,
+  action,
+  url,
+  footnote,
+}: {
+  heading: string;
+  paragraphs: string[];
+  action: string;
+  url: string;
+  footnote: string;
+}): string {
   const p = (s: string) => `<p style="margin:0 0 16px;line-height:1.5">${escapeHtml(s)}</p>`;
   return `<!doctype html>
 <html lang="en"><body style="margin:0;padding:24px;background:#f4f5f7;font-family:system-ui,sans-serif;color:#14161c">
@@ -42,7 +54,13 @@ export function signInLinkMail({ url }: { url: string }): MailContent {
   return {
     subject,
     text: text(["Open this link to sign in to Framefork:", url, footnote]),
-    html: layout({ heading: "Sign in to Framefork", paragraphs: ["Open the link below to sign in."], action: "Sign in", url, footnote }),
+    html: layout({
+      heading: "Sign in to Framefork",
+      paragraphs: ["Open the link below to sign in."],
+      action: "Sign in",
+      url,
+      footnote,
+    }),
   };
 }
 
@@ -50,7 +68,11 @@ export function passwordResetMail({ url, expiresInMinutes }: { url: string; expi
   const footnote = `The link works once and expires in ${plural(expiresInMinutes, "minute")}. If you did not ask for it, ignore this e-mail: your password stays as it is.`;
   return {
     subject: "Reset your Framefork password",
-    text: text(["Someone (hopefully you) asked to reset your Framefork password. Choose a new one here:", url, footnote]),
+    text: text([
+      "Someone (hopefully you) asked to reset your Framefork password. Choose a new one here:",
+      url,
+      footnote,
+    ]),
     html: layout({
       heading: "Choose a new password",
       paragraphs: ["Someone (hopefully you) asked to reset your Framefork password."],
@@ -79,6 +101,12 @@ export function inviteMail({
   return {
     subject: `${inviterName} invited you to ${teamName} on Framefork`,
     text: text([invitation, "Accept the invitation here:", url, footnote]),
-    html: layout({ heading: `Join ${teamName}`, paragraphs: [invitation], action: "Accept the invitation", url, footnote }),
+    html: layout({
+      heading: `Join ${teamName}`,
+      paragraphs: [invitation],
+      action: "Accept the invitation",
+      url,
+      footnote,
+    }),
   };
 }

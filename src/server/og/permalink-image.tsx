@@ -14,7 +14,13 @@ const palette = config.theme?.extend?.colors as {
   accent: { DEFAULT: string };
   level: Record<Level, string>;
 };
-const INK = { ground: palette.ink["950"], panel: palette.ink["850"], line: palette.ink["700"], text: palette.ink["100"], muted: palette.ink["300"] };
+const INK = {
+  ground: palette.ink["950"],
+  panel: palette.ink["850"],
+  line: palette.ink["700"],
+  text: palette.ink["100"],
+  muted: palette.ink["300"],
+};
 const ACCENT = palette.accent.DEFAULT;
 const LEVEL_COLOUR = palette.level;
 
@@ -57,7 +63,9 @@ function Frame({ children }: { children: React.ReactNode }) {
       }}
     >
       {children}
-      <div style={{ display: "flex", alignItems: "center", fontSize: 30, color: ACCENT, fontWeight: 700 }}>Framefork</div>
+      <div style={{ display: "flex", alignItems: "center", fontSize: 30, color: ACCENT, fontWeight: 700 }}>
+        Framefork
+      </div>
     </div>
   );
 }
@@ -112,7 +120,9 @@ function PrivateCard() {
     <Frame>
       <div style={{ display: "flex", flexDirection: "column", gap: 24 }}>
         <div style={{ display: "flex", fontSize: 64, fontWeight: 700 }}>A shared Explorer view</div>
-        <div style={{ display: "flex", fontSize: 32, color: INK.muted }}>Open the link to see it (sign-in may be needed).</div>
+        <div style={{ display: "flex", fontSize: 32, color: INK.muted }}>
+          Open the link to see it (sign-in may be needed).
+        </div>
       </div>
     </Frame>
   );

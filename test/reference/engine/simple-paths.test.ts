@@ -44,7 +44,9 @@ describe("engine paths against graphology allSimplePaths", () => {
       const ref = new DirectedGraph();
       for (const n of g.nodes) ref.addNode(n.id);
       for (const e of g.edges) ref.addDirectedEdgeWithKey(e.id, e.from, e.to);
-      const engine = explorePaths(g, root, unbounded).map((p) => p.nodes.join(" ")).sort();
+      const engine = explorePaths(g, root, unbounded)
+        .map((p) => p.nodes.join(" "))
+        .sort();
       expect(engine).toEqual(referencePaths(ref, root));
     },
   );

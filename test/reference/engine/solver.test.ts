@@ -36,7 +36,7 @@ function highsValue(payoff: number[][]): number {
 }
 
 describe("solveMatrixGame", () => {
-  test("the worked example of Wikipedia's \"Zero-sum game\" article", () => {
+  test('the worked example of Wikipedia\'s "Zero-sum game" article', () => {
     // Source: Wikipedia, "Zero-sum game", section "Solving", example payoff matrix for the row player:
     // value 20/7, row mix (4/7, 3/7), column mix (0, 4/7, 3/7).
     const s = solveMatrixGame([
@@ -62,11 +62,12 @@ describe("solveMatrixGame", () => {
   });
 
   test("agrees with HiGHS on 200 random matrices up to 8×8, and both mixes are optimal", () => {
-    const matrix = fc
-      .tuple(fc.integer({ min: 1, max: 8 }), fc.integer({ min: 1, max: 8 }))
-      .chain(([r, c]) =>
-        fc.array(fc.array(fc.integer({ min: -60, max: 60 }), { minLength: c, maxLength: c }), { minLength: r, maxLength: r }),
-      );
+    const matrix = fc.tuple(fc.integer({ min: 1, max: 8 }), fc.integer({ min: 1, max: 8 })).chain(([r, c]) =>
+      fc.array(fc.array(fc.integer({ min: -60, max: 60 }), { minLength: c, maxLength: c }), {
+        minLength: r,
+        maxLength: r,
+      }),
+    );
     fc.assert(
       fc.property(matrix, (payoff) => {
         const s = solveMatrixGame(payoff);

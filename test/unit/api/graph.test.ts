@@ -21,7 +21,12 @@ describe("GET /api/characters/[id]/graph", () => {
   test("returns the newest Edition's graph in the engine's shape, ready to explore", async () => {
     const res = await get(await tarrowId());
     expect(res.status).toBe(200);
-    const body = (await res.json()) as { edition: { slug: string }; graph: MoveGraph; roots: string[]; game: { fastest: number } };
+    const body = (await res.json()) as {
+      edition: { slug: string };
+      graph: MoveGraph;
+      roots: string[];
+      game: { fastest: number };
+    };
     expect(body.edition.slug).toBe("1-1");
     expect(body.game.fastest).toBe(10);
     expect(graphSchema.safeParse(body.graph).success).toBe(true);

@@ -17,8 +17,27 @@ const move = (id: string, input: string, onBlock: number) => ({
 const graph = {
   nodes: [move("a", "1", -2), move("b", "1,2", -8), { id: "s", kind: "stance", name: "Lean" }],
   edges: [
-    { id: "ab", kind: "follow", from: "a", to: "b", input: ",2", gapOnBlock: 2, comboOnHit: true, comboOnCounterHit: true },
-    { id: "bs", kind: "cancel", from: "b", to: "s", input: "~b", onBlock: 1, onHit: 4, onCounterHit: 4, autoGuard: ["high"] },
+    {
+      id: "ab",
+      kind: "follow",
+      from: "a",
+      to: "b",
+      input: ",2",
+      gapOnBlock: 2,
+      comboOnHit: true,
+      comboOnCounterHit: true,
+    },
+    {
+      id: "bs",
+      kind: "cancel",
+      from: "b",
+      to: "s",
+      input: "~b",
+      onBlock: 1,
+      onHit: 4,
+      onCounterHit: 4,
+      autoGuard: ["high"],
+    },
   ],
 };
 
@@ -36,7 +55,10 @@ describe("POST /api/paths", () => {
   test("returns every path from the root with the engine's fields", async () => {
     const res = await post({ graph, root: "a" });
     expect(res.status).toBe(200);
-    const body = (await res.json()) as { paths: { input: string; framesSaved: number | null; endsIn: string }[]; truncated: boolean };
+    const body = (await res.json()) as {
+      paths: { input: string; framesSaved: number | null; endsIn: string }[];
+      truncated: boolean;
+    };
     expect(body.truncated).toBe(false);
     expect(body.paths.map((p) => p.input).sort()).toEqual(["1", "1,2", "1,2~b"]);
     expect(body.paths.find((p) => p.endsIn === "stance")?.framesSaved).toBe(9);

@@ -1,6 +1,13 @@
 import { parseOptions } from "@node-rs/argon2";
 import { describe, expect, test } from "vitest";
-import { hashPassword, newPasswordSchema, PASSWORD_MAX, PASSWORD_MIN, verifyAgainstDummy, verifyPassword } from "@/server/auth/password";
+import {
+  hashPassword,
+  newPasswordSchema,
+  PASSWORD_MAX,
+  PASSWORD_MIN,
+  verifyAgainstDummy,
+  verifyPassword,
+} from "@/server/auth/password";
 
 describe("passwords", () => {
   test("are stored as argon2id PHC strings with a fresh salt, and verify", async () => {
@@ -25,8 +32,12 @@ describe("passwords", () => {
     expect(newPasswordSchema.safeParse("x".repeat(PASSWORD_MIN)).success).toBe(true);
     expect(newPasswordSchema.safeParse("x".repeat(PASSWORD_MAX)).success).toBe(true);
     expect(newPasswordSchema.safeParse("x".repeat(PASSWORD_MAX + 1)).success).toBe(false);
-    expect(newPasswordSchema.safeParse("short").error?.issues[0]?.message).toBe("Use at least 10 characters for your password.");
+    expect(newPasswordSchema.safeParse("short").error?.issues[0]?.message).toBe(
+      "Use at least 10 characters for your password.",
+    );
     await expect(hashPassword("short")).rejects.toThrow();
-    expect(await verifyPassword(await hashPassword("x".repeat(PASSWORD_MAX)), "x".repeat(PASSWORD_MAX + 1))).toBe(false);
+    expect(await verifyPassword(await hashPassword("x".repeat(PASSWORD_MAX)), "x".repeat(PASSWORD_MAX + 1))).toBe(
+      false,
+    );
   });
 });

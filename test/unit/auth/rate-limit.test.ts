@@ -24,7 +24,10 @@ describe("rate limits", () => {
     expect((refused as AppError).status).toBe(429);
     expect((refused as AppError).message).toMatch(/^Too many attempts, try again in (1[0-5]|[1-9]) minutes?\.$/);
 
-    const rows = await getDb().select().from(rateLimits).where(like(rateLimits.key, `%${key}`));
+    const rows = await getDb()
+      .select()
+      .from(rateLimits)
+      .where(like(rateLimits.key, `%${key}`));
     expect(rows).toHaveLength(1);
     expect(rows[0]?.points).toBe(points + 1);
 
@@ -34,7 +37,8 @@ describe("rate limits", () => {
 
   test("keys are case-blind, so changing case does not buy more tries", async () => {
     const other = `RL-${randomUUID()}@Example.test`;
-    for (let i = 0; i < LIMITS.mailEmail.points; i++) await consume([["mailEmail", i % 2 ? other : other.toLowerCase()]]);
+    for (let i = 0; i < LIMITS.mailEmail.points; i++)
+      await consume([["mailEmail", i % 2 ? other : other.toLowerCase()]]);
     await expect(consume([["mailEmail", other.toUpperCase()]])).rejects.toThrow(/Too many attempts/);
     await resetLimit("mailEmail", other);
   });

@@ -3,12 +3,22 @@ import { emailSchema, safeCallbackUrl } from "@/server/auth/schemas";
 
 describe("safeCallbackUrl", () => {
   test("keeps paths on this site", () => {
-    expect(safeCallbackUrl("/games/vesper-circuit/tarrow?edition=1-0#x")).toBe("/games/vesper-circuit/tarrow?edition=1-0#x");
+    expect(safeCallbackUrl("/games/vesper-circuit/tarrow?edition=1-0#x")).toBe(
+      "/games/vesper-circuit/tarrow?edition=1-0#x",
+    );
     expect(safeCallbackUrl("/account")).toBe("/account");
   });
 
   test("sends anything that could leave the site to the home page (common practice, no source)", () => {
-    for (const bad of ["https://evil.example.test/", "//evil.example.test/x", "/\\evil.example.test", "javascript:alert(1)", "", undefined, 42]) {
+    for (const bad of [
+      "https://evil.example.test/",
+      "//evil.example.test/x",
+      "/\\evil.example.test",
+      "javascript:alert(1)",
+      "",
+      undefined,
+      42,
+    ]) {
       expect(safeCallbackUrl(bad)).toBe("/");
     }
   });

@@ -12,7 +12,10 @@ import { auditLog, invites, permalinks } from "@/server/db/schema";
 import { VIEW, world, type World } from "./world";
 
 vi.mock("@/server/auth", () => import("./session-mock"));
-vi.mock("@/server/mail", async (original) => ({ ...(await original<typeof import("@/server/mail")>()), sendMail: async () => {} }));
+vi.mock("@/server/mail", async (original) => ({
+  ...(await original<typeof import("@/server/mail")>()),
+  sendMail: async () => {},
+}));
 
 afterAll(closeDb);
 
@@ -30,7 +33,13 @@ interface BodyRoute {
 // Every route that takes a JSON body. Each is sent broken JSON, an oversized body, wrong types,
 // and text that looks like SQL or a script.
 const ROUTES: BodyRoute[] = [
-  { name: "POST /api/teams", handler: createTeam as Handler, params: () => ({}), good: () => ({ name: "Night Shift" }), text: ["name"] },
+  {
+    name: "POST /api/teams",
+    handler: createTeam as Handler,
+    params: () => ({}),
+    good: () => ({ name: "Night Shift" }),
+    text: ["name"],
+  },
   {
     name: "PATCH /api/teams/[team]/members/[user]",
     handler: changeRole as Handler,
@@ -45,12 +54,24 @@ const ROUTES: BodyRoute[] = [
     good: (w) => ({ email: `someone-${w.team.slug}@example.test`, role: "viewer" }),
     text: ["email", "role"],
   },
-  { name: "POST /api/invites/accept", handler: acceptInvite as Handler, params: () => ({}), good: (w) => ({ token: w.pending.token }), text: ["token"] },
+  {
+    name: "POST /api/invites/accept",
+    handler: acceptInvite as Handler,
+    params: () => ({}),
+    good: (w) => ({ token: w.pending.token }),
+    text: ["token"],
+  },
   {
     name: "POST /api/permalinks",
     handler: createPermalink as Handler,
     params: () => ({}),
-    good: (w) => ({ teamId: w.team.id, characterId: w.demoCharacterId, edition: "1-1", view: VIEW, visibility: "link" }),
+    good: (w) => ({
+      teamId: w.team.id,
+      characterId: w.demoCharacterId,
+      edition: "1-1",
+      view: VIEW,
+      visibility: "link",
+    }),
     text: ["edition", "visibility"],
   },
 ];
@@ -59,13 +80,16 @@ const SQL = "x'); DROP TABLE teams; --";
 const SCRIPT = "<script>alert('frame')</script>";
 
 async function send(route: BodyRoute, w: World, body: string, type = "application/json") {
-  return route.handler(new Request("http://test/api", { method: "POST", headers: { "content-type": type }, body }), { params: Promise.resolve(route.params(w)) });
+  return route.handler(new Request("http://test/api", { method: "POST", headers: { "content-type": type }, body }), {
+    params: Promise.resolve(route.params(w)),
+  });
 }
 
 /** What this world's owner and team hold: other test files write to the same database at the same time. */
 async function rowCounts(w: World) {
   const db = getDb();
-  const inTeam = async (t: typeof invites | typeof permalinks | typeof auditLog) => Number((await db.select({ n: count() }).from(t).where(eq(t.teamId, w.team.id)))[0]?.n);
+  const inTeam = async (t: typeof invites | typeof permalinks | typeof auditLog) =>
+    Number((await db.select({ n: count() }).from(t).where(eq(t.teamId, w.team.id)))[0]?.n);
   return {
     teams: (await listMyTeams({ userId: w.people.owner.id })).length,
     invites: await inTeam(invites),

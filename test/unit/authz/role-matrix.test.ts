@@ -19,7 +19,9 @@ vi.mock("@/server/mail", async (original) => ({
 }));
 // Server actions read the caller's address for rate limits; each call comes from its own.
 let address = 0;
-vi.mock("next/headers", () => ({ headers: async () => new Headers({ "x-forwarded-for": `198.51.100.${(address++ % 250) + 1}` }) }));
+vi.mock("next/headers", () => ({
+  headers: async () => new Headers({ "x-forwarded-for": `198.51.100.${(address++ % 250) + 1}` }),
+}));
 
 afterAll(closeDb);
 beforeEach(() => setSession(null));
@@ -28,7 +30,8 @@ const ACTORS = ["anonymous", "viewer", "player", "coach", "owner", "outsider"] a
 type Actor = (typeof ACTORS)[number];
 type Expected = Record<Actor, number>;
 
-const userOf = (w: World, actor: Actor): SessionUser | null => (actor === "anonymous" ? null : { id: w.people[actor].id, email: w.people[actor].email, name: w.people[actor].name });
+const userOf = (w: World, actor: Actor): SessionUser | null =>
+  actor === "anonymous" ? null : { id: w.people[actor].id, email: w.people[actor].email, name: w.people[actor].name };
 
 type Handler = (request: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
 interface Case {
@@ -38,10 +41,38 @@ interface Case {
   expect: Expected;
 }
 
-const all = (status: number): Expected => ({ anonymous: status, viewer: status, player: status, coach: status, owner: status, outsider: status });
-const members = (ok: number): Expected => ({ anonymous: 401, viewer: ok, player: ok, coach: ok, owner: ok, outsider: 404 });
-const atLeastCoach = (ok: number): Expected => ({ anonymous: 401, viewer: 403, player: 403, coach: ok, owner: ok, outsider: 404 });
-const ownerOnly = (ok: number): Expected => ({ anonymous: 401, viewer: 403, player: 403, coach: 403, owner: ok, outsider: 404 });
+const all = (status: number): Expected => ({
+  anonymous: status,
+  viewer: status,
+  player: status,
+  coach: status,
+  owner: status,
+  outsider: status,
+});
+const members = (ok: number): Expected => ({
+  anonymous: 401,
+  viewer: ok,
+  player: ok,
+  coach: ok,
+  owner: ok,
+  outsider: 404,
+});
+const atLeastCoach = (ok: number): Expected => ({
+  anonymous: 401,
+  viewer: 403,
+  player: 403,
+  coach: ok,
+  owner: ok,
+  outsider: 404,
+});
+const ownerOnly = (ok: number): Expected => ({
+  anonymous: 401,
+  viewer: 403,
+  player: 403,
+  coach: 403,
+  owner: ok,
+  outsider: 404,
+});
 
 /**
  * The one table: every route handler (file under src/app/api, and method) × every kind of
@@ -52,7 +83,27 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
   "POST /api/paths": [
     {
       what: "explore a posted graph",
-      call: () => ({ body: { root: "a", graph: { nodes: [{ kind: "move", id: "a", input: "1", level: "mid", damage: 10, startup: 12, onBlock: -2, onHit: 3, onCounterHit: 5 }], edges: [] } } }),
+      call: () => ({
+        body: {
+          root: "a",
+          graph: {
+            nodes: [
+              {
+                kind: "move",
+                id: "a",
+                input: "1",
+                level: "mid",
+                damage: 10,
+                startup: 12,
+                onBlock: -2,
+                onHit: 3,
+                onCounterHit: 5,
+              },
+            ],
+            edges: [],
+          },
+        },
+      }),
       expect: all(200),
     },
   ],
@@ -62,37 +113,76 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
   "GET /api/auth/[...nextauth]": { exempt: "next-auth's own sign-in endpoints: public by design, rate limited" },
   "POST /api/auth/[...nextauth]": { exempt: "next-auth's own sign-in endpoints: public by design, rate limited" },
   "GET /api/teams": [{ what: "my teams", call: () => ({}), expect: { ...all(200), anonymous: 401 } }],
-  "POST /api/teams": [{ what: "start a team", call: () => ({ body: { name: "Fresh Team" } }), expect: { ...all(201), anonymous: 401 } }],
-  "GET /api/teams/[team]/members": [{ what: "list members", call: (w) => ({ params: { team: w.team.slug } }), expect: members(200) }],
+  "POST /api/teams": [
+    { what: "start a team", call: () => ({ body: { name: "Fresh Team" } }), expect: { ...all(201), anonymous: 401 } },
+  ],
+  "GET /api/teams/[team]/members": [
+    { what: "list members", call: (w) => ({ params: { team: w.team.slug } }), expect: members(200) },
+  ],
   "PATCH /api/teams/[team]/members/[user]": [
-    { what: "make a player a coach", call: (w) => ({ params: { team: w.team.slug, user: w.people.extra.id }, body: { role: "coach" } }), expect: ownerOnly(200) },
+    {
+      what: "make a player a coach",
+      call: (w) => ({ params: { team: w.team.slug, user: w.people.extra.id }, body: { role: "coach" } }),
+      expect: ownerOnly(200),
+    },
   ],
   "DELETE /api/teams/[team]/members/[user]": [
-    { what: "remove another member", call: (w) => ({ params: { team: w.team.slug, user: w.people.extra.id } }), expect: ownerOnly(204) },
+    {
+      what: "remove another member",
+      call: (w) => ({ params: { team: w.team.slug, user: w.people.extra.id } }),
+      expect: ownerOnly(204),
+    },
   ],
-  "GET /api/teams/[team]/invites": [{ what: "list invites", call: (w) => ({ params: { team: w.team.slug } }), expect: atLeastCoach(200) }],
+  "GET /api/teams/[team]/invites": [
+    { what: "list invites", call: (w) => ({ params: { team: w.team.slug } }), expect: atLeastCoach(200) },
+  ],
   "POST /api/teams/[team]/invites": [
-    { what: "invite a player", call: (w) => ({ params: { team: w.team.slug }, body: { email: `new-${w.team.slug}@example.test`, role: "player" } }), expect: atLeastCoach(201) },
+    {
+      what: "invite a player",
+      call: (w) => ({
+        params: { team: w.team.slug },
+        body: { email: `new-${w.team.slug}@example.test`, role: "player" },
+      }),
+      expect: atLeastCoach(201),
+    },
   ],
   "DELETE /api/teams/[team]/invites/[invite]": [
-    { what: "withdraw an invite", call: (w) => ({ params: { team: w.team.slug, invite: String(w.pending.invite.id) } }), expect: atLeastCoach(204) },
+    {
+      what: "withdraw an invite",
+      call: (w) => ({ params: { team: w.team.slug, invite: String(w.pending.invite.id) } }),
+      expect: atLeastCoach(204),
+    },
   ],
-  "GET /api/teams/[team]/audit": [{ what: "read the team log", call: (w) => ({ params: { team: w.team.slug } }), expect: atLeastCoach(200) }],
+  "GET /api/teams/[team]/audit": [
+    { what: "read the team log", call: (w) => ({ params: { team: w.team.slug } }), expect: atLeastCoach(200) },
+  ],
   "POST /api/permalinks": [
     {
       what: "share a view with the team",
-      call: (w) => ({ body: { teamId: w.team.id, characterId: w.demoCharacterId, edition: "1-1", view: VIEW, visibility: "link" } }),
+      call: (w) => ({
+        body: { teamId: w.team.id, characterId: w.demoCharacterId, edition: "1-1", view: VIEW, visibility: "link" },
+      }),
       expect: { anonymous: 401, viewer: 403, player: 201, coach: 201, owner: 201, outsider: 404 },
     },
   ],
   "DELETE /api/permalinks/[slug]": [
     // The player made it: the creator, a coach or an owner may revoke it.
-    { what: "revoke the player's link", call: (w) => ({ params: { slug: w.shared.slug } }), expect: { anonymous: 401, viewer: 403, player: 200, coach: 200, owner: 200, outsider: 404 } },
+    {
+      what: "revoke the player's link",
+      call: (w) => ({ params: { slug: w.shared.slug } }),
+      expect: { anonymous: 401, viewer: 403, player: 200, coach: 200, owner: 200, outsider: 404 },
+    },
   ],
-  "GET /api/teams/[team]/permalinks": [{ what: "list the team's links", call: (w) => ({ params: { team: w.team.slug } }), expect: members(200) }],
+  "GET /api/teams/[team]/permalinks": [
+    { what: "list the team's links", call: (w) => ({ params: { team: w.team.slug } }), expect: members(200) },
+  ],
   "POST /api/invites/accept": [
     // The invite is for another address: nobody here may use it (the invitee's own use is tested in teams.test.ts).
-    { what: "use someone else's invite", call: (w) => ({ body: { token: w.pending.token } }), expect: { ...all(403), anonymous: 401 } },
+    {
+      what: "use someone else's invite",
+      call: (w) => ({ body: { token: w.pending.token } }),
+      expect: { ...all(403), anonymous: 401 },
+    },
   ],
 };
 
@@ -109,22 +199,38 @@ interface ActionCase {
  */
 const ACTIONS: Record<string, ActionCase[]> = {
   "(auth)/actions.ts signUp": [
-    { what: "make an account", form: (w) => ({ name: "New Person", email: `new-${w.team.slug}@example.test`, password: "long enough password" }), expect: all(200) },
+    {
+      what: "make an account",
+      form: (w) => ({ name: "New Person", email: `new-${w.team.slug}@example.test`, password: "long enough password" }),
+      expect: all(200),
+    },
   ],
-  "(auth)/actions.ts requestPasswordReset": [{ what: "ask for a reset link", form: (w) => ({ email: w.people.viewer.email }), expect: all(303) }],
-  "(auth)/actions.ts resetPassword": [{ what: "use a link that does not exist", form: () => ({ token: "no-such-token", password: "long enough password" }), expect: all(404) }],
+  "(auth)/actions.ts requestPasswordReset": [
+    { what: "ask for a reset link", form: (w) => ({ email: w.people.viewer.email }), expect: all(303) },
+  ],
+  "(auth)/actions.ts resetPassword": [
+    {
+      what: "use a link that does not exist",
+      form: () => ({ token: "no-such-token", password: "long enough password" }),
+      expect: all(404),
+    },
+  ],
   "(auth)/actions.ts changePassword": [
     // These people signed up by link and have no password yet: a clear 400 once signed in.
-    { what: "change a password", form: () => ({ currentPassword: "whatever it was", newPassword: "long enough password" }), expect: { ...all(400), anonymous: 401 } },
+    {
+      what: "change a password",
+      form: () => ({ currentPassword: "whatever it was", newPassword: "long enough password" }),
+      expect: { ...all(400), anonymous: 401 },
+    },
   ],
 };
-
 
 async function actions(): Promise<Map<string, Action>> {
   const out = new Map<string, Action>();
   for (const file of filesNamed(APP, "actions.ts")) {
     const mod = (await import(file)) as Record<string, unknown>;
-    for (const [name, fn] of Object.entries(mod)) if (typeof fn === "function") out.set(`${relative(APP, file)} ${name}`, fn as Action);
+    for (const [name, fn] of Object.entries(mod))
+      if (typeof fn === "function") out.set(`${relative(APP, file)} ${name}`, fn as Action);
   }
   return out;
 }
@@ -167,11 +273,19 @@ async function handlers(): Promise<Map<string, Handler>> {
 describe("role matrix", () => {
   test("every route handler has a row, and every row a route", async () => {
     const found = [...(await handlers()).keys()].sort();
-    expect(found.filter((k) => !(k in MATRIX)), "routes with no row in MATRIX").toEqual([]);
-    expect(Object.keys(MATRIX).filter((k) => !found.includes(k)), "rows for routes that do not exist").toEqual([]);
+    expect(
+      found.filter((k) => !(k in MATRIX)),
+      "routes with no row in MATRIX",
+    ).toEqual([]);
+    expect(
+      Object.keys(MATRIX).filter((k) => !found.includes(k)),
+      "rows for routes that do not exist",
+    ).toEqual([]);
   });
 
-  const rows = Object.entries(MATRIX).flatMap(([key, row]) => ("exempt" in row ? [] : row.map((c) => [key, c] as const)));
+  const rows = Object.entries(MATRIX).flatMap(([key, row]) =>
+    "exempt" in row ? [] : row.map((c) => [key, c] as const),
+  );
   test.each(rows)("%s", async (key, c) => {
     const handler = (await handlers()).get(key);
     expect(handler, `${key} is not a route`).toBeDefined();
@@ -204,8 +318,14 @@ describe("role matrix", () => {
 
   test("every server action has a row, and every row an action", async () => {
     const found = [...(await actions()).keys()].sort();
-    expect(found.filter((k) => !(k in ACTIONS)), "server actions with no row in ACTIONS").toEqual([]);
-    expect(Object.keys(ACTIONS).filter((k) => !found.includes(k)), "rows for actions that do not exist").toEqual([]);
+    expect(
+      found.filter((k) => !(k in ACTIONS)),
+      "server actions with no row in ACTIONS",
+    ).toEqual([]);
+    expect(
+      Object.keys(ACTIONS).filter((k) => !found.includes(k)),
+      "rows for actions that do not exist",
+    ).toEqual([]);
   });
 
   const actionRows = Object.entries(ACTIONS).flatMap(([key, cases]) => cases.map((c) => [key, c] as const));

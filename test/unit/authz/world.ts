@@ -7,7 +7,12 @@ import { createTeam } from "@/server/db/queries/teams";
 import { characters, editions, games, memberships } from "@/server/db/schema";
 import { makeUser } from "../teams/fixtures";
 
-export const VIEW = { root: "2", path: null, options: { maxDepth: 8, maxStanceVisits: 1, fastest: 10 }, opponent: null };
+export const VIEW = {
+  root: "2",
+  path: null,
+  options: { maxDepth: 8, maxStanceVisits: 1, fastest: 10 },
+  opponent: null,
+};
 
 /** One team with a member of each role, another team owned by the outsider, and what the routes act on. */
 export async function world() {
@@ -20,21 +25,48 @@ export async function world() {
     extra: await makeUser("extra"),
   };
   const team = await createTeam({ name: `Matrix ${people.owner.id.slice(0, 6)}`, ownerId: people.owner.id });
-  const roles: [keyof typeof people, Role][] = [["coach", "coach"], ["player", "player"], ["viewer", "viewer"], ["extra", "player"]];
-  await getDb().insert(memberships).values(roles.map(([who, role]) => ({ teamId: team.id, userId: people[who].id, role })));
+  const roles: [keyof typeof people, Role][] = [
+    ["coach", "coach"],
+    ["player", "player"],
+    ["viewer", "viewer"],
+    ["extra", "player"],
+  ];
+  await getDb()
+    .insert(memberships)
+    .values(roles.map(([who, role]) => ({ teamId: team.id, userId: people[who].id, role })));
   const other = await createTeam({ name: `Elsewhere ${people.outsider.id.slice(0, 6)}`, ownerId: people.outsider.id });
-  const pending = await createInvite({ teamId: team.id, invitedBy: people.owner.id, inviterRole: "owner", email: `invitee-${people.owner.id.slice(0, 8)}@example.test`, role: "player" });
+  const pending = await createInvite({
+    teamId: team.id,
+    invitedBy: people.owner.id,
+    inviterRole: "owner",
+    email: `invitee-${people.owner.id.slice(0, 8)}@example.test`,
+    role: "player",
+  });
   // A game of the team's own, with one character and one Edition.
-  const [game] = await getDb().insert(games).values({ slug: `team-game-${people.owner.id.slice(0, 8)}`, name: "Team Game", teamId: team.id }).$returningId();
-  await getDb().insert(editions).values({ gameId: game!.id, slug: "0-1", name: "0.1", releasedOn: new Date("2026-10-01") });
-  const [character] = await getDb().insert(characters).values({ gameId: game!.id, slug: "sparring-dummy", name: "Sparring Dummy" }).$returningId();
+  const [game] = await getDb()
+    .insert(games)
+    .values({ slug: `team-game-${people.owner.id.slice(0, 8)}`, name: "Team Game", teamId: team.id })
+    .$returningId();
+  await getDb()
+    .insert(editions)
+    .values({ gameId: game!.id, slug: "0-1", name: "0.1", releasedOn: new Date("2026-10-01") });
+  const [character] = await getDb()
+    .insert(characters)
+    .values({ gameId: game!.id, slug: "sparring-dummy", name: "Sparring Dummy" })
+    .$returningId();
   // A link the player shared from the public demo game.
   const demo = await getGameBySlug({ slug: "vesper-circuit" });
   const tarrow = demo && (await getCharacterBySlug({ gameId: demo.id, slug: "tarrow" }));
   if (!tarrow) throw new Error("the demo data is not in the test database");
-  const shared = await createPermalink({ teamId: team.id, createdBy: people.player.id, characterId: tarrow.id, editionSlug: "1-1", view: VIEW, visibility: "team" });
+  const shared = await createPermalink({
+    teamId: team.id,
+    createdBy: people.player.id,
+    characterId: tarrow.id,
+    editionSlug: "1-1",
+    view: VIEW,
+    visibility: "team",
+  });
   return { people, team, other, pending, teamCharacterId: character!.id, demoCharacterId: tarrow.id, shared };
 }
 
 export type World = Awaited<ReturnType<typeof world>>;
-

@@ -49,11 +49,17 @@ describe("migrations and seed on an empty database", () => {
   test("seeding twice leaves the same rows with the same ids", async () => {
     await seedDemo(db);
     const first = await counts();
-    const idsBefore = await db.select({ id: schema.moves.id, key: schema.moves.key }).from(schema.moves).orderBy(schema.moves.id);
+    const idsBefore = await db
+      .select({ id: schema.moves.id, key: schema.moves.key })
+      .from(schema.moves)
+      .orderBy(schema.moves.id);
 
     await seedDemo(db);
     expect(await counts()).toEqual(first);
-    const idsAfter = await db.select({ id: schema.moves.id, key: schema.moves.key }).from(schema.moves).orderBy(schema.moves.id);
+    const idsAfter = await db
+      .select({ id: schema.moves.id, key: schema.moves.key })
+      .from(schema.moves)
+      .orderBy(schema.moves.id);
     expect(idsAfter).toEqual(idsBefore);
     expect(first.moves).toBeGreaterThanOrEqual(3 * 25 * 2);
   });

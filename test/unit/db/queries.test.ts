@@ -54,7 +54,15 @@ describe("getMoveList", () => {
 
     const byKey = new Map(list.moves.map((m) => [m.key, m]));
     const jab = byKey.get("1");
-    expect(jab).toMatchObject({ input: "1", level: "high", startup: 10, onBlock: 1, via: null, depth: 0, stance: null });
+    expect(jab).toMatchObject({
+      input: "1",
+      level: "high",
+      startup: 10,
+      onBlock: 1,
+      via: null,
+      depth: 0,
+      stance: null,
+    });
     expect(byKey.get("1,2,3")).toMatchObject({
       level: "mid",
       onCounterHit: { state: "knockdown" },
@@ -66,7 +74,12 @@ describe("getMoveList", () => {
     expect(stanceMove?.via).toEqual({ kind: "enter", input: ":2" });
 
     const cancel = list.cancels.find((c) => c.key === "2,2,3~f>ember");
-    expect(cancel).toMatchObject({ input: "~f", onBlock: -3, autoGuard: ["high", "mid"], stance: { name: "Ember Guard" } });
+    expect(cancel).toMatchObject({
+      input: "~f",
+      onBlock: -3,
+      autoGuard: ["high", "mid"],
+      stance: { name: "Ember Guard" },
+    });
     expect(cancel?.fromId).toBe(byKey.get("2,2,3")?.id);
 
     // Rows are DTOs: no database-only columns leak out.
@@ -75,7 +88,9 @@ describe("getMoveList", () => {
 
   test("each edition has its own numbers", async () => {
     const { editions, tarrow } = await demo();
-    const [newer, older] = await Promise.all(editions.map((e) => getMoveList({ characterId: tarrow.id, editionId: e.id })));
+    const [newer, older] = await Promise.all(
+      editions.map((e) => getMoveList({ characterId: tarrow.id, editionId: e.id })),
+    );
     const shin = (l: typeof newer) => l?.moves.find((m) => m.key === "d+4")?.onBlock;
     expect(shin(newer)).toBe(-13);
     expect(shin(older)).toBe(-12);

@@ -1,4 +1,13 @@
-import type { CancelEdge, EnterEdge, FollowEdge, Level, MoveGraph, MoveNode, Outcome, StanceNode } from "../../../src/lib/engine";
+import type {
+  CancelEdge,
+  EnterEdge,
+  FollowEdge,
+  Level,
+  MoveGraph,
+  MoveNode,
+  Outcome,
+  StanceNode,
+} from "../../../src/lib/engine";
 
 // Small invented graphs; ids and notation are made up for the tests.
 
@@ -10,7 +19,13 @@ export function stance(id: string, name = `stance ${id}`): StanceNode {
   return { id, kind: "stance", name };
 }
 
-export function follow(id: string, from: string, to: string, input: string, over: Partial<FollowEdge> = {}): FollowEdge {
+export function follow(
+  id: string,
+  from: string,
+  to: string,
+  input: string,
+  over: Partial<FollowEdge> = {},
+): FollowEdge {
   return { id, kind: "follow", from, to, input, gapOnBlock: 0, comboOnHit: true, comboOnCounterHit: true, ...over };
 }
 

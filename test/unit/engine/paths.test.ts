@@ -225,12 +225,7 @@ describe("bounds and cycles", () => {
 
   test("a repeated move is reported each time it is reached", () => {
     const g: MoveGraph = {
-      nodes: [
-        move("r", "2", "mid"),
-        move("p", "2,1", "high"),
-        move("q", "2,2", "low"),
-        stance("s"),
-      ],
+      nodes: [move("r", "2", "mid"), move("p", "2,1", "high"), move("q", "2,2", "low"), stance("s")],
       edges: [
         follow("f1", "r", "p", ",1"),
         follow("f2", "r", "q", ",2"),
@@ -259,7 +254,11 @@ describe("mix-up points", () => {
   test("a cancel does not count as a follow for the guess", () => {
     const g: MoveGraph = {
       nodes: [move("r", "1", "mid"), move("u", "1,1", "low"), stance("s"), move("x", "S 1", "high", { startup: 12 })],
-      edges: [follow("f1", "r", "u", ",1"), cancel("c", "r", "s", "~f", { onBlock: 0, onHit: 0 }), enter("n", "s", "x", "1")],
+      edges: [
+        follow("f1", "r", "u", ",1"),
+        cancel("c", "r", "s", "~f", { onBlock: 0, onHit: 0 }),
+        enter("n", "s", "x", "1"),
+      ],
     };
     expect(explorePaths(g, "r").every((p) => p.mixupPoints.length === 0)).toBe(true);
   });
@@ -267,7 +266,11 @@ describe("mix-up points", () => {
 
 describe("a stance as root", () => {
   const g: MoveGraph = {
-    nodes: [stance("s"), move("x", "S 1", "high", { startup: 12, damage: 7 }), move("y", "S 1,2", "mid", { damage: 9 })],
+    nodes: [
+      stance("s"),
+      move("x", "S 1", "high", { startup: 12, damage: 7 }),
+      move("y", "S 1,2", "mid", { damage: 9 }),
+    ],
     edges: [enter("n", "s", "x", "S 1"), follow("f", "x", "y", ",2", { gapOnBlock: 3, comboOnHit: false })],
   };
 

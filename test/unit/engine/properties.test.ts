@@ -20,9 +20,12 @@ const withRoot = cyclic.chain((g) => fc.tuple(fc.constant(g), rootArb(g), option
 const anyRoot = cyclic.chain((g) => fc.tuple(fc.constant(g), fc.constantFrom(...g.nodes.map((n) => n.id)), optionsArb));
 
 describe("paths on random graphs with cycles", () => {
-  test.prop([anyRoot], { numRuns: 300 })("every path and every field equal a brute-force walk of the definitions", ([g, root, o]) => {
-    expect(explorePaths(g, root, o)).toEqual(oraclePaths(g, root, o));
-  });
+  test.prop([anyRoot], { numRuns: 300 })(
+    "every path and every field equal a brute-force walk of the definitions",
+    ([g, root, o]) => {
+      expect(explorePaths(g, root, o)).toEqual(oraclePaths(g, root, o));
+    },
+  );
 
   test.prop([withRoot], { numRuns: 200 })("every path starts at the root and follows real edges", ([g, root, o]) => {
     const edges = new Map(g.edges.map((e) => [e.id, e]));
@@ -37,14 +40,17 @@ describe("paths on random graphs with cycles", () => {
     }
   });
 
-  test.prop([withRoot], { numRuns: 200 })("every stopping place is yielded exactly once and the count matches", ([g, root, o]) => {
-    const paths = explorePaths(g, root, o);
-    expect(new Set(paths.map(key)).size).toBe(paths.length);
-    expect(paths.length).toBe(bruteCount(g, root, o.maxDepth, o.maxStanceVisits));
-    // Every prefix of a path ending at a move or a stance is itself a stopping place.
-    const keys = new Set(paths.map(key));
-    for (const p of paths) expect(keys.has(p.edges.slice(0, -1).join(" "))).toBe(true);
-  });
+  test.prop([withRoot], { numRuns: 200 })(
+    "every stopping place is yielded exactly once and the count matches",
+    ([g, root, o]) => {
+      const paths = explorePaths(g, root, o);
+      expect(new Set(paths.map(key)).size).toBe(paths.length);
+      expect(paths.length).toBe(bruteCount(g, root, o.maxDepth, o.maxStanceVisits));
+      // Every prefix of a path ending at a move or a stance is itself a stopping place.
+      const keys = new Set(paths.map(key));
+      for (const p of paths) expect(keys.has(p.edges.slice(0, -1).join(" "))).toBe(true);
+    },
+  );
 
   test.prop([withRoot], { numRuns: 200 })("no path exceeds the bounds", ([g, root, o]) => {
     const stances = new Set(g.nodes.filter((n) => n.kind === "stance").map((n) => n.id));
@@ -56,17 +62,25 @@ describe("paths on random graphs with cycles", () => {
     }
   });
 
-  test.prop([withRoot], { numRuns: 200 })("framesSaved is the cancel's on-block minus the last move's", ([g, root, o]) => {
-    const byId = new Map(g.nodes.map((n) => [n.id, n]));
-    for (const p of explorePaths(g, root, o)) {
-      const before = byId.get(p.nodes[p.nodes.length - 2] ?? "");
-      if (p.endsIn === "stance" && before?.kind === "move" && typeof before.onBlock === "number" && typeof p.onBlock === "number") {
-        expect(p.framesSaved).toBe(p.onBlock - before.onBlock);
-      } else {
-        expect(p.framesSaved).toBeNull();
+  test.prop([withRoot], { numRuns: 200 })(
+    "framesSaved is the cancel's on-block minus the last move's",
+    ([g, root, o]) => {
+      const byId = new Map(g.nodes.map((n) => [n.id, n]));
+      for (const p of explorePaths(g, root, o)) {
+        const before = byId.get(p.nodes[p.nodes.length - 2] ?? "");
+        if (
+          p.endsIn === "stance" &&
+          before?.kind === "move" &&
+          typeof before.onBlock === "number" &&
+          typeof p.onBlock === "number"
+        ) {
+          expect(p.framesSaved).toBe(p.onBlock - before.onBlock);
+        } else {
+          expect(p.framesSaved).toBeNull();
+        }
       }
-    }
-  });
+    },
+  );
 
   test.prop([withRoot, fc.nat(), fc.nat(), fc.subarray(["high", "mid", "low"] as const)], { numRuns: 200 })(
     "adding a cancel never removes a path",
@@ -117,7 +131,10 @@ describe("paths on random graphs with cycles", () => {
           .map((x) => x.p);
       expect(topPaths(g, root, { k, by: (p) => p.damage }, o)).toEqual(stableDesc((p) => p.damage, full).slice(0, k));
       expect(topPaths(g, root, { k, ...rankings.damagingCombos }, o)).toEqual(
-        stableDesc((p) => p.damage, full.filter((p) => p.naturalCombo)).slice(0, k),
+        stableDesc(
+          (p) => p.damage,
+          full.filter((p) => p.naturalCombo),
+        ).slice(0, k),
       );
       const numericBlock = full.filter((p) => typeof p.onBlock === "number");
       expect(topPaths(g, root, { k, ...rankings.safest }, o)).toEqual(
@@ -128,20 +145,28 @@ describe("paths on random graphs with cycles", () => {
       );
       const byInput = (a: PathResult, b: PathResult) => (a.input < b.input ? -1 : a.input > b.input ? 1 : 0);
       expect(topPaths(g, root, { k, compare: byInput }, o).map((p) => p.input)).toEqual(
-        [...full].sort(byInput).slice(0, k).map((p) => p.input),
+        [...full]
+          .sort(byInput)
+          .slice(0, k)
+          .map((p) => p.input),
       );
     },
   );
 
-  test.prop([withRoot], { numRuns: 100 })("the streamed cursor reads the same as its materialised result", ([g, root, o]) => {
-    for (const c of iteratePaths(g, root, o)) {
-      const r = c.toResult();
-      expect(c.length).toBe(r.nodes.length);
-      expect(c.hitCount).toBe(r.levels.length);
-      expect(c.gapCount).toBe(r.gaps.length);
-      expect(Number.isNaN(c.onBlockFrames) ? null : c.onBlockFrames).toBe(typeof r.onBlock === "number" ? r.onBlock : null);
-    }
-  });
+  test.prop([withRoot], { numRuns: 100 })(
+    "the streamed cursor reads the same as its materialised result",
+    ([g, root, o]) => {
+      for (const c of iteratePaths(g, root, o)) {
+        const r = c.toResult();
+        expect(c.length).toBe(r.nodes.length);
+        expect(c.hitCount).toBe(r.levels.length);
+        expect(c.gapCount).toBe(r.gaps.length);
+        expect(Number.isNaN(c.onBlockFrames) ? null : c.onBlockFrames).toBe(
+          typeof r.onBlock === "number" ? r.onBlock : null,
+        );
+      }
+    },
+  );
 });
 
 /** Counts stopping places by recursion over edge lists only. */

@@ -107,7 +107,10 @@ export function graphArb({ moves, stances, acyclic }: GraphShape): fc.Arbitrary<
           for (const f of follows) if (forward(f)) edges.push({ id: `f${k++}`, kind: "follow", ...f });
           for (const c of cancels) if (c && forward(c)) edges.push({ id: `c${k++}`, kind: "cancel", ...c });
           for (const n of enters) if (n && forward(n)) edges.push({ id: `n${k++}`, kind: "enter", ...n });
-          const allNodes: GraphNode[] = [...nodes, ...stanceIds.map((id) => ({ id, kind: "stance" as const, name: id }))];
+          const allNodes: GraphNode[] = [
+            ...nodes,
+            ...stanceIds.map((id) => ({ id, kind: "stance" as const, name: id })),
+          ];
           return { nodes: allNodes, edges };
         });
     });

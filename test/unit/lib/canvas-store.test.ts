@@ -22,11 +22,18 @@ const marksArb = fc.record({
 });
 const toMarks = (m: { pathNodes: string[]; pathEdges: string[]; end: string | null; focus: string | null }) =>
   // Sets built in a shuffled order: the overlay compares contents, not insertion order.
-  marks({ pathNodes: new Set([...m.pathNodes].reverse()), pathEdges: new Set(m.pathEdges), end: m.end, focus: m.focus });
+  marks({
+    pathNodes: new Set([...m.pathNodes].reverse()),
+    pathEdges: new Set(m.pathEdges),
+    end: m.end,
+    focus: m.focus,
+  });
 
 /** What the overlay draws from the marks, as a string: the same reading the overlay makes. */
 const drawing = (m: CanvasMarks) =>
-  ids.map((id) => [m.pathNodes.has(id), m.pathEdges.has(id), m.end === id, m.focus === id].map(Number).join("")).join(" ");
+  ids
+    .map((id) => [m.pathNodes.has(id), m.pathEdges.has(id), m.end === id, m.focus === id].map(Number).join(""))
+    .join(" ");
 
 const edge = (d: string): DrawnEdge => ({ d, kind: "follow", label: null });
 

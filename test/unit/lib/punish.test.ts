@@ -3,7 +3,14 @@ import { explorePaths, type MoveGraph } from "@/lib/engine";
 import type { Starter } from "@/lib/explorer";
 import { followUpsAt, punishesFor, withBestCombos } from "@/lib/punish";
 
-const move = (id: string, level: "high" | "mid" | "low", damage: number, onBlock: number, onHit: number, startup?: number) => ({
+const move = (
+  id: string,
+  level: "high" | "mid" | "low",
+  damage: number,
+  onBlock: number,
+  onHit: number,
+  startup?: number,
+) => ({
   id,
   kind: "move" as const,
   input: id,
@@ -24,7 +31,18 @@ const graph: MoveGraph = {
     move("u", "mid", 20, -14, 3, 15),
     move("lo", "low", 12, -13, 3, 16),
   ],
-  edges: [{ id: "jj", kind: "follow", from: "j", to: "j,2", input: ",2", gapOnBlock: 0, comboOnHit: true, comboOnCounterHit: true }],
+  edges: [
+    {
+      id: "jj",
+      kind: "follow",
+      from: "j",
+      to: "j,2",
+      input: ",2",
+      gapOnBlock: 0,
+      comboOnHit: true,
+      comboOnCounterHit: true,
+    },
+  ],
 };
 const starters: Starter[] = [
   { id: "j", input: "j", name: "Jab", startup: 10, damage: 7, from: "standing", stance: null },

@@ -27,9 +27,37 @@ const graph: MoveGraph = {
     { id: "K", kind: "stance", name: "Coil" },
   ],
   edges: [
-    { id: "ab", kind: "follow", from: "a", to: "b", input: ",2", gapOnBlock: 3, comboOnHit: true, comboOnCounterHit: true },
-    { id: "bc", kind: "follow", from: "b", to: "c", input: ",1", gapOnBlock: -1, comboOnHit: true, comboOnCounterHit: true },
-    { id: "cS", kind: "cancel", from: "c", to: "S", input: "~b", onBlock: -4, onHit: 2, onCounterHit: 2, autoGuard: ["high"] },
+    {
+      id: "ab",
+      kind: "follow",
+      from: "a",
+      to: "b",
+      input: ",2",
+      gapOnBlock: 3,
+      comboOnHit: true,
+      comboOnCounterHit: true,
+    },
+    {
+      id: "bc",
+      kind: "follow",
+      from: "b",
+      to: "c",
+      input: ",1",
+      gapOnBlock: -1,
+      comboOnHit: true,
+      comboOnCounterHit: true,
+    },
+    {
+      id: "cS",
+      kind: "cancel",
+      from: "c",
+      to: "S",
+      input: "~b",
+      onBlock: -4,
+      onHit: 2,
+      onCounterHit: 2,
+      autoGuard: ["high"],
+    },
     { id: "Sd", kind: "enter", from: "S", to: "d", input: "2" },
     {
       id: "cK",
@@ -53,7 +81,9 @@ function pathThrough(root: string, edges: string[]): PathResult {
 }
 
 const shape = (segs: TimelineSegment[]) =>
-  segs.map((s) => (s.kind === "gap" ? `gap:${s.status}:${s.frames}` : s.kind === "hit" ? `hit:${s.label}:${s.level}` : s.kind));
+  segs.map((s) =>
+    s.kind === "gap" ? `gap:${s.status}:${s.frames}` : s.kind === "hit" ? `hit:${s.label}:${s.level}` : s.kind,
+  );
 const gapsOf = (segs: TimelineSegment[]) => segs.filter((s): s is GapSegment => s.kind === "gap");
 
 describe("timelineSegments", () => {
@@ -87,7 +117,14 @@ describe("timelineSegments", () => {
     expect(shape(segs).slice(-2)).toEqual(["cancel", "end"]);
     expect(path.framesSaved).toBe(10);
     expect(segs.at(-2)).toMatchObject({ kind: "cancel", final: true, framesSaved: 10, onBlock: -4, hitOnBlock: -14 });
-    expect(segs.at(-1)).toMatchObject({ kind: "end", endsIn: "stance", onBlock: -4, blockClass: "safe", blockWord: "safe", cancelInput: "~b" });
+    expect(segs.at(-1)).toMatchObject({
+      kind: "end",
+      endsIn: "stance",
+      onBlock: -4,
+      blockClass: "safe",
+      blockWord: "safe",
+      cancelInput: "~b",
+    });
   });
 
   test("a stance move after a cancel that ends in a state has no gap known", () => {

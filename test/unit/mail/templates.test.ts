@@ -22,11 +22,19 @@ describe("mail templates", () => {
       expect(mail.text).not.toMatch(/<[a-z]/i);
     }
     expect(passwordResetMail({ url, expiresInMinutes: 30 }).text).toContain("30 minutes");
-    expect(inviteMail({ teamName: "T", inviterName: "I", role: "player", url, expiresInDays: 1 }).text).toContain("1 day.");
+    expect(inviteMail({ teamName: "T", inviterName: "I", role: "player", url, expiresInDays: 1 }).text).toContain(
+      "1 day.",
+    );
   });
 
   test("values typed by users cannot add markup to the HTML part", () => {
-    const mail = inviteMail({ teamName: hostile, inviterName: hostile, role: hostile, url: `http://x.example.test/"><script>`, expiresInDays: 7 });
+    const mail = inviteMail({
+      teamName: hostile,
+      inviterName: hostile,
+      role: hostile,
+      url: `http://x.example.test/"><script>`,
+      expiresInDays: 7,
+    });
     expect(mail.html).not.toContain("<script>");
     expect(mail.html).toContain("&lt;script&gt;alert(&quot;x&quot;)&lt;/script&gt;&amp;&#39;");
     expect(mail.html).not.toMatch(/href="[^"]*"></);

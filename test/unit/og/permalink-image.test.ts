@@ -13,7 +13,14 @@ async function png(res: Response) {
 const ctx = playerInTeam("Player Ivo");
 
 const share = (visibility: "team" | "link", view = stringView()) =>
-  createPermalink({ teamId: ctx.team, createdBy: ctx.player, characterId: ctx.characterId, editionSlug: "1-1", view, visibility });
+  createPermalink({
+    teamId: ctx.team,
+    createdBy: ctx.player,
+    characterId: ctx.characterId,
+    editionSlug: "1-1",
+    view,
+    visibility,
+  });
 
 describe("summarizeSharedView", () => {
   test("outlines a public link's path from the engine: input, levels, on block and its class", async () => {
@@ -25,7 +32,9 @@ describe("summarizeSharedView", () => {
       kind: "path",
       title: "Tarrow · 2,2,3 · edition 1-1",
       input: "2,2,3",
-      levels: loaded.view.data.graph.nodes.flatMap((n) => (["2", "2,2", "2,2,3"].includes(n.id) && n.kind === "move" ? [n.level] : [])),
+      levels: loaded.view.data.graph.nodes.flatMap((n) =>
+        ["2", "2,2", "2,2,3"].includes(n.id) && n.kind === "move" ? [n.level] : [],
+      ),
       onBlock: "-14",
       blockClass: "punishable",
     });
@@ -41,7 +50,16 @@ describe("summarizeSharedView", () => {
 
 describe("renderPermalinkImage", () => {
   test("renders a 1200×630 PNG of a path", async () => {
-    const image = await png(await renderPermalinkImage({ kind: "path", title: "T · 1,2 · edition 1-1", input: "1,2", levels: ["high", "mid"], onBlock: "-3", blockClass: "safe" }));
+    const image = await png(
+      await renderPermalinkImage({
+        kind: "path",
+        title: "T · 1,2 · edition 1-1",
+        input: "1,2",
+        levels: ["high", "mid"],
+        onBlock: "-3",
+        blockClass: "safe",
+      }),
+    );
     expect(image.signature).toEqual(PNG_SIGNATURE);
     expect([image.width, image.height]).toEqual([1200, 630]);
   });

@@ -14,16 +14,22 @@ export function makePeople() {
   return {
     async user(name: string | null = `Tester ${userIds.length}`): Promise<string> {
       const id = `u-${tag}-${userIds.length}`;
-      await getDb().insert(users).values({ id, name, email: `${id}@example.test` });
+      await getDb()
+        .insert(users)
+        .values({ id, name, email: `${id}@example.test` });
       userIds.push(id);
       return id;
     },
     async team(members: Record<string, Role> = {}): Promise<number> {
       const slug = `t-${tag}-${teamIds.length}`;
-      const [row] = await getDb().insert(teams).values({ slug, name: `Team ${slug}` }).$returningId();
+      const [row] = await getDb()
+        .insert(teams)
+        .values({ slug, name: `Team ${slug}` })
+        .$returningId();
       if (!row) throw new Error("team insert returned no id");
       teamIds.push(row.id);
-      for (const [userId, role] of Object.entries(members)) await getDb().insert(memberships).values({ teamId: row.id, userId, role });
+      for (const [userId, role] of Object.entries(members))
+        await getDb().insert(memberships).values({ teamId: row.id, userId, role });
       return row.id;
     },
     async cleanup() {
@@ -50,7 +56,6 @@ export const stringView = (over: Partial<PermalinkView> = {}): PermalinkView => 
   opponent: null,
   ...over,
 });
-
 
 /** One player in one throwaway team, made before the file's tests and removed after them. */
 export function playerInTeam(name: string) {

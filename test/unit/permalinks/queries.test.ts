@@ -33,7 +33,15 @@ afterAll(async () => {
 });
 
 const make = (over: Partial<Parameters<typeof createPermalink>[0]> = {}) =>
-  createPermalink({ teamId: team, createdBy: player, characterId, editionSlug: "1-1", view: stringView(), visibility: "link", ...over });
+  createPermalink({
+    teamId: team,
+    createdBy: player,
+    characterId,
+    editionSlug: "1-1",
+    view: stringView(),
+    visibility: "link",
+    ...over,
+  });
 
 async function rowsFor(teamId: number) {
   const db = getDb();
@@ -74,7 +82,10 @@ describe("createPermalink", () => {
       .select()
       .from(auditLog)
       .where(and(eq(auditLog.teamId, team), eq(auditLog.action, "permalink.created")));
-    expect(entry).toMatchObject({ actorId: player, detail: expect.objectContaining({ slug: made.slug, visibility: "link" }) });
+    expect(entry).toMatchObject({
+      actorId: player,
+      detail: expect.objectContaining({ slug: made.slug, visibility: "link" }),
+    });
     // A DTO, not a row: no internal id or edition foreign key.
     expect(Object.keys(made)).not.toContain("id");
     expect(Object.keys(made)).not.toContain("editionId");
@@ -82,8 +93,16 @@ describe("createPermalink", () => {
 
   test("writes nothing when the root, the path, the Edition, the opponent or the character is wrong", async () => {
     const before = await rowsFor(team);
-    await expectAppError(make({ view: stringView({ root: "1'; drop table users; --", path: null }) }), "bad_request", /no move "1'; drop table users; --"/);
-    await expectAppError(make({ view: stringView({ path: "2>2,2|<script>alert(1)</script>" }) }), "bad_request", /does not continue/);
+    await expectAppError(
+      make({ view: stringView({ root: "1'; drop table users; --", path: null }) }),
+      "bad_request",
+      /no move "1'; drop table users; --"/,
+    );
+    await expectAppError(
+      make({ view: stringView({ path: "2>2,2|<script>alert(1)</script>" }) }),
+      "bad_request",
+      /does not continue/,
+    );
     await expectAppError(make({ editionSlug: "9-9" }), "not_found", /no Edition "9-9"/);
     await expectAppError(make({ view: stringView({ opponent: 987_654_321 }) }), "bad_request", /opponent/);
     await expectAppError(make({ characterId: 987_654_321 }), "not_found", /no character/);
@@ -120,7 +139,11 @@ describe("listTeamPermalinks", () => {
     const list = await listTeamPermalinks({ teamId: team });
     expect(list.map((l) => l.slug)).toContain(mine.slug);
     expect(list.map((l) => l.slug)).not.toContain(theirs.slug);
-    expect(list.find((l) => l.slug === mine.slug)).toMatchObject({ createdBy: { id: coach, name: "Coach Ada" }, revoked: false, visibility: "team" });
+    expect(list.find((l) => l.slug === mine.slug)).toMatchObject({
+      createdBy: { id: coach, name: "Coach Ada" },
+      revoked: false,
+      visibility: "team",
+    });
     const times = list.map((l) => l.createdAt);
     expect(times).toEqual([...times].sort().reverse());
     expect((await listTeamPermalinks({ teamId: otherTeam })).map((l) => l.slug)).toEqual([theirs.slug]);
@@ -144,7 +167,11 @@ describe("revokePermalink", () => {
 
   test("a coach may revoke a player's link; a viewer may not; an outsider is told there is no such link", async () => {
     const made = await make();
-    await expectAppError(revokePermalink({ slug: made.slug, actorId: viewer }), "forbidden", /creator|coach or owner|made this link/);
+    await expectAppError(
+      revokePermalink({ slug: made.slug, actorId: viewer }),
+      "forbidden",
+      /creator|coach or owner|made this link/,
+    );
     await expectAppError(revokePermalink({ slug: made.slug, actorId: outsider }), "not_found", /no such permalink/);
     expect((await getPermalinkBySlug({ slug: made.slug }))?.revokedAt).toBeNull();
     expect((await revokePermalink({ slug: made.slug, actorId: coach })).revokedAt).not.toBeNull();
@@ -157,7 +184,13 @@ describe("loadSharedView", () => {
     const loaded = await loadSharedView({ slug: made.slug, viewerId: null });
     expect(loaded).toMatchObject({
       status: "ok",
-      view: { title: made.title, creatorName: "Player Bo", visibility: "link", view: stringView(), character: { slug: "tarrow" } },
+      view: {
+        title: made.title,
+        creatorName: "Player Bo",
+        visibility: "link",
+        view: stringView(),
+        character: { slug: "tarrow" },
+      },
     });
   });
 

@@ -20,7 +20,10 @@ afterAll(async () => {
   await closeDb();
 });
 
-const as = (id: string | null): CurrentUser => () => Promise.resolve(id === null ? null : { id });
+const as =
+  (id: string | null): CurrentUser =>
+  () =>
+    Promise.resolve(id === null ? null : { id });
 const post = (userId: string | null, body: unknown) =>
   handle(() =>
     respondCreatePermalink({
@@ -68,8 +71,12 @@ describe("revoking and listing", () => {
   test("the creator revokes through DELETE; a malformed slug is 400; the team's list shows it revoked", async () => {
     const made = (await (await post(player, body())).json()) as { permalink: { slug: string } };
     const { slug } = made.permalink;
-    expect((await handle(() => respondRevokePermalink({ params: { slug: "x" }, currentUser: as(player) }))()).status).toBe(400);
-    expect((await handle(() => respondRevokePermalink({ params: { slug }, currentUser: as(null) }))()).status).toBe(401);
+    expect(
+      (await handle(() => respondRevokePermalink({ params: { slug: "x" }, currentUser: as(player) }))()).status,
+    ).toBe(400);
+    expect((await handle(() => respondRevokePermalink({ params: { slug }, currentUser: as(null) }))()).status).toBe(
+      401,
+    );
     const res = await handle(() => respondRevokePermalink({ params: { slug }, currentUser: as(player) }))();
     expect(res.status).toBe(200);
 

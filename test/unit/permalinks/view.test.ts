@@ -14,7 +14,12 @@ import {
 } from "@/lib/permalink";
 import { newSlug, SLUG_BYTES } from "@/server/permalinks";
 
-const good: PermalinkView = { root: "2", path: "2>2,2|2,2>2,2,3", options: { maxDepth: 8, maxStanceVisits: 1, fastest: 10 }, opponent: null };
+const good: PermalinkView = {
+  root: "2",
+  path: "2>2,2|2,2>2,2,3",
+  options: { maxDepth: 8, maxStanceVisits: 1, fastest: 10 },
+  opponent: null,
+};
 
 describe("newSlug", () => {
   test("is 24 base64url characters from 18 random bytes (144 bits)", () => {
@@ -44,7 +49,11 @@ describe("permalinkViewSchema", () => {
 
   test.each([
     ["no root", { ...good, root: "" }, /the view starts from/],
-    ["depth past the Explorer's bound", { ...good, options: { ...good.options, maxDepth: 17 } }, /Depth must be at most 16/],
+    [
+      "depth past the Explorer's bound",
+      { ...good, options: { ...good.options, maxDepth: 17 } },
+      /Depth must be at most 16/,
+    ],
     ["fractional stance re-entries", { ...good, options: { ...good.options, maxStanceVisits: 1.5 } }, /whole number/],
     ["fastest as text", { ...good, options: { ...good.options, fastest: "10; drop table" } }, /must be a number/],
     ["an opponent as a script", { ...good, opponent: "<script>alert(1)</script>" }, /opponent must be a character id/],
@@ -98,8 +107,19 @@ describe("views and the Explorer", () => {
   });
 
   test("the live Explorer's address opens the same view (its own search-param parser reads it back)", () => {
-    const view: PermalinkView = { root: "1,2", path: "1>1,2|1,2~b>drift", options: { maxDepth: 5, maxStanceVisits: 2, fastest: 12 }, opponent: 9 };
-    const href = explorerHref({ gameSlug: "vesper-circuit", characterSlug: "tarrow", edition: "1-0", view, gameFastest: 10 });
+    const view: PermalinkView = {
+      root: "1,2",
+      path: "1>1,2|1,2~b>drift",
+      options: { maxDepth: 5, maxStanceVisits: 2, fastest: 12 },
+      opponent: 9,
+    };
+    const href = explorerHref({
+      gameSlug: "vesper-circuit",
+      characterSlug: "tarrow",
+      edition: "1-0",
+      view,
+      gameFastest: 10,
+    });
     const url = new URL(href, "http://localhost");
     expect(url.pathname).toBe("/games/vesper-circuit/tarrow/explore/1%2C2");
     expect(parseExplorerSearch(Object.fromEntries(url.searchParams))).toEqual({
@@ -111,7 +131,13 @@ describe("views and the Explorer", () => {
       vs: 9,
     });
     // Defaults are left out, as the Explorer leaves them out of its own address.
-    const plain = explorerHref({ gameSlug: "g", characterSlug: "c", edition: "1-1", view: { ...good, path: null }, gameFastest: 10 });
+    const plain = explorerHref({
+      gameSlug: "g",
+      characterSlug: "c",
+      edition: "1-1",
+      view: { ...good, path: null },
+      gameFastest: 10,
+    });
     expect(plain).toBe("/games/g/c/explore/2?edition=1-1");
     expect(VIEW_BOUNDS.maxDepth.default).toBe(8);
   });

@@ -15,7 +15,8 @@ function graph(character: (typeof DEMO_CHARACTERS)[number], edition: (typeof EDI
   const follows = (key: string) => (out.get(key) ?? []).filter((e) => e.kind === "follow");
   const roots = moves.filter((m) => !edges.some((e) => e.kind === "follow" && "move" in e.to && e.to.move === m.key));
   /** Longest chain of hits from a move along follow edges. */
-  const hits = (key: string): number => 1 + Math.max(0, ...follows(key).map((e) => hits((e.to as { move: string }).move)));
+  const hits = (key: string): number =>
+    1 + Math.max(0, ...follows(key).map((e) => hits((e.to as { move: string }).move)));
   const branches = (key: string): boolean =>
     (out.get(key) ?? []).length >= 2 || follows(key).some((e) => branches((e.to as { move: string }).move));
   return { data, moves, edges, move, out, follows, roots, hits, branches };

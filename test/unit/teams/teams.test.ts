@@ -4,7 +4,14 @@ import { atLeast, getRole, requireRole } from "@/server/authz";
 import { closeDb, getDb } from "@/server/db";
 import { listAudit } from "@/server/db/queries/audit";
 import { hashToken } from "@/server/tokens";
-import { acceptInvite, createInvite, listPendingInvites, lookupInvite, mayInvite, revokeInvite } from "@/server/db/queries/invites";
+import {
+  acceptInvite,
+  createInvite,
+  listPendingInvites,
+  lookupInvite,
+  mayInvite,
+  revokeInvite,
+} from "@/server/db/queries/invites";
 import { changeRole, createTeam, listMembers, listMyTeams, removeMember, teamSlug } from "@/server/db/queries/teams";
 import { invites, ROLES } from "@/server/db/schema";
 import { makeUser } from "./fixtures";
@@ -12,7 +19,11 @@ import { makeUser } from "./fixtures";
 // Against the test MariaDB that `npm test` prepares; every test makes its own users and teams.
 afterAll(closeDb);
 
-const status = (p: Promise<unknown>) => p.then(() => 200, (e: { status?: number }) => e.status ?? 500);
+const status = (p: Promise<unknown>) =>
+  p.then(
+    () => 200,
+    (e: { status?: number }) => e.status ?? 500,
+  );
 
 describe("roles", () => {
   test("each role allows what the roles below it allow, and nothing above", () => {
@@ -53,7 +64,13 @@ describe("teams", () => {
     const stranger = await makeUser("stranger");
     const team = await createTeam({ name: "Checks", ownerId: owner.id });
     expect(await status(requireRole({ teamId: team.id, userId: stranger.id, needed: "viewer" }))).toBe(404);
-    const { token } = await createInvite({ teamId: team.id, invitedBy: owner.id, inviterRole: "owner", email: stranger.email, role: "viewer" });
+    const { token } = await createInvite({
+      teamId: team.id,
+      invitedBy: owner.id,
+      inviterRole: "owner",
+      email: stranger.email,
+      role: "viewer",
+    });
     await acceptInvite({ token, userId: stranger.id, userEmail: stranger.email });
     expect(await status(requireRole({ teamId: team.id, userId: stranger.id, needed: "viewer" }))).toBe(200);
     expect(await status(requireRole({ teamId: team.id, userId: stranger.id, needed: "player" }))).toBe(403);
@@ -66,13 +83,25 @@ describe("teams", () => {
     expect(await status(changeRole({ teamId: team.id, actorId: a.id, userId: a.id, role: "coach" }))).toBe(409);
     expect(await status(removeMember({ teamId: team.id, actorId: a.id, userId: a.id }))).toBe(409);
 
-    const { token } = await createInvite({ teamId: team.id, invitedBy: a.id, inviterRole: "owner", email: b.email, role: "coach" });
+    const { token } = await createInvite({
+      teamId: team.id,
+      invitedBy: a.id,
+      inviterRole: "owner",
+      email: b.email,
+      role: "coach",
+    });
     await acceptInvite({ token, userId: b.id, userEmail: b.email });
     await changeRole({ teamId: team.id, actorId: a.id, userId: b.id, role: "owner" });
     await removeMember({ teamId: team.id, actorId: a.id, userId: a.id });
     expect((await listMembers({ teamId: team.id })).map((m) => [m.email, m.role])).toEqual([[b.email, "owner"]]);
     const actions = (await listAudit({ teamId: team.id })).map((e) => e.action);
-    expect(actions).toEqual(["team.created", "member.invited", "invite.accepted", "member.role_changed", "member.left"]);
+    expect(actions).toEqual([
+      "team.created",
+      "member.invited",
+      "invite.accepted",
+      "member.role_changed",
+      "member.left",
+    ]);
   });
 });
 
@@ -81,7 +110,13 @@ describe("invites", () => {
     const owner = await makeUser("owner");
     const player = await makeUser("player");
     const team = await createTeam({ name: "Invites", ownerId: owner.id });
-    const { token, invite } = await createInvite({ teamId: team.id, invitedBy: owner.id, inviterRole: "owner", email: ` ${player.email.toUpperCase()} `, role: "player" });
+    const { token, invite } = await createInvite({
+      teamId: team.id,
+      invitedBy: owner.id,
+      inviterRole: "owner",
+      email: ` ${player.email.toUpperCase()} `,
+      role: "player",
+    });
     expect(invite.email).toBe(player.email);
     expect(token.length).toBeGreaterThanOrEqual(43); // 32 random bytes in base64url
     const [row] = await getDb().select().from(invites).where(eq(invites.id, invite.id));
@@ -89,7 +124,10 @@ describe("invites", () => {
     expect(JSON.stringify(row)).not.toContain(token);
 
     expect(await lookupInvite({ token })).toMatchObject({ status: "valid", teamName: "Invites", role: "player" });
-    expect(await acceptInvite({ token, userId: player.id, userEmail: player.email })).toMatchObject({ teamSlug: team.slug, role: "player" });
+    expect(await acceptInvite({ token, userId: player.id, userEmail: player.email })).toMatchObject({
+      teamSlug: team.slug,
+      role: "player",
+    });
     expect(await lookupInvite({ token })).toEqual({ status: "used" });
     expect(await status(acceptInvite({ token, userId: player.id, userEmail: player.email }))).toBe(409);
     expect(await listPendingInvites({ teamId: team.id })).toEqual([]);
@@ -101,7 +139,14 @@ describe("invites", () => {
     const other = await makeUser("other");
     const team = await createTeam({ name: "Expiry", ownerId: owner.id });
     const made = new Date("2026-11-01T12:00:00Z");
-    const { token } = await createInvite({ teamId: team.id, invitedBy: owner.id, inviterRole: "owner", email: invited.email, role: "viewer", now: made });
+    const { token } = await createInvite({
+      teamId: team.id,
+      invitedBy: owner.id,
+      inviterRole: "owner",
+      email: invited.email,
+      role: "viewer",
+      now: made,
+    });
 
     expect(await status(acceptInvite({ token, userId: other.id, userEmail: other.email, now: made }))).toBe(403);
     const justBefore = new Date(made.getTime() + 7 * 86_400_000 - 1000);
@@ -110,7 +155,13 @@ describe("invites", () => {
     expect((await lookupInvite({ token, now: after })).status).toBe("expired");
     expect(await status(acceptInvite({ token, userId: invited.id, userEmail: invited.email, now: after }))).toBe(409);
 
-    const second = await createInvite({ teamId: team.id, invitedBy: owner.id, inviterRole: "owner", email: invited.email, role: "viewer" });
+    const second = await createInvite({
+      teamId: team.id,
+      invitedBy: owner.id,
+      inviterRole: "owner",
+      email: invited.email,
+      role: "viewer",
+    });
     await revokeInvite({ teamId: team.id, inviteId: second.invite.id, actorId: owner.id });
     expect((await lookupInvite({ token: second.token })).status).toBe("revoked");
     expect(await getRole({ teamId: team.id, userId: invited.id })).toBeNull();
@@ -121,13 +172,42 @@ describe("invites", () => {
     const owner = await makeUser("owner");
     const coach = await makeUser("coach");
     const team = await createTeam({ name: "Limits", ownerId: owner.id });
-    const { token } = await createInvite({ teamId: team.id, invitedBy: owner.id, inviterRole: "owner", email: coach.email, role: "coach" });
+    const { token } = await createInvite({
+      teamId: team.id,
+      invitedBy: owner.id,
+      inviterRole: "owner",
+      email: coach.email,
+      role: "coach",
+    });
     await acceptInvite({ token, userId: coach.id, userEmail: coach.email });
     const someone = await makeUser("someone");
-    expect(await status(createInvite({ teamId: team.id, invitedBy: coach.id, inviterRole: "coach", email: someone.email, role: "owner" }))).toBe(403);
-    expect(await status(createInvite({ teamId: team.id, invitedBy: owner.id, inviterRole: "owner", email: coach.email, role: "player" }))).toBe(409);
+    expect(
+      await status(
+        createInvite({
+          teamId: team.id,
+          invitedBy: coach.id,
+          inviterRole: "coach",
+          email: someone.email,
+          role: "owner",
+        }),
+      ),
+    ).toBe(403);
+    expect(
+      await status(
+        createInvite({
+          teamId: team.id,
+          invitedBy: owner.id,
+          inviterRole: "owner",
+          email: coach.email,
+          role: "player",
+        }),
+      ),
+    ).toBe(409);
     // Nothing half-written by the refused ones.
-    const pending = await getDb().select().from(invites).where(and(eq(invites.teamId, team.id)));
+    const pending = await getDb()
+      .select()
+      .from(invites)
+      .where(and(eq(invites.teamId, team.id)));
     expect(pending).toHaveLength(1);
   });
 
@@ -135,11 +215,26 @@ describe("invites", () => {
     const owner = await makeUser("owner");
     const coach = await makeUser("coach");
     const team = await createTeam({ name: "Keep Role", ownerId: owner.id });
-    const first = await createInvite({ teamId: team.id, invitedBy: owner.id, inviterRole: "owner", email: coach.email, role: "coach" });
+    const first = await createInvite({
+      teamId: team.id,
+      invitedBy: owner.id,
+      inviterRole: "owner",
+      email: coach.email,
+      role: "coach",
+    });
     await acceptInvite({ token: first.token, userId: coach.id, userEmail: coach.email });
     // A second invite cannot be made for a member, so make the row directly as an old one would be.
     const token = `second-invite-${crypto.randomUUID()}`;
-    await getDb().insert(invites).values({ teamId: team.id, email: coach.email, role: "viewer", tokenHash: hashToken(token), invitedBy: owner.id, expiresAt: new Date(Date.now() + 86_400_000) });
+    await getDb()
+      .insert(invites)
+      .values({
+        teamId: team.id,
+        email: coach.email,
+        role: "viewer",
+        tokenHash: hashToken(token),
+        invitedBy: owner.id,
+        expiresAt: new Date(Date.now() + 86_400_000),
+      });
     expect((await acceptInvite({ token, userId: coach.id, userEmail: coach.email })).role).toBe("coach");
   });
 });
@@ -149,7 +244,16 @@ describe("invite delivery", () => {
     const owner = await makeUser("owner");
     const team = await createTeam({ name: "Mail Down", ownerId: owner.id });
     const deliver = () => Promise.reject(new Error("SMTP refused"));
-    await expect(createInvite({ teamId: team.id, invitedBy: owner.id, inviterRole: "owner", email: "nobody@example.test", role: "player", deliver })).rejects.toThrow("SMTP refused");
+    await expect(
+      createInvite({
+        teamId: team.id,
+        invitedBy: owner.id,
+        inviterRole: "owner",
+        email: "nobody@example.test",
+        role: "player",
+        deliver,
+      }),
+    ).rejects.toThrow("SMTP refused");
     expect(await getDb().select().from(invites).where(eq(invites.teamId, team.id))).toEqual([]);
     expect((await listAudit({ teamId: team.id })).map((e) => e.action)).toEqual(["team.created"]);
   });

@@ -4,7 +4,11 @@ import { AuthCard, first } from "../page-shell";
 
 export const metadata: Metadata = { title: "Check your e-mail" };
 
-export default async function CheckEmailPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function CheckEmailPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const reset = first((await searchParams).for) === "reset";
   return (
     <AuthCard

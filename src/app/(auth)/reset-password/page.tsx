@@ -12,7 +12,11 @@ const REFUSED = {
   unknown: "This reset link is not valid: it may be incomplete, or an older one.",
 } as const;
 
-export default async function ResetPasswordPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function ResetPasswordPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const token = first((await searchParams).token) ?? "";
   const state = token && token.length <= 200 ? await resetTokenState({ token }) : "unknown";
   if (state !== "valid") {
@@ -21,7 +25,10 @@ export default async function ResetPasswordPage({ searchParams }: { searchParams
         <p role="alert" className="text-ink-200">
           {REFUSED[state]} Links work once, for 30 minutes.
         </p>
-        <Link href="/forgot-password" className="inline-block rounded bg-accent px-4 py-2 font-semibold text-ink-950 no-underline hover:bg-accent-strong">
+        <Link
+          href="/forgot-password"
+          className="inline-block rounded bg-accent px-4 py-2 font-semibold text-ink-950 no-underline hover:bg-accent-strong"
+        >
           Send me a new link
         </Link>
       </AuthCard>

@@ -7,12 +7,17 @@ export const metadata: Metadata = { title: "Sign in" };
 
 /** next-auth sends people back here with ?error= when a link fails; only its known codes are shown. */
 const LINK_ERRORS: Record<string, string> = {
-  Verification: "This sign-in link has expired or was already used. Enter your e-mail below and we will send a new one.",
+  Verification:
+    "This sign-in link has expired or was already used. Enter your e-mail below and we will send a new one.",
   EmailSignin: "We could not send the sign-in e-mail. Try again in a moment.",
   SessionRequired: "Sign in to see that page.",
 };
 
-export default async function SignInPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function SignInPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const { callbackUrl, withCallback, params } = await callbackFor(searchParams);
   const code = first(params.error);
   const linkError = code ? (LINK_ERRORS[code] ?? "Sign-in did not work. Try again.") : null;
@@ -34,7 +39,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
         </p>
       ) : null}
       <PasswordSignInForm callbackUrl={callbackUrl} />
-      <div className="flex items-center gap-3 text-xs uppercase tracking-wide text-ink-400" aria-hidden>
+      <div className="flex items-center gap-3 text-xs tracking-wide text-ink-400 uppercase" aria-hidden>
         <span className="h-px flex-1 bg-ink-700" />
         or
         <span className="h-px flex-1 bg-ink-700" />

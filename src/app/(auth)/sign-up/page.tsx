@@ -6,7 +6,11 @@ import { AuthCard, callbackFor } from "../page-shell";
 
 export const metadata: Metadata = { title: "Create an account" };
 
-export default async function SignUpPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function SignUpPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const { callbackUrl, withCallback } = await callbackFor(searchParams);
   // An invite's link fills in the address it was sent to; anything that is not an address is ignored.
   const email = emailSchema.safeParse((await searchParams).email);

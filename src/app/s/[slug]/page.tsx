@@ -18,7 +18,8 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const { slug } = await params;
   const shared = await load(slug);
   // Only a link anyone may open names what it shows; the rest leak nothing, not even a title.
-  if (shared.status !== "ok" || shared.view.visibility !== "link") return { title: "Shared view", robots: { index: false } };
+  if (shared.status !== "ok" || shared.view.visibility !== "link")
+    return { title: "Shared view", robots: { index: false } };
   return { title: shared.view.title, robots: { index: false } };
 }
 
@@ -27,6 +28,7 @@ export default async function SharedPage({ params }: Props) {
   const { slug } = await params;
   const shared = await load(slug);
   if (shared.status === "unavailable") notFound();
-  if (shared.status === "sign-in") return <SharedSignIn signInHref={`/sign-in?callbackUrl=${encodeURIComponent(`/s/${slug}`)}`} />;
+  if (shared.status === "sign-in")
+    return <SharedSignIn signInHref={`/sign-in?callbackUrl=${encodeURIComponent(`/s/${slug}`)}`} />;
   return <SharedExplorer view={shared.view} />;
 }

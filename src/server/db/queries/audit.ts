@@ -20,7 +20,12 @@ export type AuditAction =
 /** Records who did what in a team. Call it with the transaction that makes the change. */
 export async function recordAudit(
   tx: Executor,
-  entry: { teamId: number; actorId: string | null; action: AuditAction; detail: Record<string, string | number | boolean | null> },
+  entry: {
+    teamId: number;
+    actorId: string | null;
+    action: AuditAction;
+    detail: Record<string, string | number | boolean | null>;
+  },
 ): Promise<void> {
   await tx.insert(auditLog).values(entry);
 }

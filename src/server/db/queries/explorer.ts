@@ -14,10 +14,19 @@ export type ExplorerData =
  * an opponent from, and the game's frame rules. The page and the graph route
  * both answer with this.
  */
-export async function getExplorerData({ characterId, edition }: { characterId: number; edition?: string }): Promise<ExplorerData> {
+export async function getExplorerData({
+  characterId,
+  edition,
+}: {
+  characterId: number;
+  edition?: string;
+}): Promise<ExplorerData> {
   const found = await getCharacterById({ id: characterId });
   if (!found) return { ok: false, missing: "character" };
-  const [editions, cast] = await Promise.all([listEditions({ gameId: found.game.id }), listCharacters({ gameId: found.game.id })]);
+  const [editions, cast] = await Promise.all([
+    listEditions({ gameId: found.game.id }),
+    listCharacters({ gameId: found.game.id }),
+  ]);
   const chosen = edition === undefined ? editions[0] : editions.find((e) => e.slug === edition);
   if (!chosen) return { ok: false, missing: "edition", gameName: found.game.name };
   const { graph, roots, starters } = await getCharacterGraph({ characterId, editionId: chosen.id });

@@ -42,7 +42,10 @@ const gameColumns = {
 
 /** The games a viewer may read: the public ones, and their own teams' (none when signed out). */
 export async function listGames({ viewerId = null }: { viewerId?: string | null } = {}): Promise<GameSummary[]> {
-  const mine = viewerId === null ? [] : await getDb().select({ teamId: memberships.teamId }).from(memberships).where(eq(memberships.userId, viewerId));
+  const mine =
+    viewerId === null
+      ? []
+      : await getDb().select({ teamId: memberships.teamId }).from(memberships).where(eq(memberships.userId, viewerId));
   const teamIds = mine.map((m) => m.teamId);
   return getDb()
     .select(gameColumns)

@@ -20,7 +20,15 @@ export interface InviteDto {
 }
 
 export type InviteLookup =
-  | { status: "valid"; teamId: number; teamSlug: string; teamName: string; email: string; role: Role; inviterName: string | null }
+  | {
+      status: "valid";
+      teamId: number;
+      teamSlug: string;
+      teamName: string;
+      email: string;
+      role: Role;
+      inviterName: string | null;
+    }
   | { status: "expired" | "used" | "revoked" | "unknown" };
 
 /** Who may invite whom: owners any role; coaches up to coach (a coach cannot make an owner). */
@@ -52,7 +60,8 @@ export async function createInvite({
   deliver?: (message: { token: string; email: string; expiresAt: Date }) => Promise<void>;
   now?: Date;
 }): Promise<{ invite: InviteDto; token: string }> {
-  if (!mayInvite(inviterRole, role)) throw new AppError("forbidden", `A ${inviterRole} cannot invite someone as ${role}.`);
+  if (!mayInvite(inviterRole, role))
+    throw new AppError("forbidden", `A ${inviterRole} cannot invite someone as ${role}.`);
   const address = email.trim().toLowerCase();
   return getDb().transaction(async (tx) => {
     const [already] = await tx
@@ -64,20 +73,43 @@ export async function createInvite({
     if (already) throw new AppError("conflict", `${address} is already a member of this team.`);
     const token = newToken();
     const expiresAt = new Date(now.getTime() + INVITE_DAYS * DAY_MS);
-    const [row] = await tx.insert(invites).values({ teamId, email: address, role, tokenHash: hashToken(token), invitedBy, expiresAt }).$returningId();
+    const [row] = await tx
+      .insert(invites)
+      .values({ teamId, email: address, role, tokenHash: hashToken(token), invitedBy, expiresAt })
+      .$returningId();
     await recordAudit(tx, { teamId, actorId: invitedBy, action: "member.invited", detail: { email: address, role } });
     await deliver?.({ token, email: address, expiresAt });
     return {
       token,
-      invite: { id: row!.id, email: address, role, invitedBy, expiresAt: expiresAt.toISOString(), createdAt: now.toISOString() },
+      invite: {
+        id: row!.id,
+        email: address,
+        role,
+        invitedBy,
+        expiresAt: expiresAt.toISOString(),
+        createdAt: now.toISOString(),
+      },
     };
   });
 }
 
 /** Invites still waiting for an answer, newest first. */
-export async function listPendingInvites({ teamId, now = new Date() }: { teamId: number; now?: Date }): Promise<InviteDto[]> {
+export async function listPendingInvites({
+  teamId,
+  now = new Date(),
+}: {
+  teamId: number;
+  now?: Date;
+}): Promise<InviteDto[]> {
   const rows = await getDb()
-    .select({ id: invites.id, email: invites.email, role: invites.role, invitedBy: users.name, expiresAt: invites.expiresAt, createdAt: invites.createdAt })
+    .select({
+      id: invites.id,
+      email: invites.email,
+      role: invites.role,
+      invitedBy: users.name,
+      expiresAt: invites.expiresAt,
+      createdAt: invites.createdAt,
+    })
     .from(invites)
     .leftJoin(users, eq(users.id, invites.invitedBy))
     .where(and(eq(invites.teamId, teamId), isNull(invites.acceptedAt), isNull(invites.revokedAt)))
@@ -87,7 +119,15 @@ export async function listPendingInvites({ teamId, now = new Date() }: { teamId:
     .map((r) => ({ ...r, expiresAt: r.expiresAt.toISOString(), createdAt: r.createdAt.toISOString() }));
 }
 
-export async function revokeInvite({ teamId, inviteId, actorId }: { teamId: number; inviteId: number; actorId: string }): Promise<void> {
+export async function revokeInvite({
+  teamId,
+  inviteId,
+  actorId,
+}: {
+  teamId: number;
+  inviteId: number;
+  actorId: string;
+}): Promise<void> {
   await getDb().transaction(async (tx) => {
     const [row] = await tx
       .select({ email: invites.email, acceptedAt: invites.acceptedAt, revokedAt: invites.revokedAt })
@@ -154,15 +194,38 @@ export async function acceptInvite({
 }): Promise<{ teamSlug: string; teamName: string; role: Role }> {
   return getDb().transaction(async (tx) => {
     const [row] = await tx
-      .select({ id: invites.id, teamId: invites.teamId, email: invites.email, role: invites.role, expiresAt: invites.expiresAt, acceptedAt: invites.acceptedAt, revokedAt: invites.revokedAt })
+      .select({
+        id: invites.id,
+        teamId: invites.teamId,
+        email: invites.email,
+        role: invites.role,
+        expiresAt: invites.expiresAt,
+        acceptedAt: invites.acceptedAt,
+        revokedAt: invites.revokedAt,
+      })
       .from(invites)
       .where(eq(invites.tokenHash, hashToken(token)))
       .for("update");
-    const status = !row ? "unknown" : row.revokedAt ? "revoked" : row.acceptedAt ? "used" : row.expiresAt <= now ? "expired" : "valid";
-    if (!row || status !== "valid") throw new AppError(status === "unknown" ? "not_found" : "conflict", INVITE_PROBLEM[status as Exclude<typeof status, "valid">]);
+    const status = !row
+      ? "unknown"
+      : row.revokedAt
+        ? "revoked"
+        : row.acceptedAt
+          ? "used"
+          : row.expiresAt <= now
+            ? "expired"
+            : "valid";
+    if (!row || status !== "valid")
+      throw new AppError(
+        status === "unknown" ? "not_found" : "conflict",
+        INVITE_PROBLEM[status as Exclude<typeof status, "valid">],
+      );
     if (row.email !== userEmail.trim().toLowerCase()) {
       // The address is not repeated here: an answer to an API call names nobody.
-      throw new AppError("forbidden", "This invite was sent to another e-mail address. Sign in with the address it was sent to, then accept it.");
+      throw new AppError(
+        "forbidden",
+        "This invite was sent to another e-mail address. Sign in with the address it was sent to, then accept it.",
+      );
     }
     const [team] = await tx.select({ slug: teams.slug, name: teams.name }).from(teams).where(eq(teams.id, row.teamId));
     const [member] = await tx
@@ -171,10 +234,19 @@ export async function acceptInvite({
       .where(and(eq(memberships.teamId, row.teamId), eq(memberships.userId, userId)))
       .for("update");
     const role = member && atLeast(member.role, row.role) ? member.role : row.role;
-    if (member) await tx.update(memberships).set({ role }).where(and(eq(memberships.teamId, row.teamId), eq(memberships.userId, userId)));
+    if (member)
+      await tx
+        .update(memberships)
+        .set({ role })
+        .where(and(eq(memberships.teamId, row.teamId), eq(memberships.userId, userId)));
     else await tx.insert(memberships).values({ teamId: row.teamId, userId, role });
     await tx.update(invites).set({ acceptedAt: now, acceptedBy: userId }).where(eq(invites.id, row.id));
-    await recordAudit(tx, { teamId: row.teamId, actorId: userId, action: "invite.accepted", detail: { email: row.email, role } });
+    await recordAudit(tx, {
+      teamId: row.teamId,
+      actorId: userId,
+      action: "invite.accepted",
+      detail: { email: row.email, role },
+    });
     return { teamSlug: team!.slug, teamName: team!.name, role };
   });
 }

@@ -31,7 +31,14 @@ export interface MoveEntry {
   stance: StanceEntry | null;
   /** How the move is reached: a follow-up of another hit, entered from a stance, or neither (a root). */
   via:
-    | { kind: "follow"; fromId: number; input: string; gapOnBlock: number; comboOnHit: boolean; comboOnCounterHit: boolean }
+    | {
+        kind: "follow";
+        fromId: number;
+        input: string;
+        gapOnBlock: number;
+        comboOnHit: boolean;
+        comboOnCounterHit: boolean;
+      }
     | { kind: "enter"; input: string }
     | null;
   /** 0 for the first hit of a string, 1 for the next, and so on. */
@@ -58,14 +65,18 @@ export interface MoveList {
 
 type Scope = { characterId: number; editionId: number };
 
-
-
 /** The rows of one character in one edition: stances, moves in list order, edges. */
 async function loadRows({ characterId, editionId }: Scope) {
   const db = getDb();
   const [stanceRows, moveRows, edgeRows] = await Promise.all([
     db
-      .select({ id: stances.id, key: stances.key, name: stances.name, abbreviation: stances.abbreviation, notes: stances.notes })
+      .select({
+        id: stances.id,
+        key: stances.key,
+        name: stances.name,
+        abbreviation: stances.abbreviation,
+        notes: stances.notes,
+      })
       .from(stances)
       .where(and(eq(stances.characterId, characterId), eq(stances.editionId, editionId)))
       .orderBy(asc(stances.id)),
@@ -91,7 +102,9 @@ export const stanceNodeId = (key: string) => `stance:${key}`;
  * edge ids are the rows' keys, stable across editions, so a selected path
  * means the same moves in every edition that has them.
  */
-export async function getCharacterGraph(scope: Scope): Promise<{ graph: MoveGraph; roots: string[]; starters: Starter[] }> {
+export async function getCharacterGraph(
+  scope: Scope,
+): Promise<{ graph: MoveGraph; roots: string[]; starters: Starter[] }> {
   const { stanceRows, moveRows, edgeRows } = await loadRows(scope);
   const moveKey = new Map(moveRows.map((m) => [m.id, m.key]));
   const stanceKey = new Map(stanceRows.map((s) => [s.id, stanceNodeId(s.key)]));
@@ -99,7 +112,12 @@ export async function getCharacterGraph(scope: Scope): Promise<{ graph: MoveGrap
     (moveId !== null ? moveKey.get(moveId) : stanceId !== null ? stanceKey.get(stanceId) : undefined) ?? "";
 
   const graphEdges: GraphEdge[] = edgeRows.map((e) => {
-    const base = { id: e.key, from: end(e.fromMoveId, e.fromStanceId), to: end(e.toMoveId, e.toStanceId), input: e.input };
+    const base = {
+      id: e.key,
+      from: end(e.fromMoveId, e.fromStanceId),
+      to: end(e.toMoveId, e.toStanceId),
+      input: e.input,
+    };
     switch (e.kind) {
       case "follow":
         return {

@@ -65,11 +65,20 @@ export interface SharedViewDto {
   view: PermalinkView;
 }
 
-export type SharedViewResult = { status: "ok"; view: SharedViewDto } | { status: "sign-in" } | { status: "unavailable" };
+export type SharedViewResult =
+  { status: "ok"; view: SharedViewDto } | { status: "sign-in" } | { status: "unavailable" };
 
 /** A title says what the link shows at a glance: character, the path's input, the Edition. */
 const MAX_TITLE_INPUT = 120;
-export function permalinkTitle({ characterName, input, editionSlug }: { characterName: string; input: string; editionSlug: string }) {
+export function permalinkTitle({
+  characterName,
+  input,
+  editionSlug,
+}: {
+  characterName: string;
+  input: string;
+  editionSlug: string;
+}) {
   const shown = input.length > MAX_TITLE_INPUT ? `${input.slice(0, MAX_TITLE_INPUT - 1)}…` : input;
   return `${characterName} · ${shown} · edition ${editionSlug}`;
 }
@@ -225,7 +234,9 @@ export async function getPermalinkBySlug({ slug }: { slug: string }): Promise<Pe
 
 /** A team's permalinks with who made them, newest first; revoked ones stay listed, marked. */
 export async function listTeamPermalinks({ teamId }: { teamId: number }): Promise<TeamPermalinkDto[]> {
-  const rows = await selectRows().where(eq(permalinks.teamId, teamId)).orderBy(desc(permalinks.createdAt), desc(permalinks.id));
+  const rows = await selectRows()
+    .where(eq(permalinks.teamId, teamId))
+    .orderBy(desc(permalinks.createdAt), desc(permalinks.id));
   return rows.map((r) => ({
     slug: r.slug,
     path: permalinkPath(r.slug),
@@ -251,7 +262,10 @@ export async function revokePermalink({ slug, actorId }: { slug: string; actorId
   const role = await getRole({ teamId: row.teamId, userId: actorId });
   if (role === null) throw new AppError("not_found", "There is no such permalink.");
   if (!canRevoke({ role, isCreator: row.createdBy === actorId })) {
-    throw new AppError("forbidden", "Only the person who made this link, or a coach or owner of the team, can revoke it.");
+    throw new AppError(
+      "forbidden",
+      "Only the person who made this link, or a coach or owner of the team, can revoke it.",
+    );
   }
   if (row.revokedAt !== null) return toDto(row, found.view);
 
@@ -262,7 +276,12 @@ export async function revokePermalink({ slug, actorId }: { slug: string; actorId
       .where(and(eq(permalinks.slug, slug), isNull(permalinks.revokedAt)));
     // Two revokes at once: the one that changed nothing records nothing.
     if (affectedRows(result) === 0) return;
-    await recordAudit(tx, { teamId: row.teamId, actorId, action: "permalink.revoked", detail: { slug, title: row.title } });
+    await recordAudit(tx, {
+      teamId: row.teamId,
+      actorId,
+      action: "permalink.revoked",
+      detail: { slug, title: row.title },
+    });
   });
   const after = await findRow(slug);
   if (!after) throw new Error(`permalink ${slug} vanished while being revoked`);
@@ -275,7 +294,13 @@ export async function revokePermalink({ slug, actorId }: { slug: string; actorId
  * tells nothing about which it is; a team-only link asks a signed-out viewer
  * to sign in.
  */
-export async function loadSharedView({ slug, viewerId }: { slug: string; viewerId: string | null }): Promise<SharedViewResult> {
+export async function loadSharedView({
+  slug,
+  viewerId,
+}: {
+  slug: string;
+  viewerId: string | null;
+}): Promise<SharedViewResult> {
   const found = await findRow(slug);
   if (!found || found.row.revokedAt !== null) return { status: "unavailable" };
   const { row, view } = found;
@@ -305,6 +330,8 @@ export async function loadSharedView({ slug, viewerId }: { slug: string; viewerI
 }
 
 function affectedRows(result: unknown): number {
-  const header = Array.isArray(result) ? (result[0] as { affectedRows?: number }) : (result as { affectedRows?: number });
+  const header = Array.isArray(result)
+    ? (result[0] as { affectedRows?: number })
+    : (result as { affectedRows?: number });
   return header?.affectedRows ?? 0;
 }

@@ -60,7 +60,11 @@ export async function listMyTeams({ userId }: { userId: string }): Promise<MyTea
 }
 
 export async function getTeamBySlug({ slug }: { slug: string }): Promise<TeamDto | null> {
-  const [row] = await getDb().select({ id: teams.id, slug: teams.slug, name: teams.name }).from(teams).where(eq(teams.slug, slug)).limit(1);
+  const [row] = await getDb()
+    .select({ id: teams.id, slug: teams.slug, name: teams.name })
+    .from(teams)
+    .where(eq(teams.slug, slug))
+    .limit(1);
   return row ?? null;
 }
 
@@ -88,14 +92,33 @@ async function memberRole(tx: Executor, teamId: number, userId: string): Promise
 const LAST_OWNER = "A team needs at least one owner: make someone else an owner first.";
 
 /** An owner changes a member's role. The last owner cannot step down. */
-export async function changeRole({ teamId, actorId, userId, role }: { teamId: number; actorId: string; userId: string; role: Role }): Promise<MemberDto> {
+export async function changeRole({
+  teamId,
+  actorId,
+  userId,
+  role,
+}: {
+  teamId: number;
+  actorId: string;
+  userId: string;
+  role: Role;
+}): Promise<MemberDto> {
   return getDb().transaction(async (tx) => {
     const current = await memberRole(tx, teamId, userId);
     if (current === null) throw new AppError("not_found", "That person is not a member of this team.");
-    if (current === "owner" && role !== "owner" && (await ownerCount(tx, teamId)) <= 1) throw new AppError("conflict", LAST_OWNER);
+    if (current === "owner" && role !== "owner" && (await ownerCount(tx, teamId)) <= 1)
+      throw new AppError("conflict", LAST_OWNER);
     if (current !== role) {
-      await tx.update(memberships).set({ role }).where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
-      await recordAudit(tx, { teamId, actorId, action: "member.role_changed", detail: { userId, from: current, to: role } });
+      await tx
+        .update(memberships)
+        .set({ role })
+        .where(and(eq(memberships.teamId, teamId), eq(memberships.userId, userId)));
+      await recordAudit(tx, {
+        teamId,
+        actorId,
+        action: "member.role_changed",
+        detail: { userId, from: current, to: role },
+      });
     }
     const [member] = (await listMembersWith(tx, teamId)).filter((m) => m.userId === userId);
     return member!;
@@ -103,7 +126,15 @@ export async function changeRole({ teamId, actorId, userId, role }: { teamId: nu
 }
 
 /** An owner removes a member, or a member leaves (actor = the member). The last owner cannot go. */
-export async function removeMember({ teamId, actorId, userId }: { teamId: number; actorId: string; userId: string }): Promise<void> {
+export async function removeMember({
+  teamId,
+  actorId,
+  userId,
+}: {
+  teamId: number;
+  actorId: string;
+  userId: string;
+}): Promise<void> {
   await getDb().transaction(async (tx) => {
     const current = await memberRole(tx, teamId, userId);
     if (current === null) throw new AppError("not_found", "That person is not a member of this team.");
@@ -120,7 +151,13 @@ export async function removeMember({ teamId, actorId, userId }: { teamId: number
 
 async function listMembersWith(tx: Executor, teamId: number): Promise<MemberDto[]> {
   const rows = await tx
-    .select({ userId: users.id, name: users.name, email: users.email, role: memberships.role, joinedAt: memberships.createdAt })
+    .select({
+      userId: users.id,
+      name: users.name,
+      email: users.email,
+      role: memberships.role,
+      joinedAt: memberships.createdAt,
+    })
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
     .where(eq(memberships.teamId, teamId))

@@ -64,13 +64,19 @@ export interface DemoCharacter {
 const tarrow: DemoCharacter = {
   slug: "tarrow",
   name: "Tarrow",
-  summary: "Harbour-town striker: quick strings that split into a mid or a low, and two stances that hide the recovery.",
+  summary:
+    "Harbour-town striker: quick strings that split into a mid or a low, and two stances that hide the recovery.",
   data: (ed) => {
     const e11 = ed === "1-1";
     return {
       stances: [
         { key: "drift", name: "Drift", abbreviation: "DRF", notes: "Leaning back-step; highs pass over him on entry." },
-        { key: "ember", name: "Ember Guard", abbreviation: "EMB", notes: "Low crouching guard with a fast mid and a launcher." },
+        {
+          key: "ember",
+          name: "Ember Guard",
+          abbreviation: "EMB",
+          notes: "Low crouching guard with a fast mid and a launcher.",
+        },
       ],
       roots: [
         root("1", first(10, hit("Quick Jab", "high", 7, [1, 8, 8], { range: "close", tags: ["poke"] })), [
@@ -83,9 +89,12 @@ const tarrow: DemoCharacter = {
         ]),
         root("2", first(12, hit("Straight", "high", 10, [-2, 7, 7], { range: "mid" })), [
           follow(",2", { gap: -1, combo: true }, hit("Double Straight", "mid", 12, [-6, 4, 4]), [
-            follow(",3", { gap: 1, combo: true }, hit("Rising Knee", "mid", 20, [-14, LAUNCH, LAUNCH], { tags: ["launcher"] }), [
-              cancel("~f", "ember", [e11 ? -3 : -4, 3, 3], ["high", "mid"]),
-            ]),
+            follow(
+              ",3",
+              { gap: 1, combo: true },
+              hit("Rising Knee", "mid", 20, [-14, LAUNCH, LAUNCH], { tags: ["launcher"] }),
+              [cancel("~f", "ember", [e11 ? -3 : -4, 3, 3], ["high", "mid"])],
+            ),
             follow(",1+2", { gap: 4, combo: false, comboCh: true }, hit("Double Palm", "mid", 18, [-10, KD, SPLAT])),
           ]),
         ]),
@@ -123,12 +132,18 @@ const tarrow: DemoCharacter = {
         root("1+3", first(12, hit("Harbour Toss", "throw", 35, [THROWN(), kd(-2), kd(-2)]))),
         // Stance moves.
         fromStance("drift", ":2", first(11, hit("Drift Lash", "mid", 13, [-2, 7, 7])), [
-          follow(",1", { gap: 1, combo: true }, hit("Drift Lash Jab", "high", 8, [0, 8, 8]), [cancel("~b", "drift", [1, 6, 6], ["high"])]),
+          follow(",1", { gap: 1, combo: true }, hit("Drift Lash Jab", "high", 8, [0, 8, 8]), [
+            cancel("~b", "drift", [1, 6, 6], ["high"]),
+          ]),
         ]),
         fromStance("drift", ":4", first(17, hit("Drift Heel", "low", 14, [-15, 4, KD]))),
         fromStance("drift", ":1+2", first(20, hit("Drift Surge", "unblockable", 40, [KD, KD, KD]))),
         fromStance("ember", ":1", first(9, hit("Ember Jab", "special-mid", 6, [-2, 7, 7]))),
-        fromStance("ember", ":3", first(13, hit("Ember Uppercut", "mid", 22, [-15, LAUNCH, LAUNCH], { tags: ["launcher"] }))),
+        fromStance(
+          "ember",
+          ":3",
+          first(13, hit("Ember Uppercut", "mid", 22, [-15, LAUNCH, LAUNCH], { tags: ["launcher"] })),
+        ),
       ],
     };
   },
@@ -146,7 +161,12 @@ const velka: DemoCharacter = {
     const e11 = ed === "1-1";
     return {
       stances: [
-        { key: "mirror", name: "Mirrorstep", abbreviation: "MIR", notes: "A sideways glide; mids and highs are guarded on entry." },
+        {
+          key: "mirror",
+          name: "Mirrorstep",
+          abbreviation: "MIR",
+          notes: "A sideways glide; mids and highs are guarded on entry.",
+        },
         { key: "hollow", name: "Hollow Lean", abbreviation: "HOL", notes: "Deep lean forward with a fast low." },
       ],
       roots: [
@@ -198,11 +218,17 @@ const velka: DemoCharacter = {
           follow(",2", { gap: 1, combo: true }, hit("Mirror Palm", "mid", 12, [-5, 5, 5])),
         ]),
         fromStance("mirror", ":3", first(16, hit("Mirror Sweep", "low", 13, [-14, 3, KD]))),
-        fromStance("mirror", ":4", first(14, hit("Mirror Spin", "mid", 16, [-8, KD, KD])), [cancel("~b", "mirror", [-3, 6, 6])]),
+        fromStance("mirror", ":4", first(14, hit("Mirror Spin", "mid", 16, [-8, KD, KD])), [
+          cancel("~b", "mirror", [-3, 6, 6]),
+        ]),
         fromStance("hollow", ":3", first(12, hit("Hollow Shin", "low", 9, [-11, 3, 3])), [
           cancel("~f", "mirror", [-1, 6, 6], ["mid"]),
         ]),
-        fromStance("hollow", ":2", first(13, hit("Hollow Rise", "mid", 19, [-13, LAUNCH, LAUNCH], { tags: ["launcher"] }))),
+        fromStance(
+          "hollow",
+          ":2",
+          first(13, hit("Hollow Rise", "mid", 19, [-13, LAUNCH, LAUNCH], { tags: ["launcher"] })),
+        ),
       ],
     };
   },
@@ -221,8 +247,18 @@ const brannoch: DemoCharacter = {
     const e11 = ed === "1-1";
     return {
       stances: [
-        { key: "anvil", name: "Anvil", abbreviation: "ANV", notes: "Planted guard; highs and mids are guarded on entry." },
-        { key: "rampart", name: "Rampart", abbreviation: "RMP", notes: "Shoulder-first advance with a grab and a low." },
+        {
+          key: "anvil",
+          name: "Anvil",
+          abbreviation: "ANV",
+          notes: "Planted guard; highs and mids are guarded on entry.",
+        },
+        {
+          key: "rampart",
+          name: "Rampart",
+          abbreviation: "RMP",
+          notes: "Shoulder-first advance with a grab and a low.",
+        },
       ],
       roots: [
         root("1", first(11, hit("Heavy Jab", "high", 9, [0, 7, 7])), [
@@ -274,8 +310,12 @@ const brannoch: DemoCharacter = {
           follow(",2", { gap: 1, combo: true }, hit("Anvil Cross", "mid", 16, [-7, 5, 5])),
           ...(e11 ? [follow(",4", { gap: 3, combo: false }, hit("Anvil Low Boot", "low", 12, [-13, 3, 3]))] : []),
         ]),
-        fromStance("anvil", ":2", first(15, hit("Anvil Press", "mid", 20, [-12, KD, KD])), [cancel("~f", "rampart", [-2, 5, 5])]),
-        fromStance("rampart", ":3", first(14, hit("Rampart Trip", "low", 12, [-12, 3, 3])), [cancel("~b", "anvil", [-3, 4, 4], ["high", "mid"])]),
+        fromStance("anvil", ":2", first(15, hit("Anvil Press", "mid", 20, [-12, KD, KD])), [
+          cancel("~f", "rampart", [-2, 5, 5]),
+        ]),
+        fromStance("rampart", ":3", first(14, hit("Rampart Trip", "low", 12, [-12, 3, 3])), [
+          cancel("~b", "anvil", [-3, 4, 4], ["high", "mid"]),
+        ]),
         fromStance("rampart", ":1+3", first(13, hit("Rampart Grab", "throw", 36, [THROWN(), kd(-3), kd(-3)]))),
         fromStance("rampart", ":2", first(16, hit("Rampart Ram", "mid", 24, [-8, SPLAT, SPLAT]))),
       ],

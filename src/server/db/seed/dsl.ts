@@ -128,7 +128,8 @@ export const KD: Outcome = { state: "knockdown" };
 export const LAUNCH: Outcome = { state: "launch" };
 export const SPLAT: Outcome = { state: "wall-splat" };
 export const CRUMPLE: Outcome = { state: "crumple" };
-export const THROWN = (frames?: number): Outcome => (frames === undefined ? { state: "throw" } : { state: "throw", frames });
+export const THROWN = (frames?: number): Outcome =>
+  frames === undefined ? { state: "throw" } : { state: "throw", frames };
 export const kd = (frames: number): Outcome => ({ state: "knockdown", frames });
 
 export interface MoveRow {
@@ -170,7 +171,11 @@ export function flatten(data: CharacterData): { moves: MoveRow[]; edges: EdgeRow
           from: { move: key },
           to: { move: childKey },
           input: step.input,
-          follow: { gapOnBlock: step.gapOnBlock, comboOnHit: step.comboOnHit, comboOnCounterHit: step.comboOnCounterHit },
+          follow: {
+            gapOnBlock: step.gapOnBlock,
+            comboOnHit: step.comboOnHit,
+            comboOnCounterHit: step.comboOnCounterHit,
+          },
         });
         walk(childKey, step.next, stance);
       } else {
@@ -181,7 +186,12 @@ export function flatten(data: CharacterData): { moves: MoveRow[]; edges: EdgeRow
           from: { move: key },
           to: { stance: step.stance },
           input: step.input,
-          cancel: { onBlock: step.onBlock, onHit: step.onHit, onCounterHit: step.onCounterHit, autoGuard: step.autoGuard },
+          cancel: {
+            onBlock: step.onBlock,
+            onHit: step.onHit,
+            onCounterHit: step.onCounterHit,
+            autoGuard: step.autoGuard,
+          },
         });
       }
     }
@@ -196,7 +206,13 @@ export function flatten(data: CharacterData): { moves: MoveRow[]; edges: EdgeRow
       if (abbr === undefined) throw new Error(`stance move ${r.input}: unknown stance ${r.stance}`);
       const key = abbr + r.input;
       moves.push({ key, input: key, hit: r.hit, stance: r.stance, sort: moves.length });
-      edges.push({ key: `${r.stance}>${key}`, kind: "enter", from: { stance: r.stance }, to: { move: key }, input: r.input });
+      edges.push({
+        key: `${r.stance}>${key}`,
+        kind: "enter",
+        from: { stance: r.stance },
+        to: { move: key },
+        input: r.input,
+      });
       walk(key, r.next, r.stance);
     }
   }

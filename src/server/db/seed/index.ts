@@ -54,7 +54,14 @@ export async function seedDemo(db: Database): Promise<SeedReport> {
       .onDuplicateKeyUpdate({ set: updateAllBut(editions, ["id", "gameId", "slug", "createdAt"]) });
     const editionRows = await tx.select().from(editions).where(eq(editions.gameId, game.id));
 
-    const report: SeedReport = { game: 1, editions: editionRows.length, characters: characterRows.length, stances: 0, moves: 0, edges: 0 };
+    const report: SeedReport = {
+      game: 1,
+      editions: editionRows.length,
+      characters: characterRows.length,
+      stances: 0,
+      moves: 0,
+      edges: 0,
+    };
     for (const edition of editionRows) {
       const spec = EDITIONS.find((e) => e.slug === edition.slug);
       if (!spec) continue;
@@ -71,18 +78,21 @@ export async function seedDemo(db: Database): Promise<SeedReport> {
   });
 }
 
-async function writeCharacterEdition(
-  tx: Tx,
-  editionId: number,
-  characterId: number,
-  data: CharacterData,
-) {
+async function writeCharacterEdition(tx: Tx, editionId: number, characterId: number, data: CharacterData) {
   const { moves: moveRows, edges: edgeRows } = flatten(data);
   const scope = { editionId, characterId };
 
   await tx
     .insert(stances)
-    .values(data.stances.map((s) => ({ ...scope, key: s.key, name: s.name, abbreviation: s.abbreviation, notes: s.notes ?? null })))
+    .values(
+      data.stances.map((s) => ({
+        ...scope,
+        key: s.key,
+        name: s.name,
+        abbreviation: s.abbreviation,
+        notes: s.notes ?? null,
+      })),
+    )
     .onDuplicateKeyUpdate({ set: updateAllBut(stances, ["id", "editionId", "characterId", "key"]) });
   const stanceRows = await tx
     .select({ id: stances.id, key: stances.key })
@@ -148,9 +158,33 @@ async function writeCharacterEdition(
   // Rows the scenario no longer has (edges first: they point at moves and stances).
   const inScope = (table: typeof edges | typeof moves | typeof stances) =>
     and(eq(table.editionId, editionId), eq(table.characterId, characterId));
-  await tx.delete(edges).where(and(inScope(edges), notInArray(edges.key, edgeRows.map((e) => e.key))));
-  await tx.delete(moves).where(and(inScope(moves), notInArray(moves.key, moveRows.map((m) => m.key))));
-  await tx.delete(stances).where(and(inScope(stances), notInArray(stances.key, data.stances.map((s) => s.key))));
+  await tx.delete(edges).where(
+    and(
+      inScope(edges),
+      notInArray(
+        edges.key,
+        edgeRows.map((e) => e.key),
+      ),
+    ),
+  );
+  await tx.delete(moves).where(
+    and(
+      inScope(moves),
+      notInArray(
+        moves.key,
+        moveRows.map((m) => m.key),
+      ),
+    ),
+  );
+  await tx.delete(stances).where(
+    and(
+      inScope(stances),
+      notInArray(
+        stances.key,
+        data.stances.map((s) => s.key),
+      ),
+    ),
+  );
 
   return { stances: data.stances.length, moves: moveRows.length, edges: edgeRows.length };
 }

@@ -28,7 +28,7 @@ export default async function GamePage({ params }: Props) {
         </p>
       </header>
       <section aria-labelledby="characters" className="space-y-3">
-        <h2 id="characters" className="text-sm font-semibold uppercase tracking-wider text-ink-400">
+        <h2 id="characters" className="text-sm font-semibold tracking-wider text-ink-400 uppercase">
           Characters
         </h2>
         {characters.length === 0 ? (
@@ -50,7 +50,7 @@ export default async function GamePage({ params }: Props) {
         )}
       </section>
       <section aria-labelledby="editions" className="space-y-3">
-        <h2 id="editions" className="text-sm font-semibold uppercase tracking-wider text-ink-400">
+        <h2 id="editions" className="text-sm font-semibold tracking-wider text-ink-400 uppercase">
           Editions
         </h2>
         <ul className="space-y-1 text-sm">

@@ -34,14 +34,15 @@ export default async function InvitePage({ params }: Props) {
     <div className="max-w-xl space-y-4" data-testid="invite">
       <h1 className="text-xl font-semibold">Join {invite.teamName}</h1>
       <p className="text-ink-200">
-        {invite.inviterName ?? "A coach"} invited <span className="font-mono">{invite.email}</span> to join <strong>{invite.teamName}</strong> as{" "}
-        <RoleTag role={invite.role} />.
+        {invite.inviterName ?? "A coach"} invited <span className="font-mono">{invite.email}</span> to join{" "}
+        <strong>{invite.teamName}</strong> as <RoleTag role={invite.role} />.
       </p>
       {mine ? (
         <AcceptInviteButton token={decodeURIComponent(token)} />
       ) : user ? (
         <p role="alert" className="rounded border border-block-punishable/50 p-3 text-sm">
-          You are signed in as {user.email}, but this invite is for {invite.email}. Sign out, then open this link again and sign in with that address.
+          You are signed in as {user.email}, but this invite is for {invite.email}. Sign out, then open this link again
+          and sign in with that address.
         </p>
       ) : (
         <div className="flex flex-wrap gap-3">
@@ -51,7 +52,10 @@ export default async function InvitePage({ params }: Props) {
           >
             Create an account to accept
           </Link>
-          <Link href={`/sign-in?callbackUrl=${encodeURIComponent(here)}`} className="rounded border border-ink-600 px-3 py-1.5 text-sm text-ink-100 no-underline">
+          <Link
+            href={`/sign-in?callbackUrl=${encodeURIComponent(here)}`}
+            className="rounded border border-ink-600 px-3 py-1.5 text-sm text-ink-100 no-underline"
+          >
             I have an account: sign in
           </Link>
         </div>

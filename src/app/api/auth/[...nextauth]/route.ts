@@ -23,9 +23,13 @@ function refuse(error: AppError): Response {
  * account exists (next-auth then sends a link either way).
  */
 async function limitLinkRequest(request: Request): Promise<Response | null> {
-  const form = await request.clone().formData().catch(() => null);
+  const form = await request
+    .clone()
+    .formData()
+    .catch(() => null);
   const email = emailSchema.safeParse(form?.get("email"));
-  if (!email.success) return refuse(new AppError("bad_request", email.error.issues[0]?.message ?? "Enter a valid e-mail address."));
+  if (!email.success)
+    return refuse(new AppError("bad_request", email.error.issues[0]?.message ?? "Enter a valid e-mail address."));
   try {
     await consume([
       ["mailEmail", email.data],

@@ -5,7 +5,9 @@ import { handle, readJson } from "@/server/http";
 
 export const dynamic = "force-dynamic";
 
-const acceptSchema = z.object({ token: z.string().min(16, "That is not an invite token.").max(128, "That is not an invite token.") }).strict();
+const acceptSchema = z
+  .object({ token: z.string().min(16, "That is not an invite token.").max(128, "That is not an invite token.") })
+  .strict();
 
 /** The signed-in user accepts an invite sent to their address and joins the team. */
 export const POST = handle(async (request: Request) => {

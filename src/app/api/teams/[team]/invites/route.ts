@@ -29,7 +29,14 @@ export const POST = handle(async (request: Request, ctx: RouteContext<"/api/team
     email: body.email,
     role: body.role,
     deliver: ({ token, email }) =>
-      sendInviteMail({ to: email, teamName: team.name, inviterName: user.name ?? user.email, role: body.role, url: inviteLink(token), expiresInDays: INVITE_DAYS }),
+      sendInviteMail({
+        to: email,
+        teamName: team.name,
+        inviterName: user.name ?? user.email,
+        role: body.role,
+        url: inviteLink(token),
+        expiresInDays: INVITE_DAYS,
+      }),
   });
   return Response.json({ invite }, { status: 201 });
 });

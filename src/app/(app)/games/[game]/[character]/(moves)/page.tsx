@@ -28,10 +28,12 @@ export default async function CharacterPage({ params, searchParams }: Props) {
 
   return (
     <div className="space-y-6">
-      <Breadcrumb trail={[
+      <Breadcrumb
+        trail={[
           { href: "/games", label: "Games" },
           { href: `/games/${game.slug}`, label: game.name },
-        ]} />
+        ]}
+      />
       <header className="flex flex-wrap items-end justify-between gap-4">
         <div className="space-y-1">
           <h1 className="text-2xl font-semibold">{character.name}</h1>
@@ -69,7 +71,9 @@ export default async function CharacterPage({ params, searchParams }: Props) {
         <MoveTable
           list={list}
           rules={{ fastest: game.fastest, launchAt: game.launchAt }}
-          exploreHref={(key) => `/games/${game.slug}/${character.slug}/explore/${encodeURIComponent(key)}?edition=${edition.slug}`}
+          exploreHref={(key) =>
+            `/games/${game.slug}/${character.slug}/explore/${encodeURIComponent(key)}?edition=${edition.slug}`
+          }
         />
       )}
     </div>

@@ -7,7 +7,9 @@ import { teamParamsSchema } from "../../../schema";
 
 export const dynamic = "force-dynamic";
 
-const paramsSchema = teamParamsSchema.extend({ invite: z.coerce.number().int().positive("An invite is named by its number.") });
+const paramsSchema = teamParamsSchema.extend({
+  invite: z.coerce.number().int().positive("An invite is named by its number."),
+});
 
 /** Withdraws an invite that has not been accepted. */
 export const DELETE = handle(async (_request: Request, ctx: RouteContext<"/api/teams/[team]/invites/[invite]">) => {

@@ -27,7 +27,8 @@ export const DELETE = handle(async (_request: Request, ctx: RouteContext<"/api/t
   const { team: slug, user: userId } = parseWith(paramsSchema, await ctx.params, "path");
   const user = await requireUser();
   const { team, role: mine } = await loadTeamFor({ slug, user, needed: "viewer" });
-  if (userId !== user.id && !atLeast(mine, "owner")) throw new AppError("forbidden", "Only an owner can remove other members.");
+  if (userId !== user.id && !atLeast(mine, "owner"))
+    throw new AppError("forbidden", "Only an owner can remove other members.");
   await removeMember({ teamId: team.id, actorId: user.id, userId });
   return new Response(null, { status: 204 });
 });

@@ -5,7 +5,10 @@ import { loadRootMove } from "../../../../data";
  * streams, so an unknown move answers 404. An Edition without it is the
  * page's to explain: layouts do not see the search params.
  */
-export default async function ExploreLayout({ children, params }: LayoutProps<"/games/[game]/[character]/explore/[move]">) {
+export default async function ExploreLayout({
+  children,
+  params,
+}: LayoutProps<"/games/[game]/[character]/explore/[move]">) {
   const { game, character, move } = await params;
   await loadRootMove(game, character, decodeURIComponent(move));
   return children;

@@ -34,18 +34,26 @@ export default async function ExplorePage({ params, searchParams }: Props) {
   const rootMove = graph.nodes.find((n) => n.id === root);
   // Signed in: a Share button, offering the teams where the user may make permalinks (player or higher).
   const user = await auth();
-  const shareTeams = user ? (await listMyTeams({ userId: user.id })).filter((t) => atLeast(t.role, "player")).map((t) => ({ id: t.id, name: t.name })) : null;
+  const shareTeams = user
+    ? (await listMyTeams({ userId: user.id }))
+        .filter((t) => atLeast(t.role, "player"))
+        .map((t) => ({ id: t.id, name: t.name }))
+    : null;
 
   return (
     <div className="space-y-4">
-      <Breadcrumb trail={[
+      <Breadcrumb
+        trail={[
           { href: "/games", label: "Games" },
           { href: `/games/${game.slug}`, label: game.name },
           { href: `/games/${game.slug}/${character.slug}?edition=${edition.slug}`, label: character.name },
-        ]} />
+        ]}
+      />
       <h1 className="text-xl font-semibold">
         Explorer · <span className="font-mono">{root}</span>
-        {rootMove?.kind === "move" && rootMove.name && <span className="ml-2 text-base font-normal text-ink-300">{rootMove.name}</span>}
+        {rootMove?.kind === "move" && rootMove.name && (
+          <span className="ml-2 text-base font-normal text-ink-300">{rootMove.name}</span>
+        )}
       </h1>
       <SWRConfig value={{ fallback: { [graphUrl(character.id, edition.slug)]: fallback } }}>
         <ExplorerStoreProvider
