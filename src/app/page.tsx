@@ -1,6 +1,7 @@
 import Link from "next/link";
 
-const FEATURES = [
+/** What the landing page promises; `coming` marks what no screen offers yet. */
+const FEATURES: { title: string; body: string; coming?: true }[] = [
   {
     title: "Every string as a branching graph",
     body: "Each hit, follow-up and stance cancel of a character drawn as one graph in the Explorer. Click a node and the path to it is chosen.",
@@ -16,6 +17,12 @@ const FEATURES = [
   {
     title: "Mix-up boards for coaches",
     body: "Build the situations after a string, let the solver find the mix that cannot be exploited, and hand it to your players.",
+    coming: true,
+  },
+  {
+    title: "Your own game's data",
+    body: "Enter or import a character's frame data, publish each patch as an Edition, and read what it changed for every string.",
+    coming: true,
   },
   {
     title: "Permalinks pinned to an Edition",
@@ -55,7 +62,14 @@ export default function LandingPage() {
         <ul className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
           {FEATURES.map((f) => (
             <li key={f.title} className="rounded-lg border border-ink-800 bg-ink-900 p-4">
-              <h3 className="font-medium text-ink-100">{f.title}</h3>
+              <h3 className="font-medium text-ink-100">
+                {f.title}
+                {f.coming && (
+                  <span className="ml-2 rounded border border-ink-700 px-1.5 py-0.5 text-[11px] font-normal text-ink-400">
+                    coming
+                  </span>
+                )}
+              </h3>
               <p className="mt-1 text-sm text-ink-300">{f.body}</p>
             </li>
           ))}

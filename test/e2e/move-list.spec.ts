@@ -27,6 +27,9 @@ test("a visitor goes from the landing page to a character's move list read from 
 
   await page.goto("/");
   await expect(page.getByRole("heading", { level: 1 })).toContainText("every string");
+  // What no screen offers yet is marked as coming, not promised.
+  await expect(page.getByRole("listitem").filter({ hasText: "Mix-up boards" })).toContainText("coming");
+  await expect(page.getByRole("listitem").filter({ hasText: "Explorer" })).not.toContainText("coming");
   await page.getByRole("link", { name: "Browse games" }).click();
 
   await expect(page).toHaveURL(/\/games$/);
