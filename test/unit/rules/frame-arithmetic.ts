@@ -11,7 +11,8 @@ import ts from "typescript";
  * variable or parameter whose initializer or type mentions a frame figure (`const a =
  * path.onBlock`, `o: Outcome`), followed through the file until nothing new is found.
  * A call's result is the callee's business (`formatFrames(a) + "f"` is not flagged), except
- * `Math.*`, which is arithmetic itself.
+ * `Math.*` (arithmetic itself), `Number()` and kin of a frame figure, and the engine's helpers
+ * that return one (`framesSaved(c, m) + 1` computes with it).
  */
 
 /**
@@ -60,6 +61,17 @@ function isMathCall(e: ts.Node): e is ts.CallExpression {
   );
 }
 
+/** Calls that hand a number on: of their arguments (`Number(onBlock)`), or a frame figure the engine computed. */
+const CONVERTS = new Set(["Number", "parseInt", "parseFloat"]);
+const ENGINE_FIGURE = new Set(["framesSaved", "gapAtAdvantage", "punishWindow", "outcomeFrames", "effectiveLaunchAt"]);
+
+function callsForFrames(e: ts.CallExpression, held: ReadonlySet<string>): boolean {
+  const callee = ts.isIdentifier(e.expression) ? e.expression.text : null;
+  if (callee !== null && ENGINE_FIGURE.has(callee)) return true;
+  const converts = isMathCall(e) || (callee !== null && CONVERTS.has(callee));
+  return converts && e.arguments.some((a) => mentionsFrames(a, held));
+}
+
 /**
  * Whether an operand reads a frame figure, given the local names known to hold one. `deep`
  * also looks into calls (for what a variable holds: `const a = outcomeFrames(advantage)`).
@@ -69,7 +81,7 @@ function mentionsFrames(e: ts.Node, held: ReadonlySet<string>, deep = false): bo
   if (ts.isIdentifier(e)) return FRAME_NAME.test(e.text) || held.has(e.text);
   if (ts.isPropertyAccessExpression(e)) return FRAME_NAME.test(e.name.text);
   if (ts.isElementAccessExpression(e)) return mentionsFrames(e.argumentExpression, held);
-  if (ts.isCallExpression(e) && !deep) return isMathCall(e) && e.arguments.some((a) => mentionsFrames(a, held));
+  if (ts.isCallExpression(e) && !deep) return callsForFrames(e, held);
   // Text is text: a template or string literal is not a number, whatever it quotes.
   if (ts.isTemplateExpression(e) || ts.isStringLiteralLike(e)) return false;
   if (ts.isFunctionLike(e)) return false;

@@ -41,6 +41,10 @@ describe("the detector", () => {
     expect(flags("function tone(o: Outcome) { return o > 0 ? 'plus' : 'minus'; }")).toEqual(["o > 0"]);
     expect(flags("const a = outcomeFrames(advantage); const next = a + 1;")).toEqual(["a + 1"]);
     expect(flags("let total = 0; for (const g of path.gaps) total += g.frames;")).toEqual(["total += g.frames"]);
+    expect(flags("const limit = `startup ${-Number(onBlock)}f or less`;")).toEqual(["-Number(onBlock)"]);
+    expect(flags("const next = framesSaved(c.onBlock, m.onBlock) + 1;")).toEqual([
+      "framesSaved(c.onBlock, m.onBlock) + 1",
+    ]);
     expect(flags("const launch = Math.max(game.launchAt, options.fastest);")).toEqual([
       "Math.max(game.launchAt, options.fastest)",
     ]);
@@ -56,7 +60,8 @@ describe("the detector", () => {
         const last = path.nodes.length - 1;
         const any = path.gaps.length > 0;
         const cast = (x as GapSegment).width * 2;
-        const sorted = rows.sort((x, y) => x.damage - y.damage);`),
+        const sorted = rows.sort((x, y) => x.damage - y.damage);
+        const id = Number(e.target.value) + 0;`),
     ).toEqual([]);
   });
 });
