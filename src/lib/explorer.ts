@@ -1,5 +1,13 @@
 import { z } from "zod";
-import { explorePathsLimited, type ExploreOptions, type GraphEdge, type MoveGraph, type PathResult } from "./engine";
+import {
+  explorePathsLimited,
+  type ExploreOptions,
+  type GraphEdge,
+  type GraphNode,
+  type MoveGraph,
+  type Outcome,
+  type PathResult,
+} from "./engine";
 
 /** What GET /api/characters/[id]/graph answers, and the Explorer reads. */
 export interface GraphResponse {
@@ -79,6 +87,18 @@ export function computePaths(graph: MoveGraph, rootId: string, options: ExploreO
   // Stable: among paths of one length, the walk's own order (the graph's edge order).
   for (const list of byEnd.values()) list.sort((a, b) => a.nodes.length - b.nodes.length);
   return { paths, truncated, byEnd, byKey };
+}
+
+/**
+ * The ending a path's final cancel replaces: the on-block outcome of the hit it cancels, read
+ * from the graph (what stopping at that hit leaves). Null when the path does not end in a cancel.
+ */
+export function hitOnBlockBeforeCancel(
+  path: Pick<PathResult, "nodes" | "endsIn">,
+  nodes: ReadonlyMap<string, GraphNode>,
+): Outcome | null {
+  const hit = path.endsIn === "stance" ? nodes.get(path.nodes.at(-2) ?? "") : undefined;
+  return hit?.kind === "move" ? hit.onBlock : null;
 }
 
 /** A path's identity in the URL: its edge ids (a node id alone is ambiguous in stance cycles). */

@@ -1,5 +1,8 @@
 import type { BlockClass, Outcome, PathView, StateName } from "./engine";
 
+// The order of outcomes is a frame rule: the engine's, offered here beside the filters that use it.
+export { compareOutcome } from "./engine";
+
 /** What the on-hit filter can ask for: any number, or one state by name. */
 export type OnHitKind = "numeric" | StateName;
 
@@ -51,24 +54,6 @@ export function filterPaths<P extends PathView>(paths: readonly P[], f: PathFilt
       (!f.stanceOnly || p.endsIn === "stance") &&
       (!f.naturalOnly || p.naturalCombo),
   );
-}
-
-/**
- * Ascending frame advantage with every state after every number: a state has no place on the
- * number line, so it is kept out of the way. States among themselves go by name, then by the
- * number they carry (a state without one first).
- */
-export function compareOutcome(a: Outcome, b: Outcome): number {
-  const an = typeof a === "number";
-  const bn = typeof b === "number";
-  if (an && bn) return a - b;
-  if (an) return -1;
-  if (bn) return 1;
-  if (a.state !== b.state) return a.state < b.state ? -1 : 1;
-  if (a.frames === b.frames) return 0;
-  if (a.frames === undefined) return -1;
-  if (b.frames === undefined) return 1;
-  return a.frames - b.frames;
 }
 
 /** An outcome as a sort key: its number, or `undefined` for a state so a table can keep states last in either direction. */

@@ -1,4 +1,5 @@
 import {
+  byDamageThenSpeed,
   compileGraph,
   followUp,
   outcomeFrames,
@@ -66,7 +67,5 @@ export function followUpsAt(
     const kind = followUp(a, o.startup, { fastest });
     if (kind !== "interruptible") out.push({ ...o, kind });
   }
-  return out.sort((x, y) =>
-    x.kind === y.kind ? y.damage - x.damage || x.startup - y.startup : x.kind === "guaranteed" ? -1 : 1,
-  );
+  return out.sort((x, y) => (x.kind === y.kind ? byDamageThenSpeed(x, y) : x.kind === "guaranteed" ? -1 : 1));
 }

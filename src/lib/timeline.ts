@@ -1,15 +1,23 @@
-import type {
-  BlockClass,
-  CancelEdge,
-  GraphEdge,
-  GraphNode,
-  Level,
-  MoveGraph,
-  MoveNode,
-  Outcome,
-  PathResult,
+import {
+  BLOCK_CLASS_WORD,
+  explainFramesSaved,
+  explainGap,
+  formatFrames,
+  formatOutcome,
+  framesSavedLabel,
+  gapAtAdvantage,
+  gapAtAdvantageSum,
+  gapJails,
+  type BlockClass,
+  type CancelEdge,
+  type GraphEdge,
+  type GraphNode,
+  type Level,
+  type MoveGraph,
+  type MoveNode,
+  type Outcome,
+  type PathResult,
 } from "@/lib/engine";
-import { BLOCK_CLASS_WORD, formatFrames, formatOutcome } from "@/lib/format";
 
 /**
  * The frame timeline of one path as positioned segments, in SVG user units that are
@@ -111,8 +119,6 @@ export interface EndSegment {
 
 export type TimelineSegment = HitSegment | GapSegment | CancelSegment | StartSegment | EndSegment;
 
-export const BLOCK_WORD = BLOCK_CLASS_WORD;
-
 const hitOrdinal = (i: number) => `hit ${i + 1}`;
 
 /** How a step into a hit gets its gap on block, per DESIGN.md "Path semantics". */
@@ -122,7 +128,7 @@ function stepGap(
   cancelBefore: CancelEdge | null,
 ): { frames: number | null; why: string; via: "follow" | "enter" } {
   if (edge.kind === "follow") {
-    return { frames: edge.gapOnBlock, via: "follow", why: `the follow-up's gap is ${edge.gapOnBlock} frames` };
+    return { frames: edge.gapOnBlock, via: "follow", why: "the string's data gives it" };
   }
   if (cancelBefore === null) {
     return {
@@ -143,11 +149,10 @@ function stepGap(
     return { frames: null, via: "enter", why: `the stance move ${edge.input} has no startup in the data` };
   }
   const s = target.startup;
-  const gap = s - a - 1;
   return {
-    frames: gap,
+    frames: gapAtAdvantage(a, s),
     via: "enter",
-    why: `the stance move ${edge.input} (startup ${s}) starts from the cancel's ${formatFrames(a)} on block: ${s} − (${formatFrames(a)}) − 1 = ${gap} frames`,
+    why: `the stance move ${edge.input} (startup ${s}) starts from the cancel's ${formatFrames(a)} on block: ${gapAtAdvantageSum(a, s)}`,
   };
 }
 
@@ -160,18 +165,10 @@ function gapWords(
   if (frames === null) {
     return { status: "unknown", label: "? no gap known", explain: `No gap on block known ${where}: ${why}.` };
   }
-  if (frames <= 0) {
-    return {
-      status: "jail",
-      label: "jail",
-      explain: `Gap on block ${where}: ${why}, 0 or less, so the string jails here: a blocking defender cannot act before the next hit.`,
-    };
-  }
-  return {
-    status: "open",
-    label: `${frames}f gap`,
-    explain: `Gap on block ${where}: ${why}, so a defender move of startup ${frames} or less hits first.`,
-  };
+  const explain = `Gap on block ${where}: ${why}. ${explainGap(frames)}.`;
+  return gapJails(frames)
+    ? { status: "jail", label: "jail", explain }
+    : { status: "open", label: `${frames}f gap`, explain };
 }
 
 function endBoxWidth(end: Pick<EndSegment, "onBlock" | "blockWord">): number {
@@ -239,15 +236,12 @@ export function timelineSegments(path: PathResult, graph: MoveGraph): TimelineSe
       const after = hits - 1;
       const guard =
         edge.autoGuard.length > 0 ? ` During the transition it auto-guards ${edge.autoGuard.join(", ")}.` : "";
-      const explain =
-        final && framesSaved !== null
-          ? `Cancel ${edge.input} into ${node.name} after ${hitOrdinal(after)}: ${formatOutcome(edge.onBlock)} on block instead of ${formatOutcome(lastMove.onBlock)} when stopping at the hit: ${formatOutcome(edge.onBlock)} − (${formatOutcome(lastMove.onBlock)}) = ${framesSaved} frames ${framesSaved >= 0 ? "saved" : "lost"}.${guard}`
-          : final
-            ? `Cancel ${edge.input} into ${node.name} after ${hitOrdinal(after)}: ${formatOutcome(edge.onBlock)} on block instead of ${formatOutcome(lastMove.onBlock)}; no frames saved can be counted, as one of them is a state.${guard}`
-            : typeof edge.onBlock === "number"
-              ? `Cancel ${edge.input} into ${node.name} after ${hitOrdinal(after)}: it leaves ${formatOutcome(edge.onBlock)} on block, the advantage the next stance move starts from.${guard}`
-              : `Cancel ${edge.input} into ${node.name} after ${hitOrdinal(after)}: it leaves ${formatOutcome(edge.onBlock)} on block, a state, so no gap can be counted before the next stance move.${guard}`;
-      const saved = framesSaved === null ? "" : savedLabel(framesSaved);
+      const explain = final
+        ? `Cancel ${edge.input} into ${node.name} after ${hitOrdinal(after)}. ${explainFramesSaved(edge.onBlock, lastMove.onBlock)}${guard}`
+        : typeof edge.onBlock === "number"
+          ? `Cancel ${edge.input} into ${node.name} after ${hitOrdinal(after)}: it leaves ${formatOutcome(edge.onBlock)} on block, the advantage the next stance move starts from.${guard}`
+          : `Cancel ${edge.input} into ${node.name} after ${hitOrdinal(after)}: it leaves ${formatOutcome(edge.onBlock)} on block, a state, so no gap can be counted before the next stance move.${guard}`;
+      const saved = framesSaved === null ? "" : framesSavedLabel(framesSaved);
       place<CancelSegment>({
         kind: "cancel",
         after,
@@ -327,7 +321,7 @@ export function timelineSegments(path: PathResult, graph: MoveGraph): TimelineSe
     finalCancel === null
       ? `${hitOrdinal(lastHit)}, the hit the path stops at`
       : `the cancel ${finalCancel.input} into ${finalCancel.stance} after ${hitOrdinal(lastHit)} (a cancel's own outcome replaces the hit's)`;
-  const blockWord = BLOCK_WORD[path.blockClass];
+  const blockWord = BLOCK_CLASS_WORD[path.blockClass];
   const end = { onBlock: path.onBlock, onHit: path.onHit, onCounterHit: path.onCounterHit, blockWord };
   place<EndSegment>({
     kind: "end",
@@ -341,10 +335,6 @@ export function timelineSegments(path: PathResult, graph: MoveGraph): TimelineSe
     width: endWidth(end) + 12,
   });
   return out;
-}
-
-export function savedLabel(framesSaved: number): string {
-  return framesSaved >= 0 ? `saves ${framesSaved}f` : `costs ${-framesSaved}f`;
 }
 
 /** The width the segments need, padding included: the SVG's viewBox width. */

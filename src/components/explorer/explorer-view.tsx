@@ -6,7 +6,7 @@ import useSWR from "swr";
 import { GraphCanvas } from "@/components/graph/graph-canvas";
 import { useExplorerStore } from "@/components/providers/explorer-store-provider";
 import type { AppError } from "@/lib/errors";
-import type { PathResult } from "@/lib/engine";
+import { DEFAULT_LAUNCH_AT, effectiveLaunchAt, type PathResult } from "@/lib/engine";
 import { computePaths, graphUrl, pathKey, reachableSubgraph, type GraphResponse } from "@/lib/explorer";
 import { fetcher } from "@/lib/fetcher";
 import { explorerHref, explorerStateToView } from "@/lib/permalink";
@@ -44,7 +44,7 @@ export function ExplorerView({ characterId, root, pinned = false, share }: Explo
   const select = useExplorerStore((s) => s.select);
   const opponent = useExplorerStore((s) => s.opponent);
 
-  const launchAt = Math.max(data?.game.launchAt ?? 15, options.fastest);
+  const launchAt = effectiveLaunchAt(data?.game.launchAt ?? DEFAULT_LAUNCH_AT, options.fastest);
   // One object per rule change: graph nodes and table columns are memoised on it.
   const rules = useMemo(() => ({ fastest: options.fastest, launchAt }), [options.fastest, launchAt]);
   const sub = useMemo(() => (data ? reachableSubgraph(data.graph, root) : null), [data, root]);
@@ -201,8 +201,8 @@ export function ExplorerView({ characterId, root, pinned = false, share }: Explo
           )}
         </div>
       </div>
-      <PathsTable paths={computed.paths} selectedKey={laterKey} onSelect={select} rules={rules} />
-      <Legend />
+      <PathsTable paths={computed.paths} graph={sub} selectedKey={laterKey} onSelect={select} rules={rules} />
+      <Legend rules={rules} />
     </div>
   );
 }

@@ -1,13 +1,22 @@
 "use client";
 
 import { memo, useState, type JSX, type ReactNode } from "react";
-import { classifyBlock, type BlockClass, type Level, type MoveGraph, type PathResult } from "@/lib/engine";
-import { formatFrames, formatOutcome } from "@/lib/format";
 import {
-  BLOCK_WORD,
+  BLOCK_CLASS_WORD,
+  classifyBlock,
+  explainAdvantage,
+  explainBlockClass,
+  formatOutcome,
+  framesSavedLabel,
+  type BlockClass,
+  type BlockRules,
+  type Level,
+  type MoveGraph,
+  type PathResult,
+} from "@/lib/engine";
+import {
   TIMELINE_FONT,
   TIMELINE_HEIGHT,
-  savedLabel,
   timelineSegments,
   timelineWidth,
   type CancelSegment,
@@ -16,11 +25,6 @@ import {
   type HitSegment,
   type StartSegment,
 } from "@/lib/timeline";
-
-interface Rules {
-  fastest: number;
-  launchAt: number;
-}
 
 // Whole class names, so Tailwind finds them when it scans the source.
 const LEVEL_STROKE: Record<Level, string> = {
@@ -67,40 +71,22 @@ const BELOW_Y = 80;
 const ON_HIT_Y = 84;
 const ON_CH_Y = 102;
 
-function classSentence(cls: BlockClass, onBlock: PathResult["onBlock"], rules: Rules): string {
-  const a = typeof onBlock === "number" ? onBlock : Number.NaN;
-  switch (cls) {
-    case "plus":
-      return "Plus (+1 or more): you act first.";
-    case "even":
-      return "Even (0): both sides act at once.";
-    case "safe":
-      return `Safe (above -${rules.fastest}): the opponent's fastest attack (${rules.fastest}f) does not reach you in time.`;
-    case "punishable":
-      return `Punishable (-${rules.fastest} or less): any defender move of startup ${-a} or less lands before you recover.`;
-    case "launch-punishable":
-      return `Launch punish (-${rules.launchAt} or less): a launching punish lands; any defender move of startup ${-a} or less does.`;
-    case "state":
-      return "A state, not a frame count, so it has no block class.";
-  }
-}
-
-function explainEnd(end: EndSegment, cancel: CancelSegment | null, rules: Rules): string {
+function explainEnd(end: EndSegment, cancel: CancelSegment | null, rules: BlockRules): string {
   const parts = [
     `On block: ${formatOutcome(end.onBlock)}, from ${end.source}.`,
-    classSentence(end.blockClass, end.onBlock, rules),
+    explainBlockClass(end.blockClass, end.onBlock, rules),
   ];
   if (cancel !== null) {
     const raw = cancel.hitOnBlock;
     parts.push(
-      `Stopping at the hit instead of cancelling: ${formatOutcome(raw)} (${BLOCK_WORD[classifyBlock(raw, rules)]}).`,
+      `Stopping at the hit instead of cancelling: ${formatOutcome(raw)} (${BLOCK_CLASS_WORD[classifyBlock(raw, rules)]}).`,
     );
   }
   // The engine classified with the options the paths were explored with; say so if these differ.
   const now = classifyBlock(end.onBlock, rules);
   if (now !== end.blockClass) {
     parts.push(
-      `With fastest ${rules.fastest}f and launch at ${rules.launchAt}f it would be ${BLOCK_WORD[now]}: the paths were computed with other rules.`,
+      `With fastest ${rules.fastest}f and launch at ${rules.launchAt}f it would be ${BLOCK_CLASS_WORD[now]}: the paths were computed with other rules.`,
     );
   }
   return parts.join(" ");
@@ -108,14 +94,8 @@ function explainEnd(end: EndSegment, cancel: CancelSegment | null, rules: Rules)
 
 function explainOutcome(what: "hit" | "counter hit", o: PathResult["onHit"], end: EndSegment): string {
   const lands = what === "hit" ? "lands" : "lands as a counter hit";
-  const value =
-    o === 0
-      ? "both sides act at once"
-      : typeof o === "number"
-        ? `the attacker acts ${Math.abs(o)} frames ${o > 0 ? "before" : "after"} the defender`
-        : `the defender is left in ${o.state}${o.frames === undefined ? "" : ` at ${formatFrames(o.frames)} frames`}`;
   const cancelled = end.cancelInput === null ? "" : ` and is cancelled with ${end.cancelInput}`;
-  return `On ${what}: ${formatOutcome(o)}. If hit ${end.lastHit + 1} ${lands}${cancelled}, ${value}.`;
+  return `On ${what}: ${formatOutcome(o)}. If hit ${end.lastHit + 1} ${lands}${cancelled}, ${explainAdvantage(o)}.`;
 }
 
 /** A labelled figure: focusable, with its explanation as tooltip and accessible description. */
@@ -294,7 +274,7 @@ function Gap({ seg, onActive }: { seg: GapSegment; onActive: (id: string, on: bo
 
 function Cancel({ seg, onActive }: { seg: CancelSegment; onActive: (id: string, on: boolean) => void }) {
   const cx = seg.x + seg.width / 2;
-  const saved = seg.framesSaved === null ? null : savedLabel(seg.framesSaved);
+  const saved = seg.framesSaved === null ? null : framesSavedLabel(seg.framesSaved);
   return (
     <Figure
       id={`cancel-${seg.after}`}
@@ -373,7 +353,7 @@ function End({
 }: {
   seg: EndSegment;
   cancel: CancelSegment | null;
-  rules: Rules;
+  rules: BlockRules;
   onActive: (id: string, on: boolean) => void;
 }) {
   const x = seg.x + 12;

@@ -1,14 +1,17 @@
 import { memo } from "react";
 import { LevelBadge } from "@/components/ui/level-badge";
-import { LEVELS } from "@/lib/engine";
+import { BLOCK_CLASS_STYLE } from "@/components/ui/block-class";
+import {
+  BLOCK_CLASS_WORD,
+  LEVELS,
+  blockClassMeaning,
+  blockClassRange,
+  type BlockClass,
+  type BlockRules,
+} from "@/lib/engine";
 
-const BLOCK_WORDS: [string, string, string][] = [
-  ["plus", "text-block-plus", "you act first"],
-  ["even", "text-block-even", "both act at once"],
-  ["safe", "text-block-safe", "no punish"],
-  ["punishable", "text-block-punishable", "their fastest attack lands"],
-  ["launch punish", "text-block-launch-punishable", "a launcher lands"],
-];
+/** The classes a number on block can have, best first. */
+const NUMBER_CLASSES: readonly BlockClass[] = ["plus", "even", "safe", "punishable", "launch-punishable"];
 
 function Line({ dash, color, label }: { dash?: string; color: string; label: string }) {
   return (
@@ -56,8 +59,8 @@ function RingMark({ label, ring }: { label: string; ring: "path" | "end" | "focu
   );
 }
 
-/** Every colour and line style of the graph, in words. Static: memoised, so a selection does not re-render it. */
-export const Legend = memo(function Legend() {
+/** Every colour and line style of the graph, in words. Memoised: a selection does not re-render it, a rule change does. */
+export const Legend = memo(function Legend({ rules }: { rules: BlockRules }) {
   return (
     <details className="rounded-lg border border-ink-800 bg-ink-900 px-3 py-2 text-xs text-ink-300" open>
       <summary className="cursor-pointer text-ink-400">Legend</summary>
@@ -79,9 +82,12 @@ export const Legend = memo(function Legend() {
           ))}
         </ul>
         <ul className="space-y-0.5">
-          {BLOCK_WORDS.map(([word, cls, meaning]) => (
-            <li key={word}>
-              <span className={cls}>{word}</span> <span className="text-ink-400">— {meaning}</span>
+          {NUMBER_CLASSES.map((cls) => (
+            <li key={cls}>
+              <span className={BLOCK_CLASS_STYLE[cls]}>{BLOCK_CLASS_WORD[cls]}</span>{" "}
+              <span className="text-ink-400">
+                ({blockClassRange(cls, rules)}) — {blockClassMeaning(cls, rules)}
+              </span>
             </li>
           ))}
           <li>

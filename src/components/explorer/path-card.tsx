@@ -1,10 +1,20 @@
 import { memo } from "react";
-import { explainBlock, BlockClassTag, type BlockRules } from "@/components/ui/block-class";
+import { BlockClassTag, type BlockRules } from "@/components/ui/block-class";
 import { Explained } from "@/components/ui/explained";
 import { Frames } from "@/components/ui/frames";
 import { LevelBadge } from "@/components/ui/level-badge";
-import { classifyBlock, type MoveGraph, type PathResult } from "@/lib/engine";
-import { formatFrames, formatOutcome } from "@/lib/format";
+import {
+  BLOCK_CLASS_WORD,
+  classifyBlock,
+  explainFramesSaved,
+  explainGap,
+  explainOnBlock,
+  explainOnHit,
+  formatOutcome,
+  type MoveGraph,
+  type PathResult,
+} from "@/lib/engine";
+import { hitOnBlockBeforeCancel } from "@/lib/explorer";
 
 const GUARD_WORD = { stand: "stand", duck: "duck", crouch: "crouch", break: "break", evade: "evade" } as const;
 
@@ -33,7 +43,7 @@ function PathCardView({
 }) {
   const byId = new Map(graph.nodes.map((n) => [n.id, n]));
   const hits = path.nodes.map((id) => byId.get(id)).filter((n) => n?.kind === "move");
-  const raw = path.framesSaved === null ? null : (path.onBlock as number) - path.framesSaved;
+  const raw = hitOnBlockBeforeCancel(path, byId);
   const cls = path.blockClass;
 
   return (
@@ -77,7 +87,7 @@ function PathCardView({
 
       <dl>
         <Row label="On block">
-          <Explained field="onBlock" explain={explainBlock(path.onBlock, rules)}>
+          <Explained field="onBlock" explain={explainOnBlock(path.onBlock, rules)}>
             <Frames value={path.onBlock} />
           </Explained>
           <span data-field="blockClass" className="ml-1">
@@ -89,28 +99,23 @@ function PathCardView({
           </span>
         </Row>
         <Row label="On hit">
-          <Explained field="onHit" explain={`Frame advantage if the last hit lands: ${formatOutcome(path.onHit)}.`}>
+          <Explained field="onHit" explain={explainOnHit(path.onHit)}>
             <Frames value={path.onHit} />
           </Explained>
         </Row>
         <Row label="On counter hit">
-          <Explained
-            field="onCounterHit"
-            explain={`If the last hit lands as a counter hit: ${formatOutcome(path.onCounterHit)}.`}
-          >
+          <Explained field="onCounterHit" explain={explainOnHit(path.onCounterHit, { counterHit: true })}>
             <Frames value={path.onCounterHit} />
           </Explained>
         </Row>
         {path.framesSaved !== null && raw !== null && (
           <Row label="Cancel saves">
-            <Explained
-              field="framesSaved"
-              explain={`Cancelled: ${formatFrames(path.onBlock as number)} on block instead of ${formatFrames(raw)} when stopping at the hit: ${formatFrames(path.onBlock as number)} − (${formatFrames(raw)}) = ${path.framesSaved}.`}
-            >
+            <Explained field="framesSaved" explain={explainFramesSaved(path.onBlock, raw)}>
               <span className="font-mono">{path.framesSaved}f</span>
             </Explained>
             <span className="ml-2 text-xs text-ink-400">
-              without it <span className="font-mono">{formatFrames(raw)}</span> ({classifyBlock(raw, rules)})
+              without it <span className="font-mono">{formatOutcome(raw)}</span> (
+              {BLOCK_CLASS_WORD[classifyBlock(raw, rules)]})
             </span>
           </Row>
         )}
@@ -143,10 +148,7 @@ function PathCardView({
             {path.gaps.length === 0
               ? "none"
               : path.gaps.map((g) => (
-                  <Explained
-                    key={g.after}
-                    explain={`After hit ${g.after + 1}, the defender is free for ${g.frames} frame(s): a move of startup ${g.frames} or less hits first.`}
-                  >
+                  <Explained key={g.after} explain={`Gap on block after hit ${g.after + 1}: ${explainGap(g.frames)}.`}>
                     <span className="ml-2 font-mono">
                       after {g.after + 1}: {g.frames}f
                     </span>

@@ -13,13 +13,22 @@ import {
   type SortFn,
   type SortingState,
 } from "@tanstack/react-table";
-import { BLOCK_CLASS_STYLE, BLOCK_CLASS_WORD, explainBlock, type BlockRules } from "@/components/ui/block-class";
+import { BLOCK_CLASS_STYLE, type BlockRules } from "@/components/ui/block-class";
 import { Frames } from "@/components/ui/frames";
 import { LevelBadge } from "@/components/ui/level-badge";
 import { afterNextPaint } from "@/lib/after-paint";
-import type { BlockClass, PathResult } from "@/lib/engine";
-import { pathKey } from "@/lib/explorer";
-import { formatFrames, formatOutcome } from "@/lib/format";
+import {
+  BLOCK_CLASS_WORD,
+  explainFramesSaved,
+  explainGap,
+  explainOnBlock,
+  explainOnHit,
+  type BlockClass,
+  type GraphNode,
+  type MoveGraph,
+  type PathResult,
+} from "@/lib/engine";
+import { hitOnBlockBeforeCancel, pathKey } from "@/lib/explorer";
 import {
   BLOCK_CLASSES,
   compareOutcome,
@@ -44,8 +53,6 @@ const col = createColumnHelper<Features, PathResult>();
 
 // The words and colours beside each class are the move list's, read from the path's own
 // `blockClass`: the engine computed it with the rules the paths were explored with.
-const CLASS_WORD = BLOCK_CLASS_WORD;
-const CLASS_STYLE = BLOCK_CLASS_STYLE;
 
 // The accessors of outcome columns give `undefined` for a state, so `sortUndefined: "last"` keeps
 // states below every number whichever way the column is sorted; numbers are ordered by compareOutcome.
@@ -57,10 +64,10 @@ const byNumber: SortFn<Features, PathResult> = (a, b, id) => a.getValue<number>(
 
 function gapsTitle(p: PathResult): string {
   if (p.gaps.length === 0) return "No gap on block: the defender is never free between hits.";
-  return p.gaps.map((g) => `after hit ${g.after + 1}: free for ${g.frames}f`).join("; ");
+  return p.gaps.map((g) => `After hit ${g.after + 1}: ${explainGap(g.frames)}.`).join(" ");
 }
 
-function buildColumns(rules: BlockRules) {
+function buildColumns(rules: BlockRules, nodes: ReadonlyMap<string, GraphNode>) {
   return col.columns([
     col.accessor((p) => p.input, {
       id: "input",
@@ -94,7 +101,7 @@ function buildColumns(rules: BlockRules) {
       header: "On block",
       sortFn: byOutcome("onBlock"),
       sortUndefined: "last",
-      cell: (c) => <Frames value={c.row.original.onBlock} title={explainBlock(c.row.original.onBlock, rules)} />,
+      cell: (c) => <Frames value={c.row.original.onBlock} title={explainOnBlock(c.row.original.onBlock, rules)} />,
     }),
     col.accessor((p) => p.blockClass, {
       id: "blockClass",
@@ -102,7 +109,7 @@ function buildColumns(rules: BlockRules) {
       enableSorting: false,
       cell: (c) => {
         const cls = c.row.original.blockClass;
-        return <span className={`text-[11px] ${CLASS_STYLE[cls]}`}>{CLASS_WORD[cls]}</span>;
+        return <span className={`text-[11px] ${BLOCK_CLASS_STYLE[cls]}`}>{BLOCK_CLASS_WORD[cls]}</span>;
       },
     }),
     col.accessor((p) => outcomeSortValue(p.onHit), {
@@ -110,9 +117,7 @@ function buildColumns(rules: BlockRules) {
       header: "On hit",
       sortFn: byOutcome("onHit"),
       sortUndefined: "last",
-      cell: (c) => (
-        <Frames value={c.row.original.onHit} title={`If the last hit lands: ${formatOutcome(c.row.original.onHit)}.`} />
-      ),
+      cell: (c) => <Frames value={c.row.original.onHit} title={explainOnHit(c.row.original.onHit)} />,
     }),
     col.display({
       id: "onCounterHit",
@@ -120,7 +125,7 @@ function buildColumns(rules: BlockRules) {
       cell: (c) => (
         <Frames
           value={c.row.original.onCounterHit}
-          title={`If the last hit lands as a counter hit: ${formatOutcome(c.row.original.onCounterHit)}.`}
+          title={explainOnHit(c.row.original.onCounterHit, { counterHit: true })}
         />
       ),
     }),
@@ -131,13 +136,10 @@ function buildColumns(rules: BlockRules) {
       sortUndefined: "last",
       cell: (c) => {
         const p = c.row.original;
-        if (p.framesSaved === null) return <span className="text-ink-600">—</span>;
-        const raw = (p.onBlock as number) - p.framesSaved;
+        const raw = hitOnBlockBeforeCancel(p, nodes);
+        if (p.framesSaved === null || raw === null) return <span className="text-ink-600">—</span>;
         return (
-          <span
-            className="font-mono tabular-nums"
-            title={`Cancelled: ${formatFrames(p.onBlock as number)} on block instead of ${formatFrames(raw)} when stopping at the hit.`}
-          >
+          <span className="font-mono tabular-nums" title={explainFramesSaved(p.onBlock, raw)}>
             {p.framesSaved}f
           </span>
         );
@@ -194,14 +196,7 @@ const HEADER_HINT: Partial<Record<string, string>> = {
 const ARIA_SORT = { asc: "ascending", desc: "descending" } as const;
 const ARROW = { asc: "▲", desc: "▼" } as const;
 
-const CLASS_OPTION: Record<BlockClass, string> = {
-  plus: "plus",
-  even: "even",
-  safe: "safe",
-  punishable: "punishable",
-  "launch-punishable": "launch-punishable",
-  state: "state (no number)",
-};
+const classOption = (cls: BlockClass) => (cls === "state" ? "state (no number)" : BLOCK_CLASS_WORD[cls]);
 
 const control = "rounded border border-ink-700 bg-ink-900 px-1.5 py-0.5 text-ink-100";
 
@@ -219,11 +214,13 @@ function toFilters(form: FormState): PathFilters {
 /** Memoised: it re-renders when its paths, selection or rules change, not on every render of the Explorer. */
 export const PathsTable = memo(function PathsTable(props: {
   paths: PathResult[];
+  /** The graph the paths run through: the cancelled hits' own endings are read from it. */
+  graph: MoveGraph;
   selectedKey: string | null;
   onSelect: (pathKey: string) => void;
   rules: { fastest: number; launchAt: number };
 }): JSX.Element {
-  const { paths, selectedKey, onSelect } = props;
+  const { paths, graph, selectedKey, onSelect } = props;
   const { fastest, launchAt } = props.rules;
 
   const [form, setForm] = useState<FormState>(EMPTY_FORM);
@@ -231,7 +228,10 @@ export const PathsTable = memo(function PathsTable(props: {
   const filters = useMemo(() => toFilters(form), [form]);
   const data = useMemo(() => filterPaths(paths, filters), [paths, filters]);
   // Keyed on the numbers: callers often pass a fresh rules object on every render.
-  const columns = useMemo(() => buildColumns({ fastest, launchAt }), [fastest, launchAt]);
+  const columns = useMemo(
+    () => buildColumns({ fastest, launchAt }, new Map(graph.nodes.map((n) => [n.id, n]))),
+    [fastest, launchAt, graph],
+  );
 
   const table = useTable({
     features,
@@ -301,7 +301,7 @@ export const PathsTable = memo(function PathsTable(props: {
             <option value="any">any</option>
             {BLOCK_CLASSES.map((c) => (
               <option key={c} value={c}>
-                {CLASS_OPTION[c]}
+                {classOption(c)}
               </option>
             ))}
           </select>

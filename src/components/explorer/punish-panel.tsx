@@ -4,11 +4,17 @@ import { memo, useMemo, useState, type ReactNode } from "react";
 import useSWR from "swr";
 import { useExplorerStore } from "@/components/providers/explorer-store-provider";
 import { Explained } from "@/components/ui/explained";
-import type { PathResult } from "@/lib/engine";
+import {
+  FOLLOW_UP_WORD,
+  explainFollowUp,
+  explainPunisher,
+  formatOutcome,
+  punishWindow,
+  type PathResult,
+} from "@/lib/engine";
 import type { AppError } from "@/lib/errors";
 import { graphUrl, type GraphResponse } from "@/lib/explorer";
 import { fetcher } from "@/lib/fetcher";
-import { formatFrames, formatOutcome } from "@/lib/format";
 import { followUpsAt, punishesFor, withBestCombos, type FollowUpOption, type Option } from "@/lib/punish";
 
 function OptionRow({ o, children }: { o: Option; children: React.ReactNode }) {
@@ -86,15 +92,9 @@ function FollowUps({
           items={list}
           render={(o, i) => (
             <OptionRow key={i} o={o}>
-              <Explained
-                explain={
-                  o.kind === "guaranteed"
-                    ? `Startup ${o.startup} ≤ advantage ${formatFrames(advantage)}: it lands before the opponent can act.`
-                    : `Startup ${o.startup} is above ${formatFrames(advantage)} but below ${formatFrames(advantage)} + ${fastest}: no ${fastest}-frame button of theirs hits first or trades.`
-                }
-              >
+              <Explained explain={explainFollowUp(advantage, o.startup, { fastest })}>
                 <span className={o.kind === "guaranteed" ? "text-block-plus" : "text-block-safe"}>
-                  {o.kind === "guaranteed" ? "guaranteed" : "frame trap"}
+                  {FOLLOW_UP_WORD[o.kind]}
                 </span>{" "}
                 · {o.startup}f · {o.damage}
               </Explained>
@@ -125,7 +125,9 @@ function PunishPanelView({ path, data, fastest }: { path: PathResult; data: Grap
   );
 
   const punishers = theirs ? punishesFor(path, theirs) : [];
-  const a = typeof path.onBlock === "number" ? path.onBlock : null;
+  const numeric = typeof path.onBlock === "number";
+  const punishUpTo = punishWindow(path.onBlock);
+  const at = formatOutcome(path.onBlock);
 
   return (
     <section
@@ -160,20 +162,20 @@ function PunishPanelView({ path, data, fastest }: { path: PathResult; data: Grap
         <p role="status" className="text-sm text-ink-400">
           Loading the opponent&apos;s moves…
         </p>
-      ) : a === null ? (
+      ) : !numeric ? (
         <p className="text-sm text-ink-300" data-testid="punish-verdict">
           Ends in a {formatOutcome(path.onBlock)}: no frame-based punish applies.
         </p>
       ) : punishers.length === 0 ? (
         <p className="text-sm text-ink-300" data-testid="punish-verdict">
-          {a >= 0
-            ? `Safe: at ${formatFrames(a)} you act first or at once.`
-            : `Safe: at ${formatFrames(a)} none of ${opponent?.character.name}'s moves is fast enough (${-a} frames or less, ${path.defenderStance}).`}
+          {punishUpTo === null
+            ? `Safe: at ${at} you act first or at once.`
+            : `Safe: at ${at} none of ${opponent?.character.name}'s moves is fast enough (${punishUpTo} frames or less, ${path.defenderStance}).`}
         </p>
       ) : (
         <div>
           <p className="text-sm text-ink-300" data-testid="punish-verdict">
-            At {formatFrames(a)}, {opponent?.character.name} ({path.defenderStance}) punishes with:
+            At {at}, {opponent?.character.name} ({path.defenderStance}) punishes with:
           </p>
           <ShortList
             testId="punishers"
@@ -181,7 +183,7 @@ function PunishPanelView({ path, data, fastest }: { path: PathResult; data: Grap
             render={(o, i) => (
               <OptionRow key={i} o={o}>
                 <Explained
-                  explain={`Startup ${o.startup} ≤ ${-a}: it lands before you recover. Can be done ${o.from === "any" ? "standing or crouching" : o.from}; ${o.damage} damage as ${o.comboInput}.`}
+                  explain={`${explainPunisher(o.startup, path.onBlock)} Can be done ${o.from === "any" ? "standing or crouching" : o.from}; ${o.damage} damage as ${o.comboInput}.`}
                 >
                   {o.startup}f · {o.damage} dmg · {o.from}
                 </Explained>

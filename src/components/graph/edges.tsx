@@ -152,20 +152,20 @@ export interface NodeBox {
   round: boolean;
 }
 
-/** A rounded rectangle `gap` px outside a node's box, in the node's own shape. */
+/** A rounded rectangle `offset` px outside a node's box, in the node's own shape. */
 function Ring({
   box,
-  gap,
+  offset,
   className,
   ...rest
-}: { box: NodeBox; gap: number; className: string } & React.SVGProps<SVGRectElement>) {
-  const radius = box.round ? box.height / 2 + gap : 6 + gap;
+}: { box: NodeBox; offset: number; className: string } & React.SVGProps<SVGRectElement>) {
+  const radius = box.round ? box.height / 2 + offset : 6 + offset;
   return (
     <rect
-      x={box.x - gap}
-      y={box.y - gap}
-      width={box.width + 2 * gap}
-      height={box.height + 2 * gap}
+      x={box.x - offset}
+      y={box.y - offset}
+      width={box.width + 2 * offset}
+      height={box.height + 2 * offset}
       rx={radius}
       fill="none"
       className={className}
@@ -232,19 +232,19 @@ export function PathOverlay({ boxes }: { boxes: ReadonlyMap<string, NodeBox> }) 
         {[...pathNodes].map((id) => {
           const box = ring(id);
           return box && id !== end ? (
-            <Ring key={id} box={box} gap={2} strokeWidth={2} className="stroke-accent-muted" data-path-node={id} />
+            <Ring key={id} box={box} offset={2} strokeWidth={2} className="stroke-accent-muted" data-path-node={id} />
           ) : null;
         })}
         {endBox && end !== null && (
           <g data-path-node={end} data-path-end="true">
-            <Ring box={endBox} gap={3} strokeWidth={5} className="stroke-accent/40" />
-            <Ring box={endBox} gap={2} strokeWidth={2} className="stroke-accent" />
+            <Ring box={endBox} offset={3} strokeWidth={5} className="stroke-accent/40" />
+            <Ring box={endBox} offset={2} strokeWidth={2} className="stroke-accent" />
           </g>
         )}
         {focusBox && focus !== null && (
           <Ring
             box={focusBox}
-            gap={7}
+            offset={7}
             strokeWidth={2}
             strokeDasharray="5 4"
             className="stroke-ink-200"

@@ -5,7 +5,7 @@ import { Background, Controls, MiniMap, ReactFlow, ViewportPortal } from "@xyflo
 import { useCallback, useLayoutEffect, useMemo, useRef, useState, type KeyboardEvent } from "react";
 import { ExportButton } from "./export-button";
 import type { BlockRules } from "@/components/ui/block-class";
-import type { MoveGraph, PathResult } from "@/lib/engine";
+import { framesSaved, framesSavedLabel, type MoveGraph, type PathResult } from "@/lib/engine";
 import { layoutGraph } from "@/lib/layout-graph";
 import { ArrowDefs, PathOverlay, edgeTypes, type MoveFlowEdge, type NodeBox } from "./edges";
 import { createCanvasStore, type CanvasMarks } from "./canvas-store";
@@ -13,9 +13,9 @@ import { CanvasContext, MOVE_SIZE, STANCE_SIZE, nodeTypes, type MoveFlowNode, ty
 
 /** The frames a cancel saves over stopping at the hit it ends, when both are numbers. */
 export function cancelSaves(graph: MoveGraph, edge: MoveGraph["edges"][number]): number | null {
-  if (edge.kind !== "cancel" || typeof edge.onBlock !== "number") return null;
+  if (edge.kind !== "cancel") return null;
   const from = graph.nodes.find((n) => n.id === edge.from);
-  return from?.kind === "move" && typeof from.onBlock === "number" ? edge.onBlock - from.onBlock : null;
+  return from?.kind === "move" ? framesSaved(edge.onBlock, from.onBlock) : null;
 }
 
 // Props React Flow compares by identity: one object for the life of the page.
@@ -131,7 +131,7 @@ export function GraphCanvas({
         // Follow-ups need no label (the next node shows its whole input); a cancel's says what it saves.
         const label =
           e.kind === "cancel"
-            ? `${e.input}${saves === null ? "" : ` · ${saves >= 0 ? "saves" : "costs"} ${Math.abs(saves)}f`}`
+            ? `${e.input}${saves === null ? "" : ` · ${framesSavedLabel(saves)}`}`
             : e.kind === "enter"
               ? e.input
               : null;

@@ -1,9 +1,9 @@
 import Link from "next/link";
 import type { CancelEntry, MoveEntry, MoveList } from "@/server/db/queries/moves";
-import { BlockClassTag, explainBlock, type BlockRules } from "@/components/ui/block-class";
+import { BlockClassTag, type BlockRules } from "@/components/ui/block-class";
 import { Frames } from "@/components/ui/frames";
 import { LevelBadge } from "@/components/ui/level-badge";
-import { formatFrames } from "@/lib/format";
+import { explainFramesSaved, explainGap, explainOnBlock, framesSaved, framesSavedLabel, gapJails } from "@/lib/engine";
 
 interface Section {
   id: string;
@@ -30,16 +30,9 @@ const td = "px-2 py-1.5 align-top whitespace-nowrap";
 function GapCell({ move }: { move: MoveEntry }) {
   const via = move.via;
   if (via?.kind !== "follow") return <span className="text-ink-600">—</span>;
-  const jails = via.gapOnBlock <= 0;
+  const jails = gapJails(via.gapOnBlock);
   return (
-    <span
-      className="font-mono tabular-nums"
-      title={
-        jails
-          ? `Jails: no gap on block before this hit (${via.gapOnBlock}).`
-          : `On block the defender is free for ${via.gapOnBlock} frame(s) before this hit.`
-      }
-    >
+    <span className="font-mono tabular-nums" title={`Gap on block before this hit: ${explainGap(via.gapOnBlock)}.`}>
       {jails ? "jail" : via.gapOnBlock}
       {via.comboOnHit ? (
         <span className="ml-1 text-block-plus" title="Combos if the previous hit connected">
@@ -51,8 +44,7 @@ function GapCell({ move }: { move: MoveEntry }) {
 }
 
 function CancelRow({ cancel, from, rules }: { cancel: CancelEntry; from: MoveEntry; rules: BlockRules }) {
-  const saved =
-    typeof cancel.onBlock === "number" && typeof from.onBlock === "number" ? cancel.onBlock - from.onBlock : null;
+  const saved = framesSaved(cancel.onBlock, from.onBlock);
   return (
     <tr data-cancel-key={cancel.key} className="border-t border-ink-850 bg-ink-900/40 text-ink-300">
       <td
@@ -67,9 +59,9 @@ function CancelRow({ cancel, from, rules }: { cancel: CancelEntry; from: MoveEnt
         {saved !== null && (
           <span
             className="ml-2 font-mono text-xs text-ink-400"
-            title={`${formatFrames(cancel.onBlock as number)} − (${formatFrames(from.onBlock as number)}) on block`}
+            title={explainFramesSaved(cancel.onBlock, from.onBlock)}
           >
-            {saved >= 0 ? "saves" : "costs"} {Math.abs(saved)}f
+            {framesSavedLabel(saved)}
           </span>
         )}
       </td>
@@ -78,7 +70,7 @@ function CancelRow({ cancel, from, rules }: { cancel: CancelEntry; from: MoveEnt
       <td className={td} />
       <td className={td} />
       <td className={td}>
-        <Frames value={cancel.onBlock} title={explainBlock(cancel.onBlock, rules)} />
+        <Frames value={cancel.onBlock} title={explainOnBlock(cancel.onBlock, rules)} />
         <BlockClassTag onBlock={cancel.onBlock} rules={rules} />
       </td>
       <td className={td}>
@@ -214,7 +206,7 @@ function MoveRows({
         </td>
         <td className={td}>
           <span data-field="onBlock">
-            <Frames value={move.onBlock} title={explainBlock(move.onBlock, rules)} />
+            <Frames value={move.onBlock} title={explainOnBlock(move.onBlock, rules)} />
           </span>
           <BlockClassTag onBlock={move.onBlock} rules={rules} />
         </td>

@@ -1,6 +1,6 @@
-import { classifyBlock, type BlockClass, type Outcome } from "@/lib/engine";
-import { BLOCK_CLASS_WORD, formatOutcome } from "@/lib/format";
+import { BLOCK_CLASS_WORD, classifyBlock, type BlockClass, type BlockRules, type Outcome } from "@/lib/engine";
 
+export type { BlockRules };
 export { BLOCK_CLASS_WORD };
 
 export const BLOCK_CLASS_STYLE: Record<BlockClass, string> = {
@@ -11,31 +11,6 @@ export const BLOCK_CLASS_STYLE: Record<BlockClass, string> = {
   "launch-punishable": "text-block-launch-punishable",
   state: "text-block-state",
 };
-
-export interface BlockRules {
-  fastest: number;
-  launchAt: number;
-}
-
-/** Why an ending has its class, in one sentence: what the hover says. */
-export function explainBlock(onBlock: Outcome, rules: BlockRules): string {
-  const cls = classifyBlock(onBlock, rules);
-  const v = formatOutcome(onBlock);
-  switch (cls) {
-    case "plus":
-      return `${v} on block: you act first (plus is +1 or more).`;
-    case "even":
-      return `${v} on block: both sides act at once.`;
-    case "safe":
-      return `${v} on block: safe, the opponent's fastest attack (${rules.fastest}f) does not reach you in time (safe is above -${rules.fastest}).`;
-    case "punishable":
-      return `${v} on block: punishable, any defender move of startup ${-Number(onBlock)}f or less lands (punishable from -${rules.fastest}).`;
-    case "launch-punishable":
-      return `${v} on block: a launching punish lands (from -${rules.launchAt}).`;
-    case "state":
-      return `On block: ${v}.`;
-  }
-}
 
 /** The block class as a word in its colour, never the colour alone. */
 export function BlockClassTag({ onBlock, rules }: { onBlock: Outcome; rules: BlockRules }) {

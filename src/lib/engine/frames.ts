@@ -110,9 +110,213 @@ export function punishersFor<M extends PunisherMove>(
   defenderStance: DefenderStance,
   moves: readonly M[],
 ): M[] {
-  const a = outcomeFrames(onBlock);
-  if (!(a < 0)) return [];
+  const limit = punishWindow(onBlock);
+  if (limit === null) return [];
   return moves
-    .filter((m) => m.startup <= -a && (m.from === "any" || m.from === defenderStance))
-    .sort((x, y) => y.damage - x.damage || x.startup - y.startup);
+    .filter((m) => m.startup <= limit && (m.from === "any" || m.from === defenderStance))
+    .sort(byDamageThenSpeed);
+}
+
+// ---------------------------------------------------------------------------------------
+// More frame rules the UI needs, and every figure in words. Each sentence that says why a
+// figure is what it is lives here, beside the rule it explains, so the two change together.
+
+/** The thresholds the block classes are read with. */
+export interface BlockRules {
+  fastest: number;
+  launchAt: number;
+}
+
+/**
+ * The launch threshold in force: a launching punish is never faster than the opponent's
+ * fastest attack, so a `launchAt` below `fastest` counts as `fastest`.
+ */
+export function effectiveLaunchAt(launchAt: number, fastest: number): number {
+  return Math.max(launchAt, fastest);
+}
+
+/** The highest defender startup that punishes an ending: `-a` at `a < 0` on block; null when nothing can. */
+export function punishWindow(onBlock: Outcome): number | null {
+  const a = outcomeFrames(onBlock);
+  return a < 0 ? -a : null;
+}
+
+/** Best damage first and, among equal damage, the faster (more reliable) move first. */
+export function byDamageThenSpeed(x: { damage: number; startup: number }, y: { damage: number; startup: number }) {
+  return y.damage - x.damage || x.startup - y.startup;
+}
+
+/** Whether a gap on block jails: at `<= 0` a blocking defender cannot act before the next hit. */
+export function gapJails(gap: number): boolean {
+  return gap <= 0;
+}
+
+/** Who acts first after an exchange with this outcome; `state` when it is not a frame count. */
+export type AdvantageSide = "attacker" | "even" | "defender" | "state";
+
+export function advantageSide(outcome: Outcome): AdvantageSide {
+  const a = outcomeFrames(outcome);
+  if (a > 0) return "attacker";
+  if (a < 0) return "defender";
+  return a === 0 ? "even" : "state";
+}
+
+/**
+ * Ascending frame advantage with every state after every number: a state has no place on the
+ * number line, so it is kept out of the way. States among themselves go by name, then by the
+ * number they carry (a state without one first).
+ */
+export function compareOutcome(a: Outcome, b: Outcome): number {
+  const an = typeof a === "number";
+  const bn = typeof b === "number";
+  if (an && bn) return a - b;
+  if (an) return -1;
+  if (bn) return 1;
+  if (a.state !== b.state) return a.state < b.state ? -1 : 1;
+  if (a.frames === b.frames) return 0;
+  if (a.frames === undefined) return -1;
+  if (b.frames === undefined) return 1;
+  return a.frames - b.frames;
+}
+
+/** `+3`, `0`, `-12`: the sign is always written, as frame advantage is read. */
+export function formatFrames(n: number): string {
+  return n > 0 ? `+${n}` : String(n);
+}
+
+/** A number, or a state with its number when it carries one: `knockdown +3`. */
+export function formatOutcome(o: Outcome): string {
+  if (typeof o === "number") return formatFrames(o);
+  return o.frames === undefined ? o.state : `${o.state} ${formatFrames(o.frames)}`;
+}
+
+/** What an outcome means after the exchange: "the attacker acts 3 frames before the defender". */
+export function explainAdvantage(o: Outcome): string {
+  if (typeof o !== "number") {
+    return `the defender is left in ${o.state}${o.frames === undefined ? "" : ` at ${formatFrames(o.frames)} frames`}`;
+  }
+  if (o === 0) return "both sides act at once";
+  return `the attacker acts ${Math.abs(o)} frames ${o > 0 ? "before" : "after"} the defender`;
+}
+
+/** The hover of a path's on-hit or on-counter-hit figure: the figure and who acts first after it. */
+export function explainOnHit(o: Outcome, { counterHit = false }: { counterHit?: boolean } = {}): string {
+  return `If the last hit lands${counterHit ? " as a counter hit" : ""}: ${formatOutcome(o)}, ${explainAdvantage(o)}.`;
+}
+
+/** The block class as the UI writes it beside its colour (the legend's word too). */
+export const BLOCK_CLASS_WORD: Readonly<Record<BlockClass, string>> = Object.freeze({
+  plus: "plus",
+  even: "even",
+  safe: "safe",
+  punishable: "punishable",
+  "launch-punishable": "launch-punishable",
+  state: "state",
+});
+
+/** The on-block range of a class under the given rules: "-10 or less, above -15". */
+export function blockClassRange(cls: BlockClass, { fastest, launchAt }: BlockRules): string {
+  switch (cls) {
+    case "plus":
+      return "+1 or more";
+    case "even":
+      return "0";
+    case "safe":
+      return `below 0, above -${fastest}`;
+    case "punishable":
+      return `-${fastest} or less, above -${launchAt}`;
+    case "launch-punishable":
+      return `-${launchAt} or less`;
+    case "state":
+      return "a state, not a frame count";
+  }
+}
+
+/** What a class means for the attacker; with the ending's on-block figure when it makes it exact. */
+export function blockClassMeaning(cls: BlockClass, rules: BlockRules, onBlock?: Outcome): string {
+  const limit = onBlock === undefined ? null : punishWindow(onBlock);
+  const lands = limit === null ? "" : `; any defender move of startup ${limit} or less lands before you recover`;
+  switch (cls) {
+    case "plus":
+      return "you act first";
+    case "even":
+      return "both sides act at once";
+    case "safe":
+      return `the opponent's fastest attack (${rules.fastest}f) does not reach you in time`;
+    case "punishable":
+      return `their fastest attack (${rules.fastest}f) lands${lands}`;
+    case "launch-punishable":
+      return `a launching punish lands${lands}`;
+    case "state":
+      return "no block class, what follows depends on the state";
+  }
+}
+
+/** Why an ending has its class, in one sentence: "Punishable (-10 or less, above -15): …". */
+export function explainBlockClass(cls: BlockClass, onBlock: Outcome, rules: BlockRules): string {
+  const word = BLOCK_CLASS_WORD[cls];
+  return `${word[0]!.toUpperCase()}${word.slice(1)} (${blockClassRange(cls, rules)}): ${blockClassMeaning(cls, rules, onBlock)}.`;
+}
+
+/** The hover of an on-block figure: the figure, then why it has its class under these rules. */
+export function explainOnBlock(onBlock: Outcome, rules: BlockRules): string {
+  return `${formatOutcome(onBlock)} on block. ${explainBlockClass(classifyBlock(onBlock, rules), onBlock, rules)}`;
+}
+
+/** "saves 10f" or "costs 3f": a cancel's frames saved as a label. */
+export function framesSavedLabel(saved: number): string {
+  return saved >= 0 ? `saves ${saved}f` : `costs ${-saved}f`;
+}
+
+/** How a cancel's frames saved come about, in one sentence, from the two endings it compares. */
+export function explainFramesSaved(cancelOnBlock: Outcome, moveOnBlock: Outcome): string {
+  const both = `${formatOutcome(cancelOnBlock)} on block instead of ${formatOutcome(moveOnBlock)} when stopping at the hit`;
+  const saved = framesSaved(cancelOnBlock, moveOnBlock);
+  if (saved === null) return `Cancelled: ${both}; no frames saved can be counted, as one of them is a state.`;
+  const sum = `${formatOutcome(cancelOnBlock)} − (${formatOutcome(moveOnBlock)}) = ${saved}`;
+  return `Cancelled: ${both}: ${sum} frames ${saved >= 0 ? "saved" : "lost"}.`;
+}
+
+/** How `gapAtAdvantage` gets its figure, written out: "12 − (-4) − 1 = 15". */
+export function gapAtAdvantageSum(advantage: number, startup: number): string {
+  return `${startup} − (${formatFrames(advantage)}) − 1 = ${gapAtAdvantage(advantage, startup)}`;
+}
+
+/** What a gap on block means for the defender: "3 frames, so a defender move of startup 3 or less hits first". */
+export function explainGap(gap: number): string {
+  return gapJails(gap)
+    ? `${gap} frames, 0 or less, so the string jails here: a blocking defender cannot act before the next hit`
+    : `${gap} frames, so a defender move of startup ${gap} or less hits first`;
+}
+
+/** The follow-up classes in words. */
+export const FOLLOW_UP_WORD: Readonly<Record<FollowUpClass, string>> = Object.freeze({
+  guaranteed: "guaranteed",
+  "frame-trap": "frame trap",
+  interruptible: "interruptible",
+});
+
+/** Why a follow-up of startup `s` at advantage `a` has its class, in one sentence. */
+export function explainFollowUp(
+  advantage: number,
+  startup: number,
+  { fastest = DEFAULT_FASTEST }: { fastest?: number } = {},
+): string {
+  const a = formatFrames(advantage);
+  switch (followUp(advantage, startup, { fastest })) {
+    case "guaranteed":
+      return `Startup ${startup} ≤ advantage ${a}: it lands before the opponent can act.`;
+    case "frame-trap":
+      return `Startup ${startup} is above ${a} but below ${a} + ${fastest}: no ${fastest}-frame button of theirs hits first or trades.`;
+    case "interruptible":
+      return `Startup ${startup} is ${a} + ${fastest} or more: a defender move of startup ${gapAtAdvantage(advantage, startup)} or less hits first.`;
+  }
+}
+
+/** Why a defender move punishes an ending: "Startup 12 ≤ 14: it lands before you recover." */
+export function explainPunisher(startup: number, onBlock: Outcome): string {
+  const limit = punishWindow(onBlock);
+  return limit !== null && startup <= limit
+    ? `Startup ${startup} ≤ ${limit}: it lands before you recover.`
+    : `Startup ${startup}: too slow to punish ${formatOutcome(onBlock)} on block.`;
 }

@@ -31,6 +31,32 @@ export {
   DEFAULT_LAUNCH_AT,
   type PunisherMove,
 } from "./frames";
+export {
+  effectiveLaunchAt,
+  punishWindow,
+  byDamageThenSpeed,
+  gapJails,
+  advantageSide,
+  compareOutcome,
+  formatFrames,
+  formatOutcome,
+  explainAdvantage,
+  explainOnHit,
+  BLOCK_CLASS_WORD,
+  blockClassRange,
+  blockClassMeaning,
+  explainBlockClass,
+  explainOnBlock,
+  framesSavedLabel,
+  explainFramesSaved,
+  gapAtAdvantageSum,
+  explainGap,
+  FOLLOW_UP_WORD,
+  explainFollowUp,
+  explainPunisher,
+  type AdvantageSide,
+  type BlockRules,
+} from "./frames";
 export { solveMatrixGame, type MatrixGameSolution } from "./solver";
 export {
   graphSchema,

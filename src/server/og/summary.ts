@@ -1,7 +1,6 @@
 import "server-only";
-import type { Level } from "@/lib/engine";
+import { BLOCK_CLASS_WORD, effectiveLaunchAt, formatOutcome, type Level } from "@/lib/engine";
 import { computePaths, pathKey, reachableSubgraph } from "@/lib/explorer";
-import { BLOCK_CLASS_WORD, formatOutcome } from "@/lib/format";
 import type { SharedViewDto } from "@/server/db/queries/permalinks";
 
 /** What a link preview shows: the path's outline, or nothing of it for a link that is not public. */
@@ -19,7 +18,7 @@ export function summarizeSharedView(shared: SharedViewDto): PermalinkImageSummar
   if (shared.visibility !== "link") return { kind: "private" };
   const { view, data } = shared;
   const sub = reachableSubgraph(data.graph, view.root);
-  const launchAt = Math.max(data.game.launchAt, view.options.fastest);
+  const launchAt = effectiveLaunchAt(data.game.launchAt, view.options.fastest);
   const { paths } = computePaths(sub, view.root, { ...view.options, launchAt });
   const path = paths.find((p) => pathKey(p) === (view.path ?? "")) ?? paths.find((p) => p.edges.length === 0);
   if (!path) return { kind: "path", title: shared.title, input: view.root, levels: [], onBlock: "—", blockClass: "" };
