@@ -1,7 +1,7 @@
 import * as compiled from "../../src/lib/engine/compile";
 import type { CompiledGraph } from "../../src/lib/engine/compile";
 
-// Same module-local copy as the engine's walk, so neither pays for tsx's import getters.
+// A module-local copy, so the limit does not pay for tsx's import getters.
 const CANCEL = compiled.CANCEL;
 
 /**

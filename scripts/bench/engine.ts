@@ -24,16 +24,8 @@
  */
 import { execFileSync } from "node:child_process";
 import { fileURLToPath } from "node:url";
-import {
-  compileGraph,
-  createPathWalker,
-  explorePaths,
-  iteratePaths,
-  type CompiledGraph,
-  type ExploreOptions,
-  type PathResult,
-  type PathWalker,
-} from "../../src/lib/engine";
+import { compileGraph, type CompiledGraph, type ExploreOptions, type PathResult } from "../../src/lib/engine";
+import { createPathWalker, explorePaths, iteratePaths, type PathWalker } from "../../src/lib/engine/walk";
 import { bareWalk } from "./bare-walk";
 import { generateGraph } from "./generate";
 import { peerPaths } from "./peer";

@@ -27,8 +27,6 @@ export const ENTER = 2;
 export const LEVEL_CODE: Readonly<Record<Level, number>> = Object.freeze(
   Object.fromEntries(LEVELS.map((l, i) => [l, i])) as Record<Level, number>,
 );
-export const HIGH = LEVEL_CODE.high;
-export const LOW = LEVEL_CODE.low;
 
 export class EngineInputError extends Error {
   readonly issues: string[];
@@ -77,9 +75,6 @@ export class CompiledGraph {
   readonly edgeCombo: Uint8Array;
   readonly edgeBlockFrames: Float64Array;
   readonly edgeHitFrames: Float64Array;
-  /** Auto-guard levels of cancel e are agLevels[agStart[e] .. agStart[e + 1] - 1], no repeats. */
-  readonly agStart: Int32Array;
-  readonly agLevels: Uint8Array;
 
   constructor(graph: MoveGraph) {
     const issues = graphIssues(graph);
@@ -122,30 +117,19 @@ export class CompiledGraph {
     this.edgeCombo = new Uint8Array(m);
     this.edgeBlockFrames = new Float64Array(m).fill(Number.NaN);
     this.edgeHitFrames = new Float64Array(m).fill(Number.NaN);
-    this.agStart = new Int32Array(m + 1);
-    const ag: number[] = [];
     graph.edges.forEach((edge, e) => {
       // graphIssues has already guaranteed both ends exist.
       from[e] = index.get(edge.from) as number;
       to[e] = index.get(edge.to) as number;
       outDegree[from[e] as number]! += 1;
-      this.agStart[e] = ag.length;
       if (edge.kind === "follow") {
         this.edgeGap[e] = edge.gapOnBlock;
         this.edgeCombo[e] = edge.comboOnHit ? 1 : 0;
       } else if (edge.kind === "cancel") {
         this.edgeBlockFrames[e] = outcomeFrames(edge.onBlock);
         this.edgeHitFrames[e] = outcomeFrames(edge.onHit);
-        const seen = new Set<Level>();
-        for (const level of edge.autoGuard) {
-          if (seen.has(level)) continue;
-          seen.add(level);
-          ag.push(LEVEL_CODE[level]);
-        }
       }
     });
-    this.agStart[m] = ag.length;
-    this.agLevels = Uint8Array.from(ag);
 
     this.slotStart = new Int32Array(n + 1);
     for (let i = 0; i < n; i++) this.slotStart[i + 1] = this.slotStart[i]! + outDegree[i]!;

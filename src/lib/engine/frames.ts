@@ -44,8 +44,13 @@ export function classifyBlock(
  * numbers. Negative when the cancel leaves you worse off.
  */
 export function framesSaved(cancelOnBlock: Outcome, moveOnBlock: Outcome): number | null {
-  const saved = outcomeFrames(cancelOnBlock) - outcomeFrames(moveOnBlock);
+  const saved = framesSavedBetween(outcomeFrames(cancelOnBlock), outcomeFrames(moveOnBlock));
   return saved === saved ? saved : null;
+}
+
+/** framesSaved on frame numbers: `cancelAdvantage - moveAdvantage`, NaN when either is NaN (a state). */
+export function framesSavedBetween(cancelAdvantage: number, moveAdvantage: number): number {
+  return cancelAdvantage - moveAdvantage;
 }
 
 /**

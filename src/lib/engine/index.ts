@@ -3,17 +3,9 @@
  * cancels, with its frame outcome, block class, guards and guesses. Pure TypeScript:
  * callers validate with the schemas here before exploring.
  */
-export {
-  explorePaths,
-  explorePathsLimited,
-  iteratePaths,
-  countPaths,
-  createPathWalker,
-  resolveOptions,
-  PathWalker,
-} from "./walk";
+export { explorePaths, explorePathsLimited, iteratePaths, countPaths } from "./walk";
 export { topPaths, rankings, type TopOptions } from "./top";
-export { compileGraph, CompiledGraph, EngineInputError } from "./compile";
+export { compileGraph, type CompiledGraph, EngineInputError } from "./compile";
 export {
   classifyBlock,
   classifyFrames,
@@ -58,27 +50,5 @@ export {
   type BlockRules,
 } from "./frames";
 export { solveMatrixGame, type MatrixGameSolution } from "./solver";
-export {
-  graphSchema,
-  optionsSchema,
-  exploreRequestSchema,
-  nodeSchema,
-  edgeSchema,
-  moveNodeSchema,
-  stanceNodeSchema,
-  followEdgeSchema,
-  cancelEdgeSchema,
-  enterEdgeSchema,
-  outcomeSchema,
-  levelSchema,
-  stateSchema,
-  parseGraph,
-  parseOptions,
-  graphIssues,
-  LEVELS,
-  STATES,
-  MAX_DEPTH_LIMIT,
-  MAX_STANCE_VISITS_LIMIT,
-  type GraphIssue,
-} from "./schema";
+export { graphSchema, optionsSchema, exploreRequestSchema, parseGraph, LEVELS } from "./schema";
 export type * from "./types";

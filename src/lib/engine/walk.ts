@@ -1,9 +1,10 @@
-import * as compiled from "./compile";
-import { CompiledGraph, EngineInputError, compileGraph, type StepOutcome } from "./compile";
+import { CANCEL, FOLLOW, CompiledGraph, EngineInputError, compileGraph, type StepOutcome } from "./compile";
 import * as frames from "./frames";
-import * as schema from "./schema";
+import { GUARDS, defenderStanceAfter } from "./frames";
+import { LEVELS, optionsSchema } from "./schema";
 import type {
   BlockClass,
+  CancelEdge,
   DefenderStance,
   ExploreOptions,
   Gap,
@@ -16,17 +17,6 @@ import type {
   ResolvedOptions,
 } from "./types";
 
-// Module-local copies of imported bindings: a transpiler that turns imports into live
-// getters (tsx, vitest) would otherwise make every use in the hot loop a function call.
-const CANCEL = compiled.CANCEL;
-const FOLLOW = compiled.FOLLOW;
-const HIGH = compiled.HIGH;
-const LOW = compiled.LOW;
-const LEVELS = schema.LEVELS;
-const optionsSchema = schema.optionsSchema;
-const classifyFrames = frames.classifyFrames;
-const GUARDS = frames.GUARDS;
-
 export function resolveOptions(options?: ExploreOptions): ResolvedOptions {
   const parsed = optionsSchema.safeParse(options ?? {});
   if (!parsed.success) {
@@ -35,131 +25,91 @@ export function resolveOptions(options?: ExploreOptions): ResolvedOptions {
   return parsed.data;
 }
 
-// Per-depth info word: hit count, gap count and the combo and jail flags, so a step
-// writes one slot for all four. Hits and gaps are at most MAX_DEPTH_LIMIT (64): 7 bits each.
-const HITS = 0x7f;
-const GAP_SHIFT = 7;
-const GAP_ONE = 1 << GAP_SHIFT;
-const COMBO = 1 << 14;
-const JAIL = 1 << 15;
-const FLAGS = COMBO | JAIL;
-if (schema.MAX_DEPTH_LIMIT > HITS) throw new Error("info word too narrow for MAX_DEPTH_LIMIT");
+// The frame rules the walk calls once per path, as module-local bindings. Where imports
+// compile to getters (tsx, vitest), a call through one is not inlined and its number
+// arguments and result are boxed: streaming 10^6 paths took 107-123 ms that way against
+// 60-72 ms with these bindings (the bench's stream case, runs interleaved).
+const classifyFrames = frames.classifyFrames;
+const combosAtAdvantage = frames.combosAtAdvantage;
+const framesSavedBetween = frames.framesSavedBetween;
+const gapAtAdvantage = frames.gapAtAdvantage;
 
-/** What a step into a hit does to the info word: flags it keeps, and one more gap if it leaves one. */
-function stepBits(gap: number, combo: boolean): number {
-  return (combo ? COMBO : 0) | (gap <= 0 ? JAIL : 0) | (gap > 0 ? GAP_ONE : 0);
+/** A step into a hit jails there when its gap on block is known and `<= 0`. */
+function jailsAt(gap: number): boolean {
+  return gap <= 0;
+}
+
+/** A step into a hit leaves a gap when its gap on block is known and `> 0` (frames are whole, so `>= 1`). */
+function leavesGap(gap: number): boolean {
+  return gap > 0;
+}
+
+const EMPTY: readonly never[] = Object.freeze([]);
+
+/** A list at its own size: an array grown by push keeps spare room, and materialised paths are many. */
+function sized<T>(list: T[]): readonly T[] {
+  return list.length === 0 ? EMPTY : list.slice();
 }
 
 /**
- * Everything about a graph that is fixed for given `fastest` and `launchAt`, so reading
- * a path's block class or frames saved is one array read. Kept per compiled graph, as a
- * caller may run many short walks (a limited explore, a top-k) over one graph.
+ * The last walker made. Keeping one alive keeps V8's hidden class of walkers alive: when a
+ * garbage collection finds no walker, it drops the class and the optimised walk compiled
+ * for it, and the next walk starts over in the interpreter (streaming 10^6 paths after a
+ * collection: 102-143 ms without, 60-72 ms with). It holds the last graph walked until
+ * the next walk.
  */
-interface WalkTables {
-  readonly fastest: number;
-  readonly launchAt: number;
-  /**
-   * What a path's end decides, by its tail: move n ends at tail n, a stance entered by
-   * the cancel in slot s at tail nodeCount + s. Frames are NaN for a state or none.
-   */
-  readonly tailClass: readonly BlockClass[];
-  readonly tailSaved: Float64Array;
-  readonly tailFrames: Float64Array;
-  readonly tailOutcome: readonly StepOutcome[];
-  /** stepBits of the follow in slot s. */
-  readonly followStep: Int32Array;
-}
-
-const tablesByGraph = new WeakMap<CompiledGraph, WalkTables[]>();
-
-function walkTables(g: CompiledGraph, fastest: number, launchAt: number): WalkTables {
-  let list = tablesByGraph.get(g);
-  if (list === undefined) tablesByGraph.set(g, (list = []));
-  for (const t of list) if (t.fastest === fastest && t.launchAt === launchAt) return t;
-  const nodes = g.nodeCount;
-  const tails = nodes + g.slotEdge.length;
-  const tailClass = new Array<BlockClass>(tails);
-  const tailSaved = new Float64Array(tails).fill(Number.NaN);
-  const tailFrames = new Float64Array(tails).fill(Number.NaN);
-  // Tails that never end a path (stances, slots that are not cancels) get a move's outcome.
-  const tailOutcome = new Array<StepOutcome>(tails);
-  const followStep = new Int32Array(g.slotEdge.length);
-  const anyOutcome = g.nodeOutcome.find((o) => o !== undefined) as StepOutcome;
-  for (let n = 0; n < nodes; n++) {
-    tailFrames[n] = g.blockFrames[n]!;
-    tailClass[n] = classifyFrames(g.blockFrames[n]!, fastest, launchAt);
-    tailOutcome[n] = g.nodeOutcome[n] ?? anyOutcome;
-    for (let s = g.slotStart[n]!; s < g.slotStart[n + 1]!; s++) {
-      const e = g.slotEdge[s]!;
-      tailFrames[nodes + s] = g.edgeBlockFrames[e]!;
-      tailClass[nodes + s] = classifyFrames(g.edgeBlockFrames[e]!, fastest, launchAt);
-      tailOutcome[nodes + s] = g.edgeOutcome[e] ?? anyOutcome;
-      if (g.slotKind[s] === CANCEL) tailSaved[nodes + s] = g.edgeBlockFrames[e]! - g.blockFrames[n]!;
-      else if (g.slotKind[s] === FOLLOW) followStep[s] = stepBits(g.edgeGap[e]!, g.edgeCombo[e] === 1);
-    }
-  }
-  const t: WalkTables = { fastest, launchAt, tailClass, tailSaved, tailFrames, tailOutcome, followStep };
-  // A handful of option pairs per graph at most in practice; keep the newest few.
-  if (list.length >= 4) list.shift();
-  list.push(t);
-  return t;
-}
+const lastWalker: PathWalker[] = [];
 
 /**
- * A depth-first walk over every place a path may stop, one place per `advance()`.
+ * A depth-first walk over every place a path may stop (DESIGN.md, "Path semantics"), one
+ * place per `advance()`.
  *
- * The walker is itself the cursor: after `advance()` returns true its fields describe the
- * current path. A step deeper writes five slots of per-depth stacks (node, tail, next
- * out-slot, info word, damage) and going back is free. Everything else is derived from those when
- * read: the edge into depth i is the out-slot its parent last took (`sNext[i - 1] - 1`),
- * and lists (gaps, guards, auto-guard...) are rebuilt from the nodes and edges on the
- * path, as only materialising reads them. `toResult()` builds a detached copy.
+ * The walker is itself the cursor: after `advance()` returns true its getters describe the
+ * current path, the nodes at depths 0 .. d. Per depth it keeps the node, the next out-slot
+ * to try, and the running annotations a filter or a ranking reads (hits, damage, gap
+ * count, combo and jail), so those are one read and going back costs nothing. The lists
+ * (gaps, duckable, guards, mix-up points, auto-guard...) are rebuilt from the path's nodes
+ * and edges when read, as only materialising reads them. `toResult()` builds a detached copy.
  */
 export class PathWalker implements PathView {
   private readonly g: CompiledGraph;
   private readonly root: number;
   private readonly maxDepth: number;
   private readonly maxStanceVisits: number;
+  private readonly fastest: number;
+  private readonly launchAt: number;
 
-  // The compiled arrays the walk reads, one property load away instead of two.
-  private readonly isMove: Uint8Array;
-  private readonly level: Uint8Array;
-  private readonly nodeDamage: Float64Array;
-  private readonly startup: Float64Array;
-  private readonly slotStart: Int32Array;
-  private readonly slotEdge: Int32Array;
-  private readonly slotTo: Int32Array;
-  private readonly slotKind: Uint8Array;
-  private readonly edgeBlockFrames: Float64Array;
-  private readonly edgeHitFrames: Float64Array;
-  private readonly tailClass: readonly BlockClass[];
-  private readonly tailSaved: Float64Array;
-  private readonly tailFrames: Float64Array;
-  private readonly tailOutcome: readonly StepOutcome[];
-  private readonly followStep: Int32Array;
-
-  /** Index of the path's last node on the stacks; -1 before the first or after the last path. */
+  /** Depth of the path's last node; -1 before the first path and after the last. */
   private d = -1;
   private started = false;
 
-  // Per depth.
-  private readonly sNode: Int32Array;
-  /** The path's end so far, as a WalkTables tail: the end's getters read one table slot. */
-  private readonly sTail: Int32Array;
-  private readonly sNext: Int32Array;
-  private readonly sInfo: Int32Array;
-  private readonly sDamage: Float64Array;
+  // Per depth i: the node there, and the path up to it.
+  private readonly nodeAt: Int32Array;
+  /** The next out-slot of the node at depth i to try; the slot taken into depth i + 1 is one before it. */
+  private readonly nextSlotAt: Int32Array;
+  private readonly hitsAt: Int32Array;
+  private readonly damageAt: Float64Array;
+  /** The gap on block of the step into the hit at depth i (NaN: none known, a stance, or the first hit). */
+  private readonly gapAt: Float64Array;
+  /** Steps into a hit that leave a gap. */
+  private readonly gapCountAt: Int32Array;
+  /** 1 while every step into a hit after the first combos on hit. */
+  private readonly comboAt: Uint8Array;
+  /** 1 while every step into a hit after the first jails. */
+  private readonly jailAt: Uint8Array;
+  /** On-block advantage of the path ending at depth i: its move's, or the cancel's into its stance (NaN: a state). */
+  private readonly onBlockAt: Float64Array;
 
+  /** Times each stance is on the current path. */
   private readonly visits: Int32Array;
-  private readonly agOrder: Uint8Array;
 
-  // The input of each depth's path, kept once built: a child's input is its parent's plus
-  // one edge, so materialising in walk order costs one string per path. The cache of
-  // depth i holds while the out-slots taken at depths 0 .. i - 1 are those it was built
-  // on (inputKey[1 .. i]): checked when read, so walking costs nothing for it. Rebuilding
-  // depth i voids depth i + 1, so a matching key also means a matching prefix.
-  private readonly inputKey: Int32Array;
+  /**
+   * The input of the path up to each depth: a child's is its parent's plus one edge's, so
+   * materialising in walk order builds one string per path. inputAt[0 .. inputBuilt] belong
+   * to the current path; a step to depth i leaves 0 .. i - 1 of them standing.
+   */
   private readonly inputAt: string[];
+  private inputBuilt = 0;
 
   constructor(graph: MoveGraph | CompiledGraph, rootId: string, options?: ExploreOptions) {
     const g = compileGraph(graph);
@@ -168,165 +118,185 @@ export class PathWalker implements PathView {
     this.root = g.require(rootId);
     this.maxDepth = o.maxDepth;
     this.maxStanceVisits = o.maxStanceVisits;
-    const t = walkTables(g, o.fastest, o.launchAt);
-    this.isMove = g.isMove;
-    this.level = g.level;
-    this.nodeDamage = g.damage;
-    this.startup = g.startup;
-    this.slotStart = g.slotStart;
-    this.slotEdge = g.slotEdge;
-    this.slotTo = g.slotTo;
-    this.slotKind = g.slotKind;
-    this.edgeBlockFrames = g.edgeBlockFrames;
-    this.edgeHitFrames = g.edgeHitFrames;
-    this.tailClass = t.tailClass;
-    this.tailSaved = t.tailSaved;
-    this.tailFrames = t.tailFrames;
-    this.tailOutcome = t.tailOutcome;
-    this.followStep = t.followStep;
+    this.fastest = o.fastest;
+    this.launchAt = o.launchAt;
     // At most maxDepth moves, each stance is preceded by a move except a stance root.
     const size = 2 * o.maxDepth + 2;
-    this.sNode = new Int32Array(size);
-    this.sTail = new Int32Array(size);
-    this.sNext = new Int32Array(size);
-    this.sInfo = new Int32Array(size);
-    this.sDamage = new Float64Array(size);
+    this.nodeAt = new Int32Array(size);
+    this.nextSlotAt = new Int32Array(size);
+    this.hitsAt = new Int32Array(size);
+    this.damageAt = new Float64Array(size);
+    this.gapAt = new Float64Array(size);
+    this.gapCountAt = new Int32Array(size);
+    this.comboAt = new Uint8Array(size);
+    this.jailAt = new Uint8Array(size);
+    this.onBlockAt = new Float64Array(size);
     this.visits = new Int32Array(g.nodeCount);
-    this.agOrder = new Uint8Array(LEVELS.length);
-    this.inputKey = new Int32Array(size).fill(-1);
     this.inputAt = new Array<string>(size).fill("");
     const first = g.nodes[this.root]!;
     this.inputAt[0] = first.kind === "move" ? first.input : "";
-  }
-
-  /** Starts the walk over, so one walker can serve several passes. */
-  reset(): this {
-    this.d = -1;
-    this.started = false;
-    this.visits.fill(0);
-    return this;
+    lastWalker[0] = this;
   }
 
   /** Moves to the next path; false when every path has been visited. */
   advance(): boolean {
-    if (this.d < 0) {
-      if (this.started) return false;
+    if (!this.started) {
       this.started = true;
-      return this.pushRoot();
+      return this.start();
     }
-    return this.descend();
+    return this.d >= 0 && this.nextPath();
   }
 
-  private pushRoot(): boolean {
+  /** The first path: the root move alone, or for a stance root the first hit after it. */
+  private start(): boolean {
+    const g = this.g;
     const r = this.root;
-    this.sNode[0] = r;
-    this.sTail[0] = r;
-    this.sNext[0] = this.slotStart[r]!;
     this.d = 0;
-    if (this.isMove[r]) {
-      this.sInfo[0] = FLAGS | 1;
-      this.sDamage[0] = this.nodeDamage[r]!;
-      return true;
-    }
+    this.nodeAt[0] = r;
+    this.nextSlotAt[0] = g.slotStart[r]!;
+    this.hitsAt[0] = g.isMove[r]!;
+    this.damageAt[0] = g.damage[r]!;
+    this.onBlockAt[0] = g.blockFrames[r]!;
+    this.gapAt[0] = Number.NaN;
+    this.gapCountAt[0] = 0;
+    this.comboAt[0] = 1;
+    this.jailAt[0] = 1;
+    if (g.isMove[r]) return true;
     // A stance root alone has no hit and so no outcome: it is not a path, only a start.
     if (this.maxStanceVisits < 1) {
       this.d = -1;
       return false;
     }
     this.visits[r] = 1;
-    // The path's first hit opens it, with nothing before it to combo or jail with.
-    this.sInfo[0] = FLAGS;
-    this.sDamage[0] = 0;
-    return this.descend();
+    return this.nextPath();
   }
 
-  // One function for the whole step, pushes included: it runs once per path.
-  private descend(): boolean {
-    const slotStart = this.slotStart;
-    const slotKind = this.slotKind;
-    const slotTo = this.slotTo;
-    const sNode = this.sNode;
-    const sTail = this.sTail;
-    const sNext = this.sNext;
-    const sInfo = this.sInfo;
-    const cancelTail = this.isMove.length;
-    const sDamage = this.sDamage;
-    const visits = this.visits;
-    const maxDepth = this.maxDepth;
-    const maxVisits = this.maxStanceVisits;
-    let d = this.d;
-    while (d >= 0) {
-      const n = sNode[d]!;
-      const end = slotStart[n + 1]!;
-      let slot = sNext[d]!;
-      while (slot < end) {
-        const kind = slotKind[slot]!;
-        const to = slotTo[slot]!;
-        if (kind === CANCEL) {
-          if (visits[to]! < maxVisits) {
-            visits[to]!++;
-            sNext[d] = slot + 1;
-            sNode[d + 1] = to;
-            sTail[d + 1] = cancelTail + slot;
-            sNext[d + 1] = slotStart[to]!;
-            sInfo[d + 1] = sInfo[d]!;
-            sDamage[d + 1] = sDamage[d]!;
-            this.d = d + 1;
-            return true;
-          }
-        } else {
-          const info = sInfo[d]!;
-          if ((info & HITS) < maxDepth) {
-            sNext[d] = slot + 1;
-            let step: number;
-            if ((info & HITS) === 0) step = FLAGS;
-            else if (kind === FOLLOW) step = this.followStep[slot]!;
-            else step = this.enterStep(sNext[d - 1]! - 1, to);
-            sNode[d + 1] = to;
-            sTail[d + 1] = to;
-            sNext[d + 1] = slotStart[to]!;
-            sInfo[d + 1] = (info & (step | ~FLAGS)) + 1 + (step & GAP_ONE);
-            sDamage[d + 1] = sDamage[d]! + this.nodeDamage[to]!;
-            this.d = d + 1;
-            return true;
-          }
+  /** One step of the depth-first order: deeper by the next edge the bounds allow, else back up and try again. */
+  private nextPath(): boolean {
+    const g = this.g;
+    for (let d = this.d; d >= 0; d--) {
+      const n = this.nodeAt[d]!;
+      const end = g.slotStart[n + 1]!;
+      for (let slot = this.nextSlotAt[d]!; slot < end; slot++) {
+        if (this.mayTake(d, slot)) {
+          this.nextSlotAt[d] = slot + 1;
+          this.stepTo(d + 1, g.slotTo[slot]!);
+          return true;
         }
-        slot++;
       }
-      if (!this.isMove[n]) visits[n]!--;
-      d--;
+      if (!g.isMove[n]) this.visits[n]!--;
     }
     this.d = -1;
     return false;
   }
 
+  /** The bounds: a move while the path has fewer than maxDepth hits, a stance while it is on the path fewer than maxStanceVisits times. */
+  private mayTake(d: number, slot: number): boolean {
+    const to = this.g.slotTo[slot]!;
+    return this.g.isMove[to] ? this.hitsAt[d]! < this.maxDepth : this.visits[to]! < this.maxStanceVisits;
+  }
+
+  /** Puts node `to` at depth i, reached from depth i - 1, with the path's running annotations there. */
+  private stepTo(i: number, to: number): void {
+    const g = this.g;
+    this.d = i;
+    this.nodeAt[i] = to;
+    this.nextSlotAt[i] = g.slotStart[to]!;
+    if (this.inputBuilt >= i) this.inputBuilt = i - 1;
+    if (g.isMove[to]) {
+      this.addHit(i);
+    } else {
+      this.visits[to]!++;
+      this.keepAnnotations(i);
+    }
+  }
+
+  /** The hit at depth i: its damage, and what the step into it does to the combo, the jail and the gaps. */
+  private addHit(i: number): void {
+    const before = i - 1;
+    const hit = this.nodeAt[i]!;
+    this.hitsAt[i] = this.hitsAt[before]! + 1;
+    this.damageAt[i] = this.damageAt[before]! + this.g.damage[hit]!;
+    this.onBlockAt[i] = this.g.blockFrames[hit]!;
+    if (this.hitsAt[before] === 0) {
+      // The path's first hit (after a stance root) opens it: nothing before it to combo or jail with.
+      this.gapAt[i] = Number.NaN;
+      this.gapCountAt[i] = 0;
+      this.comboAt[i] = 1;
+      this.jailAt[i] = 1;
+      return;
+    }
+    const gap = this.gapInto(i);
+    this.gapAt[i] = gap;
+    this.gapCountAt[i] = this.gapCountAt[before]! + (leavesGap(gap) ? 1 : 0);
+    this.comboAt[i] = this.comboAt[before] === 1 && this.combosInto(i) ? 1 : 0;
+    this.jailAt[i] = this.jailAt[before] === 1 && jailsAt(gap) ? 1 : 0;
+  }
+
+  /** A stance at depth i: no hit, so the path's annotations stay those of depth i - 1, but for the cancel's advantage. */
+  private keepAnnotations(i: number): void {
+    const before = i - 1;
+    this.onBlockAt[i] = this.g.edgeBlockFrames[this.edgeInto(i)]!;
+    this.gapAt[i] = Number.NaN;
+    this.hitsAt[i] = this.hitsAt[before]!;
+    this.damageAt[i] = this.damageAt[before]!;
+    this.gapCountAt[i] = this.gapCountAt[before]!;
+    this.comboAt[i] = this.comboAt[before]!;
+    this.jailAt[i] = this.jailAt[before]!;
+  }
+
+  // ---- The steps of the current path, by depth. ----
+
+  /** The out-slot taken into depth i >= 1. */
+  private slotInto(i: number): number {
+    return this.nextSlotAt[i - 1]! - 1;
+  }
+
+  /** The edge taken into depth i >= 1. */
+  private edgeInto(i: number): number {
+    return this.g.slotEdge[this.slotInto(i)]!;
+  }
+
+  /** The cancel right before the step into depth i, or -1: only cancels lead into a stance. */
+  private cancelBefore(i: number): number {
+    return i >= 2 && !this.g.isMove[this.nodeAt[i - 1]!] ? this.edgeInto(i - 1) : -1;
+  }
+
   /**
-   * stepBits of an enter into move t right after the cancel in slot c: a follow-up at the
-   * cancel's advantage (NaN frames for a state: no gap known, no combo).
+   * The gap on block of the step into the hit at depth i (NaN: none known): a follow's own,
+   * or for an enter after a cancel that of a follow-up at the cancel's advantage.
    */
-  private enterStep(c: number, t: number): number {
-    const e = this.slotEdge[c]!;
-    const s = this.startup[t]!;
-    return stepBits(s - this.edgeBlockFrames[e]! - 1, s <= this.edgeHitFrames[e]!);
-  }
-
-  /** Info-word bits of the step into the move at depth i >= 1, when it is not the path's first hit. */
-  private stepInto(i: number): number {
-    const slot = this.sNext[i - 1]! - 1;
-    return this.slotKind[slot] === FOLLOW
-      ? this.followStep[slot]!
-      : this.enterStep(this.sNext[i - 2]! - 1, this.sNode[i]!);
-  }
-
-  /** The gap on block of that step (NaN: none known). */
   private gapInto(i: number): number {
-    const slot = this.sNext[i - 1]! - 1;
-    const e = this.slotEdge[slot]!;
-    if (this.slotKind[slot] === FOLLOW) return this.g.edgeGap[e]!;
-    return this.startup[this.sNode[i]!]! - this.edgeBlockFrames[this.slotEdge[this.sNext[i - 2]! - 1]!]! - 1;
+    const g = this.g;
+    const slot = this.slotInto(i);
+    if (g.slotKind[slot] === FOLLOW) return g.edgeGap[g.slotEdge[slot]!]!;
+    const cancel = this.cancelBefore(i);
+    return cancel < 0 ? Number.NaN : gapAtAdvantage(g.edgeBlockFrames[cancel]!, g.startup[this.nodeAt[i]!]!);
   }
 
-  // ---- The current path. Scalars are O(1); arrays are built on read. ----
+  /** Whether the step into the hit at depth i combos on hit: as gapInto, with the cancel's on-hit advantage. */
+  private combosInto(i: number): boolean {
+    const g = this.g;
+    const slot = this.slotInto(i);
+    if (g.slotKind[slot] === FOLLOW) return g.edgeCombo[g.slotEdge[slot]!] === 1;
+    const cancel = this.cancelBefore(i);
+    return cancel >= 0 && combosAtAdvantage(g.edgeHitFrames[cancel]!, g.startup[this.nodeAt[i]!]!);
+  }
+
+  private isHitAt(i: number): boolean {
+    return this.g.isMove[this.nodeAt[i]!] === 1;
+  }
+
+  private levelAt(i: number): Level {
+    return LEVELS[this.g.level[this.nodeAt[i]!]!]!;
+  }
+
+  /** Depth of the path's last hit: the last node, or the move before a stance it ends in. */
+  private lastHitDepth(): number {
+    return this.isHitAt(this.d) ? this.d : this.d - 1;
+  }
+
+  // ---- The current path: one getter per field. ----
 
   /** Number of nodes on the current path. */
   get length(): number {
@@ -335,19 +305,21 @@ export class PathWalker implements PathView {
 
   /** Number of hits (move nodes) on the current path. */
   get hitCount(): number {
-    return this.sInfo[this.d]! & HITS;
+    return this.hitsAt[this.d]!;
   }
 
   get damage(): number {
-    return this.sDamage[this.d]!;
+    return this.damageAt[this.d]!;
   }
 
   get endsIn(): "move" | "stance" {
-    return this.isMove[this.sNode[this.d]!] ? "move" : "stance";
+    return this.isHitAt(this.d) ? "move" : "stance";
   }
 
+  /** The last step's outcome: the last move's, or the cancel's when the path ends in a stance. */
   private lastStep(): StepOutcome {
-    return this.tailOutcome[this.sTail[this.d]!]!;
+    const d = this.d;
+    return this.isHitAt(d) ? this.g.nodeOutcome[this.nodeAt[d]!]! : this.g.edgeOutcome[this.edgeInto(d)]!;
   }
 
   get onBlock(): Outcome {
@@ -362,176 +334,114 @@ export class PathWalker implements PathView {
     return this.lastStep().onCounterHit;
   }
 
-  /** The numeric on-block advantage, NaN for a state: cheap to rank by. */
+  /** The numeric on-block advantage of the last step, NaN for a state: cheap to rank by. */
   get onBlockFrames(): number {
-    return this.tailFrames[this.sTail[this.d]!]!;
+    return this.onBlockAt[this.d]!;
   }
 
+  /** A path ending in a stance ends in a cancel right after its last move. */
   get framesSaved(): number | null {
-    const saved = this.tailSaved[this.sTail[this.d]!]!;
+    const d = this.d;
+    if (this.isHitAt(d)) return null;
+    const saved = framesSavedBetween(this.onBlockAt[d]!, this.onBlockAt[d - 1]!);
     return saved === saved ? saved : null;
   }
 
   get blockClass(): BlockClass {
-    return this.tailClass[this.sTail[this.d]!]!;
+    return classifyFrames(this.onBlockFrames, this.fastest, this.launchAt);
   }
 
   get defenderStance(): DefenderStance {
-    const d = this.d;
-    if ((this.sInfo[d]! & HITS) === 0) return "standing";
-    const n = this.sNode[d]!;
-    // A stance on a path is entered by a cancel, right after a hit.
-    const last = this.isMove[n] ? n : this.sNode[d - 1]!;
-    return this.level[last] === LOW ? "crouching" : "standing";
+    return defenderStanceAfter(this.levelAt(this.lastHitDepth()));
   }
 
   get naturalCombo(): boolean {
-    return (this.sInfo[this.d]! & COMBO) !== 0;
+    return this.comboAt[this.d] === 1;
   }
 
   get jails(): boolean {
-    return (this.sInfo[this.d]! & JAIL) !== 0;
+    return this.jailAt[this.d] === 1;
   }
 
   get gapCount(): number {
-    return (this.sInfo[this.d]! >> GAP_SHIFT) & HITS;
+    return this.gapCountAt[this.d]!;
   }
 
   get nodes(): string[] {
-    const ids = this.g.nodeIds;
-    const d = this.d;
-    // Sized up front: a pushed-into array over-allocates, and materialised paths are many.
-    const out = new Array<string>(d + 1);
-    for (let i = 0; i <= d; i++) out[i] = ids[this.sNode[i]!]!;
+    const out = new Array<string>(this.d + 1);
+    for (let i = 0; i <= this.d; i++) out[i] = this.g.nodeIds[this.nodeAt[i]!]!;
     return out;
   }
 
   get edges(): readonly string[] {
-    const d = this.d;
-    if (d === 0) return EMPTY;
-    const ids = this.g.edgeIds;
-    const out = new Array<string>(d);
-    for (let i = 1; i <= d; i++) out[i - 1] = ids[this.slotEdge[this.sNext[i - 1]! - 1]!]!;
+    if (this.d === 0) return EMPTY;
+    const out = new Array<string>(this.d);
+    for (let i = 1; i <= this.d; i++) out[i - 1] = this.g.edgeIds[this.edgeInto(i)]!;
     return out;
   }
 
   get input(): string {
-    const d = this.d;
-    const sNext = this.sNext;
-    const key = this.inputKey;
-    const at = this.inputAt;
-    let i = 1;
-    while (i <= d && key[i] === sNext[i - 1]) i++;
-    if (i > d) return at[d]!;
-    const inputs = this.g.edgeInputs;
-    for (; i <= d; i++) {
-      const taken = sNext[i - 1]!;
-      at[i] = at[i - 1]! + inputs[this.slotEdge[taken - 1]!]!;
-      key[i] = taken;
+    for (let i = this.inputBuilt + 1; i <= this.d; i++) {
+      this.inputAt[i] = this.inputAt[i - 1]! + this.g.edgeInputs[this.edgeInto(i)]!;
     }
-    // Deeper caches were built on the old prefix.
-    if (d + 1 < key.length) key[d + 1] = -1;
-    return at[d]!;
+    if (this.inputBuilt < this.d) this.inputBuilt = this.d;
+    return this.inputAt[this.d]!;
+  }
+
+  /** The depths of the path's hits, in order. */
+  private hitDepths(): number[] {
+    const out = new Array<number>(this.hitsAt[this.d]!);
+    for (let i = 0, h = 0; i <= this.d; i++) if (this.isHitAt(i)) out[h++] = i;
+    return out;
   }
 
   get levels(): Level[] {
-    const hits = this.sInfo[this.d]! & HITS;
-    const out = new Array<Level>(hits);
-    let h = 0;
-    for (let i = 0; h < hits; i++) {
-      const n = this.sNode[i]!;
-      if (this.isMove[n]) out[h++] = LEVELS[this.level[n]!]!;
-    }
-    return out;
+    return this.hitDepths().map((i) => this.levelAt(i));
   }
 
-  /** The per-hit guard lists are shared frozen arrays, one per level. */
+  /** The per-hit guard lists are the shared frozen arrays of frames.ts, one per level. */
   get guards(): (readonly Guard[])[] {
-    const hits = this.sInfo[this.d]! & HITS;
-    const out = new Array<readonly Guard[]>(hits);
-    let h = 0;
-    for (let i = 0; h < hits; i++) {
-      const n = this.sNode[i]!;
-      if (this.isMove[n]) out[h++] = GUARDS_BY_CODE[this.level[n]!]!;
-    }
-    return out;
+    return this.hitDepths().map((i) => GUARDS[this.levelAt(i)]);
   }
 
   get gaps(): readonly Readonly<Gap>[] {
-    const len = (this.sInfo[this.d]! >> GAP_SHIFT) & HITS;
-    if (len === 0) return EMPTY;
-    const out = new Array<Gap>(len);
-    let k = 0;
-    let h = 0;
-    for (let i = 0; k < len; i++) {
-      if (!this.isMove[this.sNode[i]!]) continue;
-      if (h > 0 && (this.stepInto(i) & GAP_ONE) !== 0) out[k++] = { after: h - 1, frames: this.gapInto(i) };
-      h++;
+    if (this.gapCount === 0) return EMPTY;
+    const hits = this.hitDepths();
+    const out: Gap[] = [];
+    for (let h = 1; h < hits.length; h++) {
+      const gap = this.gapAt[hits[h]!]!;
+      if (leavesGap(gap)) out.push({ after: h - 1, frames: gap });
     }
-    return out;
+    return sized(out);
   }
 
   get duckable(): readonly number[] {
-    const d = this.d;
-    // Counted first so the list is allocated at its size: a pushed-into array over-allocates.
-    let count = 0;
-    for (let i = 0, h = 0; i <= d; i++) {
-      const n = this.sNode[i]!;
-      if (!this.isMove[n]) continue;
-      if (this.level[n] === HIGH && (h === 0 || (this.stepInto(i) & GAP_ONE) !== 0)) count++;
-      h++;
+    const hits = this.hitDepths();
+    const out: number[] = [];
+    for (let h = 0; h < hits.length; h++) {
+      const i = hits[h]!;
+      if (this.levelAt(i) === "high" && (h === 0 || leavesGap(this.gapAt[i]!))) out.push(h);
     }
-    if (count === 0) return EMPTY;
-    const out = new Array<number>(count);
-    for (let i = 0, h = 0, k = 0; k < count; i++) {
-      const n = this.sNode[i]!;
-      if (!this.isMove[n]) continue;
-      if (this.level[n] === HIGH && (h === 0 || (this.stepInto(i) & GAP_ONE) !== 0)) out[k++] = h;
-      h++;
-    }
-    return out;
+    return sized(out);
   }
 
   get mixupPoints(): readonly string[] {
-    const d = this.d;
-    const mixup = this.g.mixup;
-    let count = 0;
-    for (let i = 0; i <= d; i++) count += mixup[this.sNode[i]!]!;
-    if (count === 0) return EMPTY;
-    const ids = this.g.nodeIds;
-    const out = new Array<string>(count);
-    let k = 0;
-    for (let i = 0; k < count; i++) {
-      const n = this.sNode[i]!;
-      if (mixup[n]) out[k++] = ids[n]!;
+    const out: string[] = [];
+    for (let i = 0; i <= this.d; i++) {
+      const n = this.nodeAt[i]!;
+      if (this.g.mixup[n]) out.push(this.g.nodeIds[n]!);
     }
-    return out;
+    return sized(out);
   }
 
   get autoGuard(): readonly Level[] {
-    const d = this.d;
-    const g = this.g;
-    // Levels in first-seen order, kept in a small buffer, then copied out at their count.
-    const order = this.agOrder;
-    let count = 0;
-    let mask = 0;
-    for (let i = 1; i <= d; i++) {
-      if (this.isMove[this.sNode[i]!]) continue;
-      const e = this.slotEdge[this.sNext[i - 1]! - 1]!;
-      const end = g.agStart[e + 1]!;
-      for (let k = g.agStart[e]!; k < end; k++) {
-        const level = g.agLevels[k]!;
-        const bit = 1 << level;
-        if ((mask & bit) === 0) {
-          mask |= bit;
-          order[count++] = level;
-        }
-      }
+    const out: Level[] = [];
+    for (let i = 1; i <= this.d; i++) {
+      if (this.g.slotKind[this.slotInto(i)] !== CANCEL) continue;
+      const cancel = this.g.edges[this.edgeInto(i)] as CancelEdge;
+      for (const level of cancel.autoGuard) if (!out.includes(level)) out.push(level);
     }
-    if (count === 0) return EMPTY;
-    const out = new Array<Level>(count);
-    for (let k = 0; k < count; k++) out[k] = LEVELS[order[k]!]!;
-    return out;
+    return sized(out);
   }
 
   /** A PathResult of the current path that stays valid after the walk moves on. */
@@ -560,9 +470,6 @@ export class PathWalker implements PathView {
     };
   }
 }
-
-const GUARDS_BY_CODE: readonly (readonly Guard[])[] = LEVELS.map((level) => GUARDS[level]);
-const EMPTY: readonly never[] = Object.freeze([]);
 
 export function createPathWalker(
   graph: MoveGraph | CompiledGraph,
@@ -614,10 +521,6 @@ export function countPaths(
 ): number {
   const walker = new PathWalker(graph, rootId, options);
   let count = 0;
-  if (filter === undefined) {
-    while (walker.advance()) count++;
-  } else {
-    while (walker.advance()) if (filter(walker)) count++;
-  }
+  while (walker.advance()) if (filter === undefined || filter(walker)) count++;
   return count;
 }
