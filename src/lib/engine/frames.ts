@@ -156,6 +156,11 @@ export function gapJails(gap: number): boolean {
   return gap <= 0;
 }
 
+/** A known gap of 1 frame or more: the defender may act there, and a high after it can be ducked. False for NaN. */
+export function gapOpens(gap: number): boolean {
+  return gap > 0;
+}
+
 /** Who acts first after an exchange with this outcome; `state` when it is not a frame count. */
 export type AdvantageSide = "attacker" | "even" | "defender" | "state";
 

@@ -33,16 +33,8 @@ const classifyFrames = frames.classifyFrames;
 const combosAtAdvantage = frames.combosAtAdvantage;
 const framesSavedBetween = frames.framesSavedBetween;
 const gapAtAdvantage = frames.gapAtAdvantage;
-
-/** A step into a hit jails there when its gap on block is known and `<= 0`. */
-function jailsAt(gap: number): boolean {
-  return gap <= 0;
-}
-
-/** A step into a hit leaves a gap when its gap on block is known and `> 0` (frames are whole, so `>= 1`). */
-function leavesGap(gap: number): boolean {
-  return gap > 0;
-}
+const gapJails = frames.gapJails;
+const gapOpens = frames.gapOpens;
 
 const EMPTY: readonly never[] = Object.freeze([]);
 
@@ -228,9 +220,9 @@ export class PathWalker implements PathView {
     }
     const gap = this.gapInto(i);
     this.gapAt[i] = gap;
-    this.gapCountAt[i] = this.gapCountAt[before]! + (leavesGap(gap) ? 1 : 0);
+    this.gapCountAt[i] = this.gapCountAt[before]! + (gapOpens(gap) ? 1 : 0);
     this.comboAt[i] = this.comboAt[before] === 1 && this.combosInto(i) ? 1 : 0;
-    this.jailAt[i] = this.jailAt[before] === 1 && jailsAt(gap) ? 1 : 0;
+    this.jailAt[i] = this.jailAt[before] === 1 && gapJails(gap) ? 1 : 0;
   }
 
   /** A stance at depth i: no hit, so the path's annotations stay those of depth i - 1, but for the cancel's advantage. */
@@ -410,7 +402,7 @@ export class PathWalker implements PathView {
     const out: Gap[] = [];
     for (let h = 1; h < hits.length; h++) {
       const gap = this.gapAt[hits[h]!]!;
-      if (leavesGap(gap)) out.push({ after: h - 1, frames: gap });
+      if (gapOpens(gap)) out.push({ after: h - 1, frames: gap });
     }
     return sized(out);
   }
@@ -420,7 +412,7 @@ export class PathWalker implements PathView {
     const out: number[] = [];
     for (let h = 0; h < hits.length; h++) {
       const i = hits[h]!;
-      if (this.levelAt(i) === "high" && (h === 0 || leavesGap(this.gapAt[i]!))) out.push(h);
+      if (this.levelAt(i) === "high" && (h === 0 || gapOpens(this.gapAt[i]!))) out.push(h);
     }
     return sized(out);
   }
