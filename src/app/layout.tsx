@@ -4,6 +4,7 @@ import "@fontsource/jetbrains-mono/700.css";
 import "./globals.css";
 import type { Metadata, Viewport } from "next";
 import { SiteHeader } from "@/components/site-header";
+import { auth } from "@/server/auth";
 
 export function generateMetadata(): Metadata {
   return {
@@ -17,7 +18,8 @@ export function generateMetadata(): Metadata {
 
 export const viewport: Viewport = { themeColor: "#0b0d12", width: "device-width", initialScale: 1 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  const user = await auth();
   return (
     <html lang="en" className="dark">
       <body>
@@ -27,7 +29,7 @@ export default function RootLayout({ children }: { children: React.ReactNode }) 
         >
           Skip to content
         </a>
-        <SiteHeader />
+        <SiteHeader user={user} />
         <main id="main" className="mx-auto w-full max-w-7xl px-4 py-6 sm:px-6">
           {children}
         </main>

@@ -2,7 +2,7 @@ import "server-only";
 import type { Level } from "@/lib/engine";
 import { computePaths, pathKey, reachableSubgraph } from "@/lib/explorer";
 import { BLOCK_CLASS_WORD, formatOutcome } from "@/lib/format";
-import type { SharedViewDto } from "@/server/db/queries/permalinks";
+import type { SharedViewDto } from "@/lib/dto";
 
 /** What a link preview shows: the path's outline, or nothing of it for a link that is not public. */
 export type PermalinkImageSummary =
