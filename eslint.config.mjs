@@ -32,6 +32,15 @@ const config = [
       // A delete or update without a where clause touches every row.
       "drizzle/enforce-delete-with-where": ["error", { drizzleObjectName: ["db", "tx"] }],
       "drizzle/enforce-update-with-where": ["error", { drizzleObjectName: ["db", "tx"] }],
+      // Those two rules know a handle only by its name: a write on `getDb()` itself goes unchecked.
+      "no-restricted-syntax": [
+        "error",
+        {
+          selector:
+            "CallExpression[callee.type='MemberExpression'][callee.property.name=/^(update|delete)$/][callee.object.type='CallExpression'][callee.object.callee.name='getDb']",
+          message: "Write `const db = getDb();` and call db.update / db.delete, so the where-clause rules check it.",
+        },
+      ],
     },
   },
   {
