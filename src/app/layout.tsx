@@ -11,6 +11,7 @@ export function generateMetadata(): Metadata {
     // Link previews (a permalink's image) need absolute addresses: the app's own, from the environment.
     metadataBase: new URL(env().NEXTAUTH_URL),
     title: { default: "Framefork", template: "%s · Framefork" },
+    icons: { icon: { url: "/icon.svg", type: "image/svg+xml" } },
     description:
       "Every string and stance cancel of a fighting-game character as a branching graph, with the frame advantage of every path.",
   };
