@@ -4,12 +4,14 @@ import "@fontsource/jetbrains-mono/700.css";
 import "./globals.css";
 import type { Metadata, Viewport } from "next";
 import { SiteHeader } from "@/components/site-header";
+import { auth } from "@/server/auth";
 
 export function generateMetadata(): Metadata {
   return {
     // Link previews (a permalink's image) need absolute addresses: the app's own, from the environment.
     metadataBase: new URL(env().NEXTAUTH_URL),
     title: { default: "Framefork", template: "%s · Framefork" },
+    icons: { icon: { url: "/icon.svg", type: "image/svg+xml" } },
     description:
       "Every string and stance cancel of a fighting-game character as a branching graph, with the frame advantage of every path.",
   };
@@ -17,7 +19,8 @@ export function generateMetadata(): Metadata {
 
 export const viewport: Viewport = { themeColor: "#0b0d12", width: "device-width", initialScale: 1 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  const user = await auth();
   return (
     <html lang="en" className="dark">
       <body>
@@ -27,7 +30,7 @@ export default function RootLayout({ children }: { children: React.ReactNode }) 
         >
           Skip to content
         </a>
-        <SiteHeader />
+        <SiteHeader user={user} />
         <main id="main" className="mx-auto w-full max-w-7xl px-4 py-6 sm:px-6">
           {children}
         </main>

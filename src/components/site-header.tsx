@@ -1,9 +1,8 @@
 import Link from "next/link";
-import { auth } from "@/server/auth";
 import { SignOutButton } from "./sign-out-button";
 
-export async function SiteHeader() {
-  const user = await auth();
+/** The top bar; the root layout reads the session and passes the signed-in user, or null. */
+export function SiteHeader({ user }: { user: { email: string; name: string | null } | null }) {
   return (
     <header className="border-b border-ink-800 bg-ink-900/80">
       <nav

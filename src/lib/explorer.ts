@@ -104,6 +104,23 @@ export function hitOnBlockBeforeCancel(
 /** A path's identity in the URL: its edge ids (a node id alone is ambiguous in stance cycles). */
 export const pathKey = (p: Pick<PathResult, "edges">) => p.edges.join("|");
 
+export interface ExplorerOptions {
+  maxDepth: number;
+  maxStanceVisits: number;
+  fastest: number;
+}
+
+/** The Explorer's view: what its store holds and a permalink opens on. */
+export interface ExplorerState {
+  /** The Edition's slug; switching it fetches that Edition's graph, without a navigation. */
+  edition: string;
+  /** The selected path, by its edge ids joined (see `pathKey`); "" is the root alone. */
+  selected: string | null;
+  options: ExplorerOptions;
+  /** The character whose moves punish the ending; null: the same character. */
+  opponent: number | null;
+}
+
 /** What the Explorer keeps in the search params, so a reload or a shared address opens the same view. */
 export const explorerSearchSchema = z.object({
   edition: z

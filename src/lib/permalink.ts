@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { atLeast, type Role } from "./roles";
 import type { MoveGraph } from "@/lib/engine";
-import type { ExplorerOptions, ExplorerState } from "@/stores/explorer-store";
+import type { ExplorerOptions, ExplorerState } from "@/lib/explorer";
 
 /**
  * A Permalink's view of the Explorer: what it opens on. The Edition is not

@@ -2,7 +2,8 @@ import "server-only";
 import { AppError } from "@/lib/errors";
 import { requireRole } from "./authz";
 import type { Role } from "./db/schema";
-import { getTeamBySlug, type TeamDto } from "./db/queries/teams";
+import type { TeamDto } from "@/lib/dto";
+import { getTeamBySlug } from "./db/queries/teams";
 import type { SessionUser } from "./auth";
 
 /**

@@ -1,20 +1,5 @@
 import { createStore } from "zustand/vanilla";
-
-export interface ExplorerOptions {
-  maxDepth: number;
-  maxStanceVisits: number;
-  fastest: number;
-}
-
-export interface ExplorerState {
-  /** The Edition's slug; switching it fetches that Edition's graph, without a navigation. */
-  edition: string;
-  /** The selected path, by its edge ids joined (see `pathKey`); "" is the root alone. */
-  selected: string | null;
-  options: ExplorerOptions;
-  /** The character whose moves punish the ending; null: the same character. */
-  opponent: number | null;
-}
+import type { ExplorerOptions, ExplorerState } from "@/lib/explorer";
 
 export interface ExplorerActions {
   setEdition: (slug: string) => void;

@@ -4,7 +4,7 @@ import { ExplorerView } from "@/components/explorer/explorer-view";
 import { ExplorerStoreProvider } from "@/components/providers/explorer-store-provider";
 import { graphUrl } from "@/lib/explorer";
 import { VISIBILITY_TEXT, viewToExplorerState } from "@/lib/permalink";
-import type { SharedViewDto } from "@/server/db/queries/permalinks";
+import type { SharedViewDto } from "@/lib/dto";
 
 const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
 

@@ -8,9 +8,11 @@ import {
   type Edge,
   type EdgeProps,
 } from "@xyflow/react";
-import { memo, useCallback, useLayoutEffect, useSyncExternalStore } from "react";
+import { memo, useLayoutEffect } from "react";
+import { useShallow } from "zustand/react/shallow";
+import { useCanvasStore } from "@/components/providers/canvas-store-provider";
 import type { MoveGraph } from "@/lib/engine";
-import { useCanvasStore } from "./nodes";
+import { selectOverlay } from "@/stores/canvas-store";
 
 export const EDGE_STYLE = {
   follow: { stroke: "#7d8aa3", strokeWidth: 1.5 },
@@ -84,15 +86,15 @@ function MoveEdgeView({
   sourcePosition,
   targetPosition,
 }: EdgeProps<MoveFlowEdge>) {
-  const store = useCanvasStore();
+  const setDrawnEdge = useCanvasStore((s) => s.setDrawnEdge);
   const kind = data?.kind ?? "follow";
   const text = data?.label ?? null;
   const geometry = { sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition };
   const [path, labelX, labelY] = kind === "follow" ? getBezierPath(geometry) : getSmoothStepPath(geometry);
   useLayoutEffect(() => {
-    store.setDrawnEdge(id, { d: path, kind, label: text === null ? null : { text, x: labelX, y: labelY } });
-    return () => store.setDrawnEdge(id, null);
-  }, [store, id, path, kind, text, labelX, labelY]);
+    setDrawnEdge(id, { d: path, kind, label: text === null ? null : { text, x: labelX, y: labelY } });
+    return () => setDrawnEdge(id, null);
+  }, [setDrawnEdge, id, path, kind, text, labelX, labelY]);
   return (
     <>
       {/* No wide invisible stroke to catch the pointer: edges take no clicks, and the browser
@@ -184,12 +186,9 @@ function Ring({
  * units, so it pans, zooms and exports with the graph.
  */
 export function PathOverlay({ boxes }: { boxes: ReadonlyMap<string, NodeBox> }) {
-  const store = useCanvasStore();
-  const subscribe = useCallback((listener: () => void) => store.subscribeOverlay(listener), [store]);
-  useSyncExternalStore(subscribe, store.overlayVersion, store.overlayVersion);
-  const { pathNodes, pathEdges, end, focus } = store.getState();
+  const { pathNodes, pathEdges, end, focus, drawnEdge } = useCanvasStore(useShallow(selectOverlay));
   const edges = [...pathEdges].flatMap((id) => {
-    const drawn = store.drawnEdge(id);
+    const drawn = drawnEdge(id);
     return drawn ? [{ id, ...drawn }] : [];
   });
   const ring = (id: string | null) => (id === null ? undefined : boxes.get(id));

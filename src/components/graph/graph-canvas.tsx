@@ -8,8 +8,9 @@ import type { BlockRules } from "@/components/ui/block-class";
 import { framesSaved, framesSavedLabel, type MoveGraph, type PathResult } from "@/lib/engine";
 import { layoutGraph } from "@/lib/layout-graph";
 import { ArrowDefs, PathOverlay, edgeTypes, type MoveFlowEdge, type NodeBox } from "./edges";
-import { createCanvasStore, type CanvasMarks } from "./canvas-store";
-import { CanvasContext, MOVE_SIZE, STANCE_SIZE, nodeTypes, type MoveFlowNode, type StanceFlowNode } from "./nodes";
+import { CanvasStoreProvider } from "@/components/providers/canvas-store-provider";
+import type { CanvasMarks } from "@/stores/canvas-store";
+import { MOVE_SIZE, STANCE_SIZE, nodeTypes, type MoveFlowNode, type StanceFlowNode } from "./nodes";
 
 /** The frames a cancel saves over stopping at the hit it ends, when both are numbers. */
 export function cancelSaves(graph: MoveGraph, edge: MoveGraph["edges"][number]): number | null {
@@ -94,8 +95,6 @@ export function GraphCanvas({
     }),
     [rules.fastest, rules.launchAt, selected, current],
   );
-  const [canvasStore] = useState(() => createCanvasStore(marks));
-  useLayoutEffect(() => canvasStore.setState(marks), [canvasStore, marks]);
 
   const boxes = useMemo(
     () =>
@@ -188,7 +187,7 @@ export function GraphCanvas({
 
   const focusedNode = graph.nodes.find((n) => n.id === current);
   return (
-    <CanvasContext value={canvasStore}>
+    <CanvasStoreProvider marks={marks}>
       <div
         className="h-full w-full outline-none focus-visible:ring-2 focus-visible:ring-accent"
         tabIndex={0}
@@ -206,7 +205,7 @@ export function GraphCanvas({
         </span>
         {flow}
       </div>
-    </CanvasContext>
+    </CanvasStoreProvider>
   );
 }
 

@@ -1,12 +1,12 @@
 "use client";
 
 import { Handle, Position, type Node, type NodeProps } from "@xyflow/react";
-import { createContext, memo, useCallback, useContext, useSyncExternalStore } from "react";
+import { memo } from "react";
 import { BLOCK_CLASS_STYLE, BLOCK_CLASS_WORD } from "@/components/ui/block-class";
 import { Frames } from "@/components/ui/frames";
 import { LevelBadge } from "@/components/ui/level-badge";
 import { classifyBlock, type MoveNode as EngineMove, type StanceNode as EngineStance } from "@/lib/engine";
-import type { CanvasMarks, CanvasStore } from "./canvas-store";
+import { useCanvasStore } from "@/components/providers/canvas-store-provider";
 
 export const MOVE_SIZE = { width: 176, height: 64 };
 export const STANCE_SIZE = { width: 168, height: 44 };
@@ -15,30 +15,11 @@ export const STANCE_SIZE = { width: 168, height: 44 };
 export type MoveFlowNode = Node<{ move: EngineMove }, "move">;
 export type StanceFlowNode = Node<{ stance: EngineStance }, "stance">;
 
-export const CanvasContext = createContext<CanvasStore | null>(null);
-
-/** The canvas store of the graph being drawn. */
-export function useCanvasStore(): CanvasStore {
-  const store = useContext(CanvasContext);
-  if (!store) throw new Error("Graph nodes and edges need a CanvasContext provider");
-  return store;
-}
-
-/**
- * The part of the rules a node draws (its block class). `select` must return a
- * primitive, so an unchanged result re-renders nothing. The selected path is
- * not read here: the path overlay draws it over the nodes.
- */
-export function useCanvasRules<T extends string | number | boolean>(select: (marks: CanvasMarks) => T): T {
-  const store = useCanvasStore();
-  const subscribe = useCallback((listener: () => void) => store.subscribeRules(listener), [store]);
-  const snapshot = () => select(store.getState());
-  return useSyncExternalStore(subscribe, snapshot, snapshot);
-}
-
 function MoveNodeView({ data }: NodeProps<MoveFlowNode>) {
   const { move } = data;
-  const cls = useCanvasRules((rules) => classifyBlock(move.onBlock, rules));
+  // The rules only, as one string: a click changes no node's class, so it re-renders no node.
+  // The selected path is not read here: the path overlay draws it over the nodes.
+  const cls = useCanvasStore((s) => classifyBlock(move.onBlock, s));
   return (
     <div
       data-node-id={move.id}

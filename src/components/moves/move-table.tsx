@@ -1,5 +1,5 @@
 import Link from "next/link";
-import type { CancelEntry, MoveEntry, MoveList } from "@/server/db/queries/moves";
+import type { CancelEntry, MoveEntry, MoveList } from "@/lib/dto";
 import { BlockClassTag, type BlockRules } from "@/components/ui/block-class";
 import { Frames } from "@/components/ui/frames";
 import { LevelBadge } from "@/components/ui/level-badge";

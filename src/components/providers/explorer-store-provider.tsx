@@ -2,7 +2,8 @@
 
 import { createContext, useContext, useState, type ReactNode } from "react";
 import { useStore } from "zustand";
-import { createExplorerStore, type ExplorerState, type ExplorerStore } from "@/stores/explorer-store";
+import type { ExplorerState } from "@/lib/explorer";
+import { createExplorerStore, type ExplorerStore } from "@/stores/explorer-store";
 
 const ExplorerStoreContext = createContext<ReturnType<typeof createExplorerStore> | null>(null);
 

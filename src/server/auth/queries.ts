@@ -50,7 +50,8 @@ export async function createUser({
 }
 
 export async function updatePassword({ id, passwordHash }: { id: string; passwordHash: string }): Promise<void> {
-  await getDb().update(users).set({ passwordHash }).where(eq(users.id, id));
+  const db = getDb();
+  await db.update(users).set({ passwordHash }).where(eq(users.id, id));
 }
 
 /** A new single-use reset token; only its SHA-256 is stored. Returns the token for the e-mail. */

@@ -1,3 +1,4 @@
+import "server-only";
 import { drizzle, type MySql2Database } from "drizzle-orm/mysql2";
 import mysql from "mysql2/promise";
 import { env } from "@/env";

@@ -1,7 +1,7 @@
 import "server-only";
 import { BLOCK_CLASS_WORD, effectiveLaunchAt, formatOutcome, type Level } from "@/lib/engine";
 import { computePaths, pathKey, reachableSubgraph } from "@/lib/explorer";
-import type { SharedViewDto } from "@/server/db/queries/permalinks";
+import type { SharedViewDto } from "@/lib/dto";
 
 /** What a link preview shows: the path's outline, or nothing of it for a link that is not public. */
 export type PermalinkImageSummary =

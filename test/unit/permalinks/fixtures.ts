@@ -34,8 +34,9 @@ export function makePeople() {
     },
     async cleanup() {
       // Cascades take memberships, permalinks and audit entries with them.
-      if (teamIds.length > 0) await getDb().delete(teams).where(inArray(teams.id, teamIds));
-      if (userIds.length > 0) await getDb().delete(users).where(inArray(users.id, userIds));
+      const db = getDb();
+      if (teamIds.length > 0) await db.delete(teams).where(inArray(teams.id, teamIds));
+      if (userIds.length > 0) await db.delete(users).where(inArray(users.id, userIds));
     },
   };
 }

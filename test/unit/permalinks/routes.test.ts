@@ -1,11 +1,14 @@
-import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { afterAll, beforeAll, describe, expect, test, vi } from "vitest";
+import { DELETE as revoke } from "@/app/api/permalinks/[slug]/route";
+import { POST as create } from "@/app/api/permalinks/route";
 import { closeDb } from "@/server/db";
-import { handle } from "@/server/http";
 import { listTeamPermalinks } from "@/server/db/queries/permalinks";
-import { respondCreatePermalink, respondRevokePermalink, type CurrentUser } from "@/server/permalink-routes";
+import { setSession } from "../authz/session-mock";
 import { makePeople, stringView, tarrow } from "./fixtures";
 
-// The handlers as the route files will mount them: handle() around the respond functions.
+// The route handlers read the session through @/server/auth, as every route does.
+vi.mock("@/server/auth", () => import("../authz/session-mock"));
+
 const people = makePeople();
 let player: string, viewer: string, outsider: string, team: number, characterId: number;
 beforeAll(async () => {
@@ -20,21 +23,24 @@ afterAll(async () => {
   await closeDb();
 });
 
-const as =
-  (id: string | null): CurrentUser =>
-  () =>
-    Promise.resolve(id === null ? null : { id });
-const post = (userId: string | null, body: unknown) =>
-  handle(() =>
-    respondCreatePermalink({
-      request: new Request("http://localhost/api/permalinks", {
-        method: "POST",
-        headers: { "content-type": "application/json" },
-        body: JSON.stringify(body),
-      }),
-      currentUser: as(userId),
+/** Signs `id` in (the fixtures give each user the address `<id>@example.test`), or signs out. */
+const signIn = (id: string | null) => setSession(id === null ? null : { id, email: `${id}@example.test`, name: null });
+const post = (userId: string | null, body: unknown) => {
+  signIn(userId);
+  return create(
+    new Request("http://localhost/api/permalinks", {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify(body),
     }),
-  )();
+  );
+};
+const del = (userId: string | null, slug: string) => {
+  signIn(userId);
+  return revoke(new Request(`http://localhost/api/permalinks/${slug}`, { method: "DELETE" }), {
+    params: Promise.resolve({ slug }),
+  });
+};
 const body = () => ({ teamId: team, characterId, edition: "1-1", view: stringView(), visibility: "link" });
 const errorOf = async (res: Response) => ((await res.json()) as { error: { message: string } }).error.message;
 
@@ -53,7 +59,7 @@ describe("POST /api/permalinks", () => {
     expect(await errorOf(bad)).toMatch(/visibility/);
     const signedOut = await post(null, body());
     expect(signedOut.status).toBe(401);
-    expect(await errorOf(signedOut)).toBe("Sign in to share.");
+    expect(await errorOf(signedOut)).toBe("Sign in to do this.");
     const viewing = await post(viewer, body());
     expect(viewing.status).toBe(403);
     expect(await errorOf(viewing)).toMatch(/player role or higher/);
@@ -71,14 +77,11 @@ describe("revoking and listing", () => {
   test("the creator revokes through DELETE; a malformed slug is 400; the team's list shows it revoked", async () => {
     const made = (await (await post(player, body())).json()) as { permalink: { slug: string } };
     const { slug } = made.permalink;
-    expect(
-      (await handle(() => respondRevokePermalink({ params: { slug: "x" }, currentUser: as(player) }))()).status,
-    ).toBe(400);
-    expect((await handle(() => respondRevokePermalink({ params: { slug }, currentUser: as(null) }))()).status).toBe(
-      401,
-    );
-    const res = await handle(() => respondRevokePermalink({ params: { slug }, currentUser: as(player) }))();
+    expect((await del(player, "x")).status).toBe(400);
+    expect((await del(null, slug)).status).toBe(401);
+    const res = await del(player, slug);
     expect(res.status).toBe(200);
+    expect(((await res.json()) as { permalink: { revokedAt: string | null } }).permalink.revokedAt).not.toBeNull();
 
     // Who may read the list is the role matrix's business (test/unit/authz).
     const permalinks = await listTeamPermalinks({ teamId: team });

@@ -2,6 +2,7 @@ import "server-only";
 import { asc, eq } from "drizzle-orm";
 import { getDb, type Database } from "../index";
 import { auditLog, users } from "../schema";
+import type { AuditEntryDto } from "@/lib/dto";
 
 /** A transaction handle or the pool: audit entries are written inside the change they record. */
 export type Executor = Pick<Database, "insert" | "select" | "update" | "delete">;
@@ -28,15 +29,6 @@ export async function recordAudit(
   },
 ): Promise<void> {
   await tx.insert(auditLog).values(entry);
-}
-
-export interface AuditEntryDto {
-  id: number;
-  action: string;
-  actorName: string | null;
-  actorEmail: string | null;
-  detail: Record<string, unknown>;
-  createdAt: string;
 }
 
 /** A team's log, oldest first. */

@@ -6,18 +6,10 @@ import { hashToken, newToken } from "../../tokens";
 import { getDb } from "../index";
 import { invites, memberships, teams, users, type Role } from "../schema";
 import { recordAudit } from "./audit";
+import type { InviteDto } from "@/lib/dto";
 
 export const INVITE_DAYS = 7;
 const DAY_MS = 86_400_000;
-
-export interface InviteDto {
-  id: number;
-  email: string;
-  role: Role;
-  invitedBy: string | null;
-  expiresAt: string;
-  createdAt: string;
-}
 
 export type InviteLookup =
   | {

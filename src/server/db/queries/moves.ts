@@ -1,67 +1,10 @@
 import "server-only";
 import { and, asc, eq } from "drizzle-orm";
-import type { GraphEdge, Level, MoveGraph, Outcome } from "@/lib/engine";
+import type { GraphEdge, MoveGraph } from "@/lib/engine";
 import type { Starter } from "@/lib/explorer";
 import { getDb } from "../index";
 import { edges, moves, stances } from "../schema";
-
-export interface StanceEntry {
-  id: number;
-  key: string;
-  name: string;
-  abbreviation: string;
-  notes: string | null;
-}
-
-export interface MoveEntry {
-  id: number;
-  key: string;
-  input: string;
-  name: string;
-  level: Level;
-  damage: number;
-  startup: number | null;
-  onBlock: Outcome;
-  onHit: Outcome;
-  onCounterHit: Outcome;
-  range: string | null;
-  tags: string[];
-  notes: string | null;
-  /** The stance the move (or the string it belongs to) is done from. */
-  stance: StanceEntry | null;
-  /** How the move is reached: a follow-up of another hit, entered from a stance, or neither (a root). */
-  via:
-    | {
-        kind: "follow";
-        fromId: number;
-        input: string;
-        gapOnBlock: number;
-        comboOnHit: boolean;
-        comboOnCounterHit: boolean;
-      }
-    | { kind: "enter"; input: string }
-    | null;
-  /** 0 for the first hit of a string, 1 for the next, and so on. */
-  depth: number;
-}
-
-export interface CancelEntry {
-  id: number;
-  key: string;
-  fromId: number;
-  input: string;
-  stance: StanceEntry;
-  onBlock: Outcome;
-  onHit: Outcome;
-  onCounterHit: Outcome;
-  autoGuard: Level[];
-}
-
-export interface MoveList {
-  stances: StanceEntry[];
-  moves: MoveEntry[];
-  cancels: CancelEntry[];
-}
+import type { CancelEntry, MoveEntry, MoveList } from "@/lib/dto";
 
 type Scope = { characterId: number; editionId: number };
 

@@ -1,6 +1,5 @@
 import "server-only";
 import { and, desc, eq, isNull } from "drizzle-orm";
-import type { GraphResponse } from "@/lib/explorer";
 import { AppError } from "@/lib/errors";
 import {
   canRevoke,
@@ -18,52 +17,7 @@ import { characters, editions, games, permalinks, users } from "../schema";
 import { recordAudit } from "./audit";
 import { getExplorerData } from "./explorer";
 import { getCharacterGraph } from "./moves";
-
-/** A permalink as its team sees it. */
-export interface PermalinkDto {
-  slug: string;
-  /** Where it opens: `/s/<slug>`. */
-  path: string;
-  teamId: number;
-  title: string;
-  visibility: PermalinkVisibility;
-  characterId: number;
-  edition: { id: number; slug: string; name: string };
-  view: PermalinkView;
-  createdBy: { id: string; name: string | null };
-  createdAt: string;
-  revokedAt: string | null;
-}
-
-/** One row of a team's list of permalinks. */
-export interface TeamPermalinkDto {
-  slug: string;
-  path: string;
-  title: string;
-  visibility: PermalinkVisibility;
-  edition: { slug: string; name: string };
-  createdBy: { id: string; name: string | null };
-  createdAt: string;
-  revoked: boolean;
-  revokedAt: string | null;
-}
-
-/** What `/s/[slug]` renders: the pinned Edition's data and the view, never the team's other data. */
-export interface SharedViewDto {
-  slug: string;
-  title: string;
-  visibility: PermalinkVisibility;
-  /** The creator's display name; null when they never gave one (their e-mail is not shown). */
-  creatorName: string | null;
-  createdAt: string;
-  game: { slug: string; name: string; fastest: number };
-  character: { id: number; slug: string; name: string };
-  characterId: number;
-  edition: { slug: string; name: string };
-  /** The Explorer's data for the pinned Edition, as GET /api/characters/[id]/graph answers it. */
-  data: GraphResponse;
-  view: PermalinkView;
-}
+import type { PermalinkDto, SharedViewDto, TeamPermalinkDto } from "@/lib/dto";
 
 export type SharedViewResult =
   { status: "ok"; view: SharedViewDto } | { status: "sign-in" } | { status: "unavailable" };

@@ -5,24 +5,7 @@ import { AppError } from "@/lib/errors";
 import { getDb } from "../index";
 import { memberships, teams, users, type Role } from "../schema";
 import { recordAudit, type Executor } from "./audit";
-
-export interface TeamDto {
-  id: number;
-  slug: string;
-  name: string;
-}
-
-export interface MyTeamDto extends TeamDto {
-  role: Role;
-}
-
-export interface MemberDto {
-  userId: string;
-  name: string | null;
-  email: string;
-  role: Role;
-  joinedAt: string;
-}
+import type { MemberDto, MyTeamDto, TeamDto } from "@/lib/dto";
 
 /** "Night Shift Crew" → "night-shift-crew-4f1a": readable, and unique without asking the user to pick. */
 export function teamSlug(name: string): string {

@@ -1,0 +1,155 @@
+/**
+ * The shapes the server hands to the client: what the query functions in
+ * `src/server/db/queries/` return, route handlers answer with, and client
+ * components render. Plain types only, so both sides may import them.
+ */
+import type { Level, Outcome } from "@/lib/engine";
+import type { GraphResponse } from "@/lib/explorer";
+import type { PermalinkView, PermalinkVisibility } from "@/lib/permalink";
+import type { Role } from "@/lib/roles";
+
+// Teams
+
+export interface TeamDto {
+  id: number;
+  slug: string;
+  name: string;
+}
+
+export interface MyTeamDto extends TeamDto {
+  role: Role;
+}
+
+export interface MemberDto {
+  userId: string;
+  name: string | null;
+  email: string;
+  role: Role;
+  joinedAt: string;
+}
+
+export interface InviteDto {
+  id: number;
+  email: string;
+  role: Role;
+  invitedBy: string | null;
+  expiresAt: string;
+  createdAt: string;
+}
+
+export interface AuditEntryDto {
+  id: number;
+  action: string;
+  actorName: string | null;
+  actorEmail: string | null;
+  detail: Record<string, unknown>;
+  createdAt: string;
+}
+
+// Permalinks
+
+/** A permalink as its team sees it. */
+export interface PermalinkDto {
+  slug: string;
+  /** Where it opens: `/s/<slug>`. */
+  path: string;
+  teamId: number;
+  title: string;
+  visibility: PermalinkVisibility;
+  characterId: number;
+  edition: { id: number; slug: string; name: string };
+  view: PermalinkView;
+  createdBy: { id: string; name: string | null };
+  createdAt: string;
+  revokedAt: string | null;
+}
+
+/** One row of a team's list of permalinks. */
+export interface TeamPermalinkDto {
+  slug: string;
+  path: string;
+  title: string;
+  visibility: PermalinkVisibility;
+  edition: { slug: string; name: string };
+  createdBy: { id: string; name: string | null };
+  createdAt: string;
+  revoked: boolean;
+  revokedAt: string | null;
+}
+
+/** What `/s/[slug]` renders: the pinned Edition's data and the view, never the team's other data. */
+export interface SharedViewDto {
+  slug: string;
+  title: string;
+  visibility: PermalinkVisibility;
+  /** The creator's display name; null when they never gave one (their e-mail is not shown). */
+  creatorName: string | null;
+  createdAt: string;
+  game: { slug: string; name: string; fastest: number };
+  character: { id: number; slug: string; name: string };
+  characterId: number;
+  edition: { slug: string; name: string };
+  /** The Explorer's data for the pinned Edition, as GET /api/characters/[id]/graph answers it. */
+  data: GraphResponse;
+  view: PermalinkView;
+}
+
+// The move list
+
+export interface StanceEntry {
+  id: number;
+  key: string;
+  name: string;
+  abbreviation: string;
+  notes: string | null;
+}
+
+export interface MoveEntry {
+  id: number;
+  key: string;
+  input: string;
+  name: string;
+  level: Level;
+  damage: number;
+  startup: number | null;
+  onBlock: Outcome;
+  onHit: Outcome;
+  onCounterHit: Outcome;
+  range: string | null;
+  tags: string[];
+  notes: string | null;
+  /** The stance the move (or the string it belongs to) is done from. */
+  stance: StanceEntry | null;
+  /** How the move is reached: a follow-up of another hit, entered from a stance, or neither (a root). */
+  via:
+    | {
+        kind: "follow";
+        fromId: number;
+        input: string;
+        gapOnBlock: number;
+        comboOnHit: boolean;
+        comboOnCounterHit: boolean;
+      }
+    | { kind: "enter"; input: string }
+    | null;
+  /** 0 for the first hit of a string, 1 for the next, and so on. */
+  depth: number;
+}
+
+export interface CancelEntry {
+  id: number;
+  key: string;
+  fromId: number;
+  input: string;
+  stance: StanceEntry;
+  onBlock: Outcome;
+  onHit: Outcome;
+  onCounterHit: Outcome;
+  autoGuard: Level[];
+}
+
+export interface MoveList {
+  stances: StanceEntry[];
+  moves: MoveEntry[];
+  cancels: CancelEntry[];
+}
