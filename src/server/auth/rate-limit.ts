@@ -1,6 +1,6 @@
 import "server-only";
 import type { Pool as PromisePool } from "mysql2/promise";
-import { RateLimiterMySQL, RateLimiterRes } from "rate-limiter-flexible";
+import { RateLimiterMySQL } from "rate-limiter-flexible";
 import { env } from "@/env";
 import { AppError } from "@/lib/errors";
 import { getDb } from "@/server/db";
@@ -45,6 +45,18 @@ export function tooManyMessage(msBeforeNext: number): string {
 }
 
 /**
+ * Whether a limiter refused a try. Known by its shape, not by `instanceof RateLimiterRes`:
+ * the limiters are cached on `globalThis`, and Next bundles this library once for route
+ * handlers and once for pages and actions, so a limiter made by one bundle refuses with
+ * the other bundle's class.
+ */
+export function isOverLimit(error: unknown): error is { msBeforeNext: number; remainingPoints: number } {
+  if (typeof error !== "object" || error === null) return false;
+  const { msBeforeNext, remainingPoints } = error as Record<string, unknown>;
+  return typeof msBeforeNext === "number" && typeof remainingPoints === "number";
+}
+
+/**
  * Counts one try against each named limit (all of them, so one over the limit
  * does not spare the others) and throws AppError "rate_limited" when any is over.
  */
@@ -54,7 +66,7 @@ export async function consume(checks: [LimitName, string][]): Promise<void> {
     try {
       await limiter(name).consume(key.toLowerCase());
     } catch (error) {
-      if (!(error instanceof RateLimiterRes)) throw error;
+      if (!isOverLimit(error)) throw error;
       wait = Math.max(wait, error.msBeforeNext);
     }
   }

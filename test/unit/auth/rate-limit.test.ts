@@ -2,7 +2,7 @@ import { randomUUID } from "node:crypto";
 import { afterAll, describe, expect, test } from "vitest";
 import { AppError } from "@/lib/errors";
 import { closeDb, getDb } from "@/server/db";
-import { clientIp, consume, LIMITS, resetLimit, tooManyMessage } from "@/server/auth/rate-limit";
+import { clientIp, consume, LIMITS, resetLimit, tooManyMessage, type LimitName } from "@/server/auth/rate-limit";
 import { rateLimits } from "@/server/db/schema";
 import { like } from "drizzle-orm";
 
@@ -13,6 +13,20 @@ afterAll(async () => {
   await resetLimit("mailEmail", key);
   await closeDb();
 });
+
+/** Runs `fn` while the cached limiter `name` refuses every try with `refusal`, then puts the real one back. */
+async function withLimiter<T>(name: LimitName, refusal: unknown, fn: () => Promise<T>): Promise<T> {
+  const cache = globalThis as unknown as { frameforkLimiters?: Map<LimitName, unknown> };
+  cache.frameforkLimiters ??= new Map();
+  const real = cache.frameforkLimiters.get(name);
+  cache.frameforkLimiters.set(name, { consume: () => Promise.reject(refusal) });
+  try {
+    return await fn();
+  } finally {
+    if (real === undefined) cache.frameforkLimiters.delete(name);
+    else cache.frameforkLimiters.set(name, real);
+  }
+}
 
 describe("rate limits", () => {
   test("allow the configured tries, then refuse with the wait in minutes, then forget after a reset", async () => {
@@ -41,6 +55,31 @@ describe("rate limits", () => {
       await consume([["mailEmail", i % 2 ? other : other.toLowerCase()]]);
     await expect(consume([["mailEmail", other.toUpperCase()]])).rejects.toThrow(/Too many attempts/);
     await resetLimit("mailEmail", other);
+  });
+
+  test("a refusal made by another bundle's copy of the library is still a 429, not a crash", async () => {
+    // Next bundles rate-limiter-flexible twice (route handlers; pages and actions) while the
+    // limiters live on globalThis: a limiter made by one bundle refuses with an object of the
+    // other bundle's class. A plain object of the same shape stands for it here.
+    const { RateLimiterRes } = await import("rate-limiter-flexible");
+    const foreignRefusal = {
+      msBeforeNext: 4 * 60_000,
+      remainingPoints: 0,
+      consumedPoints: 21,
+      isFirstInDuration: false,
+    };
+    expect(foreignRefusal).not.toBeInstanceOf(RateLimiterRes);
+    const refused = await withLimiter("mailIp", foreignRefusal, () => consume([["mailIp", "203.0.113.9"]])).catch(
+      (e: unknown) => e,
+    );
+    expect(refused).toBeInstanceOf(AppError);
+    expect((refused as AppError).status).toBe(429);
+    expect((refused as AppError).message).toBe("Too many attempts, try again in 4 minutes.");
+  });
+
+  test("a database failure inside a limiter is not mistaken for a refusal", async () => {
+    const failure = new Error("connect ECONNREFUSED 127.0.0.1:3317");
+    await expect(withLimiter("signUpIp", failure, () => consume([["signUpIp", "203.0.113.10"]]))).rejects.toBe(failure);
   });
 
   test("messages and client addresses", () => {
