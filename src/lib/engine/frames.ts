@@ -90,7 +90,7 @@ export function followUp(
   startup: number,
   { fastest = DEFAULT_FASTEST }: { fastest?: number } = {},
 ): FollowUpClass {
-  if (startup <= advantage) return "guaranteed";
+  if (combosAtAdvantage(advantage, startup)) return "guaranteed";
   if (startup < advantage + fastest) return "frame-trap";
   return "interruptible";
 }
