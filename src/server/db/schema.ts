@@ -219,6 +219,12 @@ export const users = mysqlTable(
     image: varchar("image", { length: 255 }),
     /** argon2id; null for people who only ever signed in by link. Never leaves the server. */
     passwordHash: varchar("password_hash", { length: 255 }),
+    /**
+     * Every session carries the version it was made under and ends when this moves on:
+     * bumped by a password change or reset, "sign out everywhere", and a link sign-in
+     * that voids a password set on an unproven address.
+     */
+    sessionVersion: int("session_version").notNull().default(0),
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex("users_email_uq").on(t.email)],
@@ -277,6 +283,25 @@ export const passwordResets = mysqlTable(
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex("password_resets_token_uq").on(t.tokenHash), index("password_resets_user_idx").on(t.userId)],
+);
+
+/** Links that prove a new password account's address: single use, expiring, stored as a SHA-256 of the token. */
+export const emailConfirmations = mysqlTable(
+  "email_confirmations",
+  {
+    id: id(),
+    userId: varchar("user_id", { length: 255 })
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    tokenHash: varchar("token_hash", { length: 64 }).notNull(),
+    expiresAt: datetime("expires_at", { mode: "date" }).notNull(),
+    usedAt: datetime("used_at", { mode: "date" }),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex("email_confirmations_token_uq").on(t.tokenHash),
+    index("email_confirmations_user_idx").on(t.userId),
+  ],
 );
 
 export const teams = mysqlTable(
@@ -375,6 +400,30 @@ export const auditLog = mysqlTable(
     createdAt: createdAt(),
   },
   (t) => [index("audit_log_team_idx").on(t.teamId, t.createdAt)],
+);
+
+/**
+ * Mail waiting to go out. Written in the transaction that decides to send it and sent
+ * after the commit by a drain step, retried with a growing wait until `sentAt` is set,
+ * so a slow mail server never holds a database connection and no mail is lost.
+ */
+export const mailOutbox = mysqlTable(
+  "mail_outbox",
+  {
+    id: id(),
+    to: varchar("to_address", { length: 255 }).notNull(),
+    subject: varchar("subject", { length: 255 }).notNull(),
+    text: text("text").notNull(),
+    html: text("html").notNull(),
+    attempts: int("attempts").notNull().default(0),
+    nextAttemptAt: datetime("next_attempt_at", { mode: "date" })
+      .notNull()
+      .default(sql`CURRENT_TIMESTAMP`),
+    sentAt: datetime("sent_at", { mode: "date" }),
+    lastError: varchar("last_error", { length: 500 }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("mail_outbox_due_idx").on(t.sentAt, t.nextAttemptAt)],
 );
 
 /** rate-limiter-flexible's MySQL store, created here so migrations own every table. */
