@@ -174,11 +174,12 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
     { what: "list the team's links", call: (w) => ({ params: { team: w.team.slug } }), expect: members(200) },
   ],
   "POST /api/invites/accept": [
-    // The invite is for another address: nobody here may use it (the invitee's own use is tested in teams.test.ts).
+    // The invite is for another address: nobody here may use it, and to them it answers as an unknown
+    // invite (the invitee's own use is tested in teams.test.ts).
     {
       what: "use someone else's invite",
       call: (w) => ({ body: { token: w.pending.token } }),
-      expect: { ...all(403), anonymous: 401 },
+      expect: { ...all(404), anonymous: 401 },
     },
   ],
 };

@@ -18,18 +18,23 @@ export const GET = handle(async (request: Request, ctx: RouteContext<"/api/chara
   const { id } = parseWith(graphParamsSchema, await ctx.params, "path");
   const { edition } = parseWith(graphQuerySchema, Object.fromEntries(new URL(request.url).searchParams), "query");
 
+  const noSuchCharacter = () => new AppError("not_found", `There is no character ${id}.`);
   const owner = await getCharacterById({ id });
-  if (owner) await checkGameRead({ game: owner.game, user: owner.game.teamId === null ? null : await auth() });
+  if (!owner) throw noSuchCharacter();
+  // Another team's character answers exactly as one that does not exist.
+  await checkGameRead({ game: owner.game, user: owner.game.teamId === null ? null : await auth() }).catch(
+    (error: unknown) => {
+      throw error instanceof AppError && error.code === "not_found" ? noSuchCharacter() : error;
+    },
+  );
   const found = await getExplorerData({ characterId: id, edition });
   if (!found.ok) {
-    throw new AppError(
-      "not_found",
-      found.missing === "character"
-        ? `There is no character ${id}.`
-        : edition
-          ? `${found.gameName} has no Edition "${edition}".`
-          : `${found.gameName} has no Edition yet.`,
-    );
+    throw found.missing === "character"
+      ? noSuchCharacter()
+      : new AppError(
+          "not_found",
+          edition ? `${found.gameName} has no Edition "${edition}".` : `${found.gameName} has no Edition yet.`,
+        );
   }
   // Stored data that the engine would refuse is our fault, not the caller's: handle() logs it as a 500.
   graphSchema.parse(found.data.graph);
