@@ -18,14 +18,8 @@ import { VIEW, world } from "./world";
 // a stranger that team A's character, invite, member or link exists.
 
 vi.mock("@/server/auth", () => import("./session-mock"));
-vi.mock("@/server/mail", async (original) => ({
-  ...(await original<typeof import("@/server/mail")>()),
-  sendMail: async () => {},
-}));
-let address = 0;
-vi.mock("next/headers", () => ({
-  headers: async () => new Headers({ "x-forwarded-for": `203.0.113.${(address++ % 250) + 1}` }),
-}));
+vi.mock("@/server/mail", () => import("./mail-mock"));
+vi.mock("next/headers", () => import("./headers-mock"));
 
 runOnPrivateDatabase();
 beforeEach(() => setSession(null));

@@ -40,10 +40,16 @@ export async function routeHandlers(): Promise<Map<string, Handler>> {
 /** The path parameters a route's address names: "/api/teams/[team]/members/[user]" → ["team", "user"]. */
 export const pathParams = (route: string): string[] => [...route.matchAll(/\[(?:\.\.\.)?(\w+)\]/g)].map((m) => m[1]!);
 
-/** The address a request for `route` goes to, with its parameters filled in. */
+/**
+ * The address a request for `route` goes to, with its parameters filled in. (Handlers read them
+ * from the context; in the address a lone surrogate, which no real address can carry, becomes U+FFFD.)
+ */
 export function routeUrl(route: string, params: Record<string, string | string[]>, query = ""): string {
   const path = route.replace(/\[(\.\.\.)?(\w+)\]/g, (_, __, name: string) =>
-    [params[name] ?? ""].flat().map(encodeURIComponent).join("/"),
+    [params[name] ?? ""]
+      .flat()
+      .map((p) => encodeURIComponent(p.toWellFormed()))
+      .join("/"),
   );
   return `http://test${path}${query}`;
 }

@@ -4,7 +4,7 @@ import type { SessionUser } from "@/server/auth";
 import { routeHandlers, routeUrl, serverActions, type Action } from "./inventory";
 import { setSession } from "./session-mock";
 import { closeDb } from "@/server/db";
-import { VIEW, world, type World } from "./world";
+import { ONE_MOVE_GRAPH, VIEW, world, type World } from "./world";
 
 // Who is signed in for the call under test. Route handlers read the session only through
 // @/server/auth, so the matrix sets it here; everything else (database, role checks) is real.
@@ -83,22 +83,7 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
       call: () => ({
         body: {
           root: "a",
-          graph: {
-            nodes: [
-              {
-                kind: "move",
-                id: "a",
-                input: "1",
-                level: "mid",
-                damage: 10,
-                startup: 12,
-                onBlock: -2,
-                onHit: 3,
-                onCounterHit: 5,
-              },
-            ],
-            edges: [],
-          },
+          graph: ONE_MOVE_GRAPH,
         },
       }),
       expect: all(200),
