@@ -4,6 +4,7 @@ import { AcceptInviteButton } from "@/components/teams/accept-invite-button";
 import { RoleTag } from "@/components/teams/role-tag";
 import { auth } from "@/server/auth";
 import { INVITE_PROBLEM, lookupInvite } from "@/server/db/queries/invites";
+import { decodeSegment } from "@/lib/segment";
 
 type Props = PageProps<"/invites/[token]">;
 
@@ -12,7 +13,7 @@ export const metadata: Metadata = { title: "Team invite", referrer: "no-referrer
 /** Where an invite e-mail's link lands: who invited you, to what, and how to accept. */
 export default async function InvitePage({ params }: Props) {
   const { token } = await params;
-  const [invite, user] = await Promise.all([lookupInvite({ token: decodeURIComponent(token) }), auth()]);
+  const [invite, user] = await Promise.all([lookupInvite({ token: decodeSegment(token) }), auth()]);
   const here = `/invites/${token}`;
 
   if (invite.status !== "valid") {
@@ -38,7 +39,7 @@ export default async function InvitePage({ params }: Props) {
         <strong>{invite.teamName}</strong> as <RoleTag role={invite.role} />.
       </p>
       {mine ? (
-        <AcceptInviteButton token={decodeURIComponent(token)} />
+        <AcceptInviteButton token={decodeSegment(token)} />
       ) : user ? (
         <p role="alert" className="rounded border border-block-punishable/50 p-3 text-sm">
           You are signed in as {user.email}, but this invite is for {invite.email}. Sign out, then open this link again

@@ -1,4 +1,5 @@
 import { loadRootMove } from "../../../../data";
+import { decodeSegment } from "@/lib/segment";
 
 /**
  * Checks that the character has this move (in some Edition) before the page
@@ -10,6 +11,6 @@ export default async function ExploreLayout({
   params,
 }: LayoutProps<"/games/[game]/[character]/explore/[move]">) {
   const { game, character, move } = await params;
-  await loadRootMove(game, character, decodeURIComponent(move));
+  await loadRootMove(game, character, decodeSegment(move));
   return children;
 }

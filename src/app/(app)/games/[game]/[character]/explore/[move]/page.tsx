@@ -10,19 +10,20 @@ import { auth } from "@/server/auth";
 import { getExplorerData } from "@/server/db/queries/explorer";
 import { listMyTeams } from "@/server/db/queries/teams";
 import { loadCharacter } from "../../../../data";
+import { decodeSegment } from "@/lib/segment";
 
 type Props = PageProps<"/games/[game]/[character]/explore/[move]">;
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const { game, character, move } = await params;
   const found = await loadCharacter(game, character);
-  return { title: `${decodeURIComponent(move)} · ${found.character.name} Explorer` };
+  return { title: `${decodeSegment(move)} · ${found.character.name} Explorer` };
 }
 
 /** The Explorer: one string (or stance move) of a character drawn as a graph, with the Path card beside it. */
 export default async function ExplorePage({ params, searchParams }: Props) {
   const slugs = await params;
-  const root = decodeURIComponent(slugs.move);
+  const root = decodeSegment(slugs.move);
   const { game, character } = await loadCharacter(slugs.game, slugs.character);
   const search = parseExplorerSearch(await searchParams);
   // An unknown Edition falls back to the newest, as the move list does.
