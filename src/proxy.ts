@@ -1,9 +1,10 @@
 import { NextResponse, type NextRequest } from "next/server";
+import { CALLBACK_COOKIE, usableCallbackUrl } from "@/lib/callback-url";
 
-/** Runs before every page and route: requests that would fail inside Next are settled here. */
+/** Runs before every page and route: requests that would fail inside Next or next-auth are settled here. */
 export function proxy(request: NextRequest) {
   if (!decodes(request.nextUrl.pathname)) return notFound(request);
-  return NextResponse.next();
+  return withoutForgedCallbackCookie(request);
 }
 
 /**
@@ -27,6 +28,23 @@ function decodes(pathname: string): boolean {
   } catch {
     return false;
   }
+}
+
+/**
+ * next-auth checks its return-address cookie on every session read and answers one that is no
+ * address with a 500, on every page. next-auth only ever sets a good one, so a bad one was
+ * forged: it is dropped from the request and deleted from the browser.
+ */
+function withoutForgedCallbackCookie(request: NextRequest) {
+  const forged = request.cookies
+    .getAll()
+    .filter((c) => CALLBACK_COOKIE.test(c.name) && !usableCallbackUrl(c.value))
+    .map((c) => c.name);
+  if (forged.length === 0) return NextResponse.next();
+  for (const name of forged) request.cookies.delete(name);
+  const response = NextResponse.next({ request: { headers: request.headers } });
+  for (const name of forged) response.cookies.delete(name);
+  return response;
 }
 
 export const config = {

@@ -2,6 +2,7 @@ import NextAuth from "next-auth";
 import { env } from "@/env";
 import { AppError } from "@/lib/errors";
 import { authOptions } from "@/server/auth/options";
+import { refusedAuthInput } from "@/server/auth/next-auth-input";
 import { clientIp, consume } from "@/server/auth/rate-limit";
 import { emailSchema } from "@/server/auth/schemas";
 
@@ -44,6 +45,8 @@ async function limitLinkRequest(request: Request): Promise<Response | null> {
 
 async function handler(request: Request, context: Context): Promise<Response> {
   const { nextauth } = await context.params;
+  const wrong = await refusedAuthInput(request, nextauth);
+  if (wrong) return refuse(wrong);
   if (request.method === "POST" && nextauth.join("/") === "signin/email") {
     const refused = await limitLinkRequest(request);
     if (refused) return refused;
