@@ -25,7 +25,7 @@ function describe(e: AuditEntryDto): string {
     case "member.invited":
       return `invited ${d.email} as ${d.role}`;
     case "invite.revoked":
-      return `withdrew the invite to ${d.email}`;
+      return `withdrew the invite to ${d.email}${REVOKED_BECAUSE[d.reason ?? ""] ?? ""}`;
     case "invite.accepted":
       return `joined as ${d.role}`;
     case "member.role_changed":
@@ -42,6 +42,12 @@ function describe(e: AuditEntryDto): string {
       return e.action;
   }
 }
+
+/** Why an invite was withdrawn without anyone asking: its sender is no longer in the team. */
+const REVOKED_BECAUSE: Record<string, string> = {
+  sender_left: " (they left the team)",
+  sender_removed: " (its sender was removed)",
+};
 
 function Section({ title, id, children }: { title: string; id: string; children: ReactNode }) {
   return (

@@ -13,7 +13,7 @@ import {
   revokeInvite,
 } from "@/server/db/queries/invites";
 import { changeRole, createTeam, listMembers, listMyTeams, removeMember, teamSlug } from "@/server/db/queries/teams";
-import { invites, ROLES } from "@/server/db/schema";
+import { invites, memberships, ROLES } from "@/server/db/schema";
 import { makeUser } from "./fixtures";
 
 // Against the test MariaDB that `npm test` prepares; every test makes its own users and teams.
@@ -236,6 +236,85 @@ describe("invites", () => {
         expiresAt: new Date(Date.now() + 86_400_000),
       });
     expect((await acceptInvite({ token, userId: coach.id, userEmail: coach.email })).role).toBe("coach");
+  });
+});
+
+describe("leaving and removal", () => {
+  /** A team with an owner and a coach who has sent one invite that is still waiting. */
+  async function coachWithInvite() {
+    const owner = await makeUser("owner");
+    const coach = await makeUser("coach");
+    const team = await createTeam({ name: "Pending Invites", ownerId: owner.id });
+    await getDb().insert(memberships).values({ teamId: team.id, userId: coach.id, role: "coach" });
+    const invited = await makeUser("invited");
+    const sent = await createInvite({
+      teamId: team.id,
+      invitedBy: coach.id,
+      inviterRole: "coach",
+      email: invited.email,
+      role: "player",
+    });
+    return { owner, coach, team, invited, sent };
+  }
+
+  test("a removed member's waiting invites are withdrawn with them, and the log says so", async () => {
+    const { owner, coach, team, invited, sent } = await coachWithInvite();
+    // One the owner sent stays: only the removed member's invites go.
+    const kept = await createInvite({
+      teamId: team.id,
+      invitedBy: owner.id,
+      inviterRole: "owner",
+      email: `kept-${team.slug}@example.test`,
+      role: "viewer",
+    });
+    await removeMember({ teamId: team.id, actorId: owner.id, userId: coach.id });
+    expect((await lookupInvite({ token: sent.token })).status).toBe("revoked");
+    expect((await lookupInvite({ token: kept.token })).status).toBe("valid");
+    expect(await status(acceptInvite({ token: sent.token, userId: invited.id, userEmail: invited.email }))).toBe(409);
+    expect(await getRole({ teamId: team.id, userId: invited.id })).toBeNull();
+    const log = await listAudit({ teamId: team.id });
+    expect(log.at(-1)).toMatchObject({
+      action: "invite.revoked",
+      actorEmail: owner.email,
+      detail: { email: invited.email, reason: "sender_removed" },
+    });
+    expect(log.at(-2)?.action).toBe("member.removed");
+  });
+
+  test("a member who leaves takes their waiting invites with them", async () => {
+    const { coach, team, sent, invited } = await coachWithInvite();
+    await removeMember({ teamId: team.id, actorId: coach.id, userId: coach.id });
+    expect((await lookupInvite({ token: sent.token })).status).toBe("revoked");
+    expect((await listAudit({ teamId: team.id })).at(-1)).toMatchObject({
+      action: "invite.revoked",
+      detail: { email: invited.email, reason: "sender_left" },
+    });
+    expect(await listPendingInvites({ teamId: team.id })).toEqual([]);
+  });
+
+  test("someone no longer in the team, or no longer an owner, changes nothing", async () => {
+    const { owner, coach, team } = await coachWithInvite();
+    const player = await makeUser("player");
+    await getDb().insert(memberships).values({ teamId: team.id, userId: player.id, role: "player" });
+    // The routes checked these people before; by the time their change runs, they have lost the role.
+    expect(await status(changeRole({ teamId: team.id, actorId: coach.id, userId: player.id, role: "coach" }))).toBe(
+      403,
+    );
+    expect(await status(removeMember({ teamId: team.id, actorId: coach.id, userId: player.id }))).toBe(403);
+    await removeMember({ teamId: team.id, actorId: owner.id, userId: coach.id });
+    expect(
+      await status(
+        createInvite({
+          teamId: team.id,
+          invitedBy: coach.id,
+          inviterRole: "coach",
+          email: `late-${team.slug}@example.test`,
+          role: "viewer",
+        }),
+      ),
+    ).toBe(403);
+    expect(await getRole({ teamId: team.id, userId: player.id })).toBe("player");
+    expect(await listPendingInvites({ teamId: team.id })).toEqual([]);
   });
 });
 

@@ -6,6 +6,7 @@ import { hashToken, newToken } from "../../tokens";
 import { getDb } from "../index";
 import { invites, memberships, teams, users, type Role } from "../schema";
 import { recordAudit } from "./audit";
+import { lockTeam, memberRole } from "./teams";
 import type { InviteDto } from "@/lib/dto";
 
 export const INVITE_DAYS = 7;
@@ -34,6 +35,9 @@ export function mayInvite(inviter: Role, role: Role): boolean {
  * Creates an invite and returns it with its token. Only the SHA-256 of the token is stored;
  * the token itself goes out in the e-mail and nowhere else. `deliver` sends that e-mail
  * inside the transaction: when it fails, no invite is left behind.
+ *
+ * `inviterRole` is the role the caller checked; it is read again under the team's lock, so
+ * someone removed or demoted a moment ago sends nothing.
  */
 export async function createInvite({
   teamId,
@@ -56,6 +60,15 @@ export async function createInvite({
     throw new AppError("forbidden", `A ${inviterRole} cannot invite someone as ${role}.`);
   const address = email.trim().toLowerCase();
   return getDb().transaction(async (tx) => {
+    await lockTeam(tx, teamId);
+    const roleNow = await memberRole(tx, teamId, invitedBy);
+    if (roleNow === null || !mayInvite(roleNow, role))
+      throw new AppError(
+        "forbidden",
+        roleNow === null
+          ? "You are no longer a member of this team, so no invite was sent."
+          : `A ${roleNow} cannot invite someone as ${role}.`,
+      );
     const [already] = await tx
       .select({ userId: memberships.userId })
       .from(memberships)
@@ -121,6 +134,7 @@ export async function revokeInvite({
   actorId: string;
 }): Promise<void> {
   await getDb().transaction(async (tx) => {
+    await lockTeam(tx, teamId);
     const [row] = await tx
       .select({ email: invites.email, acceptedAt: invites.acceptedAt, revokedAt: invites.revokedAt })
       .from(invites)
@@ -171,7 +185,9 @@ export const INVITE_PROBLEM: Record<Exclude<InviteLookup["status"], "valid">, st
 /**
  * Uses an invite: the signed-in user, whose e-mail must be the invited one, joins the team
  * with the invited role (or keeps a higher role they already have). Single use: the row is
- * locked and marked in the same transaction.
+ * locked and marked in the same transaction. Locks are taken in the order every team change
+ * uses (the team, then the user, then the invite), so two invites for one person accepted at
+ * once run one after the other and both succeed, instead of racing on the membership row.
  */
 export async function acceptInvite({
   token,
@@ -184,7 +200,18 @@ export async function acceptInvite({
   userEmail: string;
   now?: Date;
 }): Promise<{ teamSlug: string; teamName: string; role: Role }> {
+  const tokenHash = hashToken(token);
+  // The invite's team never changes, so it is read before the transaction that locks the team.
+  const [found] = await getDb()
+    .select({ teamId: invites.teamId })
+    .from(invites)
+    .where(eq(invites.tokenHash, tokenHash))
+    .limit(1);
+  if (!found) throw new AppError("not_found", INVITE_PROBLEM.unknown);
   return getDb().transaction(async (tx) => {
+    const team = await lockTeam(tx, found.teamId);
+    const [me] = await tx.select({ id: users.id }).from(users).where(eq(users.id, userId)).for("update");
+    if (!me) throw new AppError("unauthorized", "Sign in again to accept this invite.");
     const [row] = await tx
       .select({
         id: invites.id,
@@ -196,7 +223,7 @@ export async function acceptInvite({
         revokedAt: invites.revokedAt,
       })
       .from(invites)
-      .where(eq(invites.tokenHash, hashToken(token)))
+      .where(eq(invites.tokenHash, tokenHash))
       .for("update");
     const status = !row
       ? "unknown"
@@ -219,7 +246,6 @@ export async function acceptInvite({
         "This invite was sent to another e-mail address. Sign in with the address it was sent to, then accept it.",
       );
     }
-    const [team] = await tx.select({ slug: teams.slug, name: teams.name }).from(teams).where(eq(teams.id, row.teamId));
     const [member] = await tx
       .select({ role: memberships.role })
       .from(memberships)
@@ -239,6 +265,6 @@ export async function acceptInvite({
       action: "invite.accepted",
       detail: { email: row.email, role },
     });
-    return { teamSlug: team!.slug, teamName: team!.name, role };
+    return { teamSlug: team.slug, teamName: team.name, role };
   });
 }
