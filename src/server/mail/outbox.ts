@@ -32,9 +32,10 @@ export async function queueMail(executor: Executor, mail: OutgoingMail): Promise
 
 /**
  * Claims the due messages (rows another drain holds are skipped), then sends each outside any
- * transaction and marks it sent, or schedules the next try. Returns what happened.
+ * transaction and marks it sent, or schedules the next try. Returns what happened. `to` limits
+ * the drain to those recipients: tests share one database, and drain only their own messages.
  */
-export async function drainOutbox({ now = new Date() }: { now?: Date } = {}): Promise<{
+export async function drainOutbox({ now = new Date(), to }: { now?: Date; to?: string[] } = {}): Promise<{
   sent: number;
   failed: number;
 }> {
@@ -43,7 +44,14 @@ export async function drainOutbox({ now = new Date() }: { now?: Date } = {}): Pr
     const due = await tx
       .select()
       .from(mailOutbox)
-      .where(and(isNull(mailOutbox.sentAt), lte(mailOutbox.nextAttemptAt, now), lt(mailOutbox.attempts, MAX_ATTEMPTS)))
+      .where(
+        and(
+          isNull(mailOutbox.sentAt),
+          lte(mailOutbox.nextAttemptAt, now),
+          lt(mailOutbox.attempts, MAX_ATTEMPTS),
+          to ? inArray(mailOutbox.to, to) : undefined,
+        ),
+      )
       .orderBy(asc(mailOutbox.id))
       .limit(BATCH)
       .for("update", { skipLocked: true });

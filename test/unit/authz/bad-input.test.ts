@@ -15,6 +15,7 @@ vi.mock("@/server/auth", () => import("./session-mock"));
 vi.mock("@/server/mail", async (original) => ({
   ...(await original<typeof import("@/server/mail")>()),
   sendMail: async () => {},
+  deliverSoon: () => {},
 }));
 
 afterAll(closeDb);

@@ -11,11 +11,13 @@ import { VIEW, world, type World } from "./world";
 // Who is signed in for the call under test. Route handlers read the session only through
 // @/server/auth, so the matrix sets it here; everything else (database, role checks) is real.
 vi.mock("@/server/auth", () => import("./session-mock"));
-// Invites would send e-mail; the matrix is about who may act, so mail is recorded, not sent.
+// Invites would send e-mail; the matrix is about who may act, so mail is recorded, not sent,
+// and queued mail is left for its own tests to drain (they drain only their own recipients).
 const sent: { to: string }[] = [];
 vi.mock("@/server/mail", async (original) => ({
   ...(await original<typeof import("@/server/mail")>()),
   sendMail: async (m: { to: string }) => void sent.push(m),
+  deliverSoon: () => {},
 }));
 // Server actions read the caller's address for rate limits; each call comes from its own.
 let address = 0;

@@ -6,7 +6,7 @@ import { mailOutbox } from "@/server/db/schema";
 
 // The SMTP step is replaced by a recorder that can be told to fail or to be slow; the queue
 // itself runs against the test MariaDB. Other test files may queue mail at the same time, so
-// every check looks only at this file's own recipients.
+// every drain and every check is limited to this file's own recipients.
 const delivered: string[] = [];
 let failFor = new Set<string>();
 let delayMs = 0;
@@ -40,7 +40,7 @@ describe("mail outbox", () => {
         throw new Error("the change failed");
       }),
     ).rejects.toThrow("the change failed");
-    await drainOutbox();
+    await drainOutbox({ to: [to] });
     expect(await rowsFor([to])).toEqual([]);
     expect(delivered).not.toContain(to);
   });
@@ -48,8 +48,8 @@ describe("mail outbox", () => {
   test("a committed message is sent once and marked sent", async () => {
     const to = address();
     await getDb().transaction((tx) => queueMail(tx, mail(to)));
-    await drainOutbox();
-    await drainOutbox();
+    await drainOutbox({ to: [to] });
+    await drainOutbox({ to: [to] });
     expect(delivered.filter((d) => d === to)).toHaveLength(1);
     const [row] = await rowsFor([to]);
     expect(row?.sentAt).toBeInstanceOf(Date);
@@ -61,18 +61,19 @@ describe("mail outbox", () => {
     failFor.add(to);
     await queueMail(getDb(), mail(to));
     const started = Date.now();
-    await drainOutbox();
+    await drainOutbox({ to: [to] });
     let [row] = await rowsFor([to]);
     expect(row?.sentAt).toBeNull();
     expect(row?.attempts).toBe(1);
     expect(row?.lastError).toContain("mail server refused");
     // Not due yet: a drain now leaves it alone.
     expect(row!.nextAttemptAt.getTime()).toBeGreaterThanOrEqual(started + retryDelayMs(1) - 1000);
-    await drainOutbox();
+    await drainOutbox({ to: [to] });
     [row] = await rowsFor([to]);
     expect(row?.attempts).toBe(1);
     // Drains from the future find it due each time, until the last attempt.
-    for (let i = 0; i < MAX_ATTEMPTS + 2; i++) await drainOutbox({ now: new Date(Date.now() + 7 * 3_600_000) });
+    for (let i = 0; i < MAX_ATTEMPTS + 2; i++)
+      await drainOutbox({ now: new Date(Date.now() + 7 * 3_600_000), to: [to] });
     [row] = await rowsFor([to]);
     expect(row?.attempts).toBe(MAX_ATTEMPTS);
     expect(row?.sentAt).toBeNull();
@@ -80,7 +81,7 @@ describe("mail outbox", () => {
     failFor.clear();
     const db = getDb();
     await db.update(mailOutbox).set({ attempts: 0 }).where(eq(mailOutbox.to, to));
-    await drainOutbox({ now: new Date(Date.now() + 7 * 3_600_000) });
+    await drainOutbox({ now: new Date(Date.now() + 7 * 3_600_000), to: [to] });
     expect(delivered).toContain(to);
   });
 
@@ -88,13 +89,25 @@ describe("mail outbox", () => {
     const to = [address(), address(), address(), address()];
     for (const t of to) await queueMail(getDb(), mail(t));
     delayMs = 50;
-    await Promise.all([drainOutbox(), drainOutbox(), drainOutbox()]);
+    await Promise.all([drainOutbox({ to }), drainOutbox({ to }), drainOutbox({ to })]);
     for (const t of to)
       expect(
         delivered.filter((d) => d === t),
         t,
       ).toHaveLength(1);
     expect((await rowsFor(to)).every((r) => r.sentAt && r.attempts === 1)).toBe(true);
+  });
+
+  test("a drain limited to some recipients leaves everyone else's mail alone", async () => {
+    const mine = address();
+    const theirs = address();
+    for (const t of [mine, theirs]) await queueMail(getDb(), mail(t));
+    await drainOutbox({ to: [mine] });
+    expect(delivered).toEqual([mine]);
+    const [other] = await rowsFor([theirs]);
+    expect(other?.attempts).toBe(0);
+    expect(other?.sentAt).toBeNull();
+    await drainOutbox({ to: [theirs] });
   });
 
   test("the wait grows by doubling from one minute and stops growing at six hours", () => {

@@ -2,6 +2,7 @@ import "server-only";
 import { and, desc, eq, isNull } from "drizzle-orm";
 import { AppError } from "@/lib/errors";
 import { atLeast } from "../../authz";
+import { queueMail, type OutgoingMail } from "../../mail";
 import { hashToken, newToken } from "../../tokens";
 import { getDb } from "../index";
 import { invites, memberships, teams, users, type Role } from "../schema";
@@ -31,10 +32,21 @@ export function mayInvite(inviter: Role, role: Role): boolean {
   return false;
 }
 
+/** What the invite e-mail says, read in the transaction that makes the invite. */
+export interface InviteMailFacts {
+  token: string;
+  email: string;
+  role: Role;
+  expiresAt: Date;
+  teamName: string;
+  inviterName: string;
+}
+
 /**
  * Creates an invite and returns it with its token. Only the SHA-256 of the token is stored;
- * the token itself goes out in the e-mail and nowhere else. `deliver` sends that e-mail
- * inside the transaction: when it fails, no invite is left behind.
+ * the token itself goes out in the e-mail and nowhere else. The e-mail made by `mail` is queued
+ * in the same transaction (src/server/mail/outbox.ts): the invite and its message are kept or
+ * dropped together, and the caller sends it after the commit with `deliverSoon()`.
  *
  * `inviterRole` is the role the caller checked; it is read again under the team's lock, so
  * someone removed or demoted a moment ago sends nothing.
@@ -45,7 +57,7 @@ export async function createInvite({
   inviterRole,
   email,
   role,
-  deliver,
+  mail,
   now = new Date(),
 }: {
   teamId: number;
@@ -53,14 +65,14 @@ export async function createInvite({
   inviterRole: Role;
   email: string;
   role: Role;
-  deliver?: (message: { token: string; email: string; expiresAt: Date }) => Promise<void>;
+  mail?: (facts: InviteMailFacts) => OutgoingMail;
   now?: Date;
 }): Promise<{ invite: InviteDto; token: string }> {
   if (!mayInvite(inviterRole, role))
     throw new AppError("forbidden", `A ${inviterRole} cannot invite someone as ${role}.`);
   const address = email.trim().toLowerCase();
   return getDb().transaction(async (tx) => {
-    await lockTeam(tx, teamId);
+    const team = await lockTeam(tx, teamId);
     const roleNow = await memberRole(tx, teamId, invitedBy);
     if (roleNow === null || !mayInvite(roleNow, role))
       throw new AppError(
@@ -83,7 +95,14 @@ export async function createInvite({
       .values({ teamId, email: address, role, tokenHash: hashToken(token), invitedBy, expiresAt })
       .$returningId();
     await recordAudit(tx, { teamId, actorId: invitedBy, action: "member.invited", detail: { email: address, role } });
-    await deliver?.({ token, email: address, expiresAt });
+    if (mail) {
+      const [inviter] = await tx
+        .select({ name: users.name, email: users.email })
+        .from(users)
+        .where(eq(users.id, invitedBy));
+      const inviterName = inviter?.name || inviter?.email || "A team member";
+      await queueMail(tx, mail({ token, email: address, role, expiresAt, teamName: team.name, inviterName }));
+    }
     return {
       token,
       invite: {
