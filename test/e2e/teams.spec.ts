@@ -116,9 +116,15 @@ test("a player shares a permalink; a stranger opens the public one, is refused t
   expect(png.headers()["content-type"]).toBe("image/png");
   expect((await png.body()).subarray(1, 4).toString()).toBe("PNG");
 
-  // The team-only link asks a signed-out stranger to sign in, and refuses a signed-in one.
-  await stranger.goto(teamOnly);
-  await expect(stranger.getByRole("heading", { name: "Sign in to open this link" })).toBeVisible();
+  // The team-only link is "not available" to a signed-out stranger, as an unknown link is, with a
+  // way to sign in and come back; a signed-in stranger is refused the same way.
+  const signedOut = await stranger.goto(teamOnly);
+  expect(signedOut?.status()).toBe(404);
+  await expect(stranger.getByRole("heading", { name: "This link is not available" })).toBeVisible();
+  await expect(stranger.getByRole("main").getByRole("link", { name: "sign in", exact: true })).toHaveAttribute(
+    "href",
+    `/sign-in?callbackUrl=${encodeURIComponent(new URL(teamOnly).pathname)}`,
+  );
   await signUpAs(stranger, "Pell Vantor", newEmail("stranger"));
   const refused = await stranger.goto(teamOnly);
   expect(refused?.status()).toBe(404);
