@@ -84,7 +84,8 @@ export function handle<Args extends unknown[]>(fn: (...args: Args) => Promise<Re
     try {
       return await fn(...args);
     } catch (error) {
-      if (error instanceof AppError) return Response.json(error.toResponseBody(), { status: error.status });
+      if (error instanceof AppError)
+        return Response.json(error.toResponseBody(), { status: error.status, headers: error.headers });
       console.error("[api] unexpected error:", error);
       const internal = new AppError("internal", "Something went wrong on our side. Try again in a moment.");
       return Response.json(internal.toResponseBody(), { status: 500 });

@@ -2,7 +2,7 @@ import "server-only";
 import type { Pool as PromisePool } from "mysql2/promise";
 import { RateLimiterMySQL } from "rate-limiter-flexible";
 import { env } from "@/env";
-import { AppError } from "@/lib/errors";
+import { RateLimitedError } from "@/lib/errors";
 import { getDb } from "@/server/db";
 
 /** What each limit counts, and how many tries it allows in how long. */
@@ -12,6 +12,10 @@ export const LIMITS = {
   signUpIp: { points: 10, duration: 60 * 60 },
   mailEmail: { points: 5, duration: 15 * 60 },
   mailIp: { points: 20, duration: 15 * 60 },
+  // POST /api/paths computes on a posted graph for anyone (up to half a second of CPU each):
+  // a person calling it by hand never comes near these, a script looping on it stops.
+  pathsIpMinute: { points: 30, duration: 60 },
+  pathsIpHour: { points: 300, duration: 60 * 60 },
 } as const satisfies Record<string, { points: number; duration: number }>;
 
 export type LimitName = keyof typeof LIMITS;
@@ -58,7 +62,7 @@ export function isOverLimit(error: unknown): error is { msBeforeNext: number; re
 
 /**
  * Counts one try against each named limit (all of them, so one over the limit
- * does not spare the others) and throws AppError "rate_limited" when any is over.
+ * does not spare the others) and throws RateLimitedError (429) when any is over.
  */
 export async function consume(checks: [LimitName, string][]): Promise<void> {
   let wait = 0;
@@ -70,7 +74,7 @@ export async function consume(checks: [LimitName, string][]): Promise<void> {
       wait = Math.max(wait, error.msBeforeNext);
     }
   }
-  if (wait > 0) throw new AppError("rate_limited", tooManyMessage(wait));
+  if (wait > 0) throw new RateLimitedError(tooManyMessage(wait), Math.ceil(wait / 1000));
 }
 
 /** Forgets the tries counted for one key (tests, and a successful sign-in for its e-mail). */

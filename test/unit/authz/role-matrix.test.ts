@@ -298,9 +298,12 @@ describe("role matrix", () => {
       const { params = {}, body, query = "" } = c.call(w);
       setSession(userOf(w, actor));
       const url = `http://test${path.replace(/\[(\.\.\.)?(\w+)\]/g, (_, __, name: string) => encodeURIComponent(params[name] ?? ""))}${query}`;
+      // Each call from its own address, like the actions above: no route's per-address limit decides a row.
+      const from = { "x-forwarded-for": `198.51.100.${(address++ % 250) + 1}` };
       const request = new Request(url, {
         method,
-        ...(body === undefined ? {} : { body: JSON.stringify(body), headers: { "content-type": "application/json" } }),
+        headers: body === undefined ? from : { ...from, "content-type": "application/json" },
+        ...(body === undefined ? {} : { body: JSON.stringify(body) }),
       });
       const res = await handler!(request, { params: Promise.resolve(params) });
       got[actor] = res.status;
