@@ -82,13 +82,22 @@ export async function resetLimit(name: LimitName, key: string): Promise<void> {
   await limiter(name).delete(key.toLowerCase());
 }
 
-/** The client's address as the app sees it: the first X-Forwarded-For entry set by the proxy in front. */
-export function clientIp(headers: Headers | Record<string, string | string[] | undefined>): string {
-  const get = (name: string): string | undefined => {
-    if (headers instanceof Headers) return headers.get(name) ?? undefined;
-    const v = headers[name];
-    return Array.isArray(v) ? v[0] : v;
-  };
-  const forwarded = get("x-forwarded-for")?.split(",")[0]?.trim();
-  return forwarded || get("x-real-ip")?.trim() || "unknown";
+/**
+ * The client's address, for the per-address limits. The server (scripts/serve.mjs) appends the
+ * address of whoever opened the connection to X-Forwarded-For, as each proxy does, so the list
+ * ends with the nearest hop. With `hops` trusted proxies in front (TRUSTED_PROXY_HOPS), the client
+ * is the entry `hops` places from the right: 0 means no proxy, the connection's own address. Entries
+ * further left were written by the client and prove nothing; a list shorter than `hops` (a request
+ * that skipped a proxy) gives its first entry. This is Express's numeric `trust proxy` rule.
+ */
+export function clientIp(
+  headers: Headers | Record<string, string | string[] | undefined>,
+  hops: number = env().TRUSTED_PROXY_HOPS,
+): string {
+  const header = headers instanceof Headers ? headers.get("x-forwarded-for") : headers["x-forwarded-for"];
+  const list = (Array.isArray(header) ? header.join(",") : (header ?? ""))
+    .split(",")
+    .map((entry) => entry.trim())
+    .filter(Boolean);
+  return list[Math.max(0, list.length - 1 - hops)] ?? "unknown";
 }

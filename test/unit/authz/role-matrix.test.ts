@@ -7,6 +7,7 @@ import type { SessionUser } from "@/server/auth";
 import { setSession } from "./session-mock";
 import { closeDb } from "@/server/db";
 import { VIEW, world, type World } from "./world";
+import { ONE_MOVE_PATHS_REQUEST } from "../../fixtures/paths-request";
 
 // Who is signed in for the call under test. Route handlers read the session only through
 // @/server/auth, so the matrix sets it here; everything else (database, role checks) is real.
@@ -83,27 +84,7 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
   "POST /api/paths": [
     {
       what: "explore a posted graph",
-      call: () => ({
-        body: {
-          root: "a",
-          graph: {
-            nodes: [
-              {
-                kind: "move",
-                id: "a",
-                input: "1",
-                level: "mid",
-                damage: 10,
-                startup: 12,
-                onBlock: -2,
-                onHit: 3,
-                onCounterHit: 5,
-              },
-            ],
-            edges: [],
-          },
-        },
-      }),
+      call: () => ({ body: ONE_MOVE_PATHS_REQUEST }),
       expect: all(200),
     },
   ],
