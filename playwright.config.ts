@@ -37,8 +37,9 @@ export default defineConfig({
     { name: "phone", use: { ...devices["Pixel 7"], launchOptions: chromium } },
   ],
   webServer: {
-    // `node …/next start`, not `npm run`, so Playwright stops the server itself.
-    command: `node node_modules/next/dist/bin/next start -p ${port} -H 127.0.0.1`,
+    // The app's own server (`next start` that writes the caller's address), run by `node`, not
+    // `npm run`, so Playwright stops the server itself.
+    command: `node scripts/serve.mjs -p ${port} -H 127.0.0.1`,
     url: `${baseURL}/api/health`,
     reuseExistingServer: false,
     timeout: 60_000,

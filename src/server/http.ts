@@ -110,7 +110,8 @@ export function handle<Args extends unknown[]>(fn: (...args: Args) => Promise<Re
     try {
       return await fn(...args);
     } catch (error) {
-      if (error instanceof AppError) return Response.json(error.toResponseBody(), { status: error.status });
+      if (error instanceof AppError)
+        return Response.json(error.toResponseBody(), { status: error.status, headers: error.headers });
       if (isDatabaseDown(error)) {
         console.error("[api] the database is not answering:", error instanceof Error ? error.message : error);
         const unavailable = databaseUnavailable();

@@ -2,7 +2,7 @@ import "server-only";
 import type { Pool as PromisePool } from "mysql2/promise";
 import { RateLimiterMySQL } from "rate-limiter-flexible";
 import { env } from "@/env";
-import { AppError } from "@/lib/errors";
+import { RateLimitedError } from "@/lib/errors";
 import { getDb } from "@/server/db";
 
 /** What each limit counts, and how many tries it allows in how long. */
@@ -12,6 +12,10 @@ export const LIMITS = {
   signUpIp: { points: 10, duration: 60 * 60 },
   mailEmail: { points: 5, duration: 15 * 60 },
   mailIp: { points: 20, duration: 15 * 60 },
+  // POST /api/paths computes on a posted graph for anyone (up to half a second of CPU each):
+  // a person calling it by hand never comes near these, a script looping on it stops.
+  pathsIpMinute: { points: 30, duration: 60 },
+  pathsIpHour: { points: 300, duration: 60 * 60 },
 } as const satisfies Record<string, { points: number; duration: number }>;
 
 export type LimitName = keyof typeof LIMITS;
@@ -58,7 +62,7 @@ export function isOverLimit(error: unknown): error is { msBeforeNext: number; re
 
 /**
  * Counts one try against each named limit (all of them, so one over the limit
- * does not spare the others) and throws AppError "rate_limited" when any is over.
+ * does not spare the others) and throws RateLimitedError (429) when any is over.
  */
 export async function consume(checks: [LimitName, string][]): Promise<void> {
   let wait = 0;
@@ -70,7 +74,7 @@ export async function consume(checks: [LimitName, string][]): Promise<void> {
       wait = Math.max(wait, error.msBeforeNext);
     }
   }
-  if (wait > 0) throw new AppError("rate_limited", tooManyMessage(wait));
+  if (wait > 0) throw new RateLimitedError(tooManyMessage(wait), Math.ceil(wait / 1000));
 }
 
 /** Forgets the tries counted for one key (tests, and a successful sign-in for its e-mail). */
@@ -78,13 +82,22 @@ export async function resetLimit(name: LimitName, key: string): Promise<void> {
   await limiter(name).delete(key.toLowerCase());
 }
 
-/** The client's address as the app sees it: the first X-Forwarded-For entry set by the proxy in front. */
-export function clientIp(headers: Headers | Record<string, string | string[] | undefined>): string {
-  const get = (name: string): string | undefined => {
-    if (headers instanceof Headers) return headers.get(name) ?? undefined;
-    const v = headers[name];
-    return Array.isArray(v) ? v[0] : v;
-  };
-  const forwarded = get("x-forwarded-for")?.split(",")[0]?.trim();
-  return forwarded || get("x-real-ip")?.trim() || "unknown";
+/**
+ * The client's address, for the per-address limits. The server (scripts/serve.mjs) appends the
+ * address of whoever opened the connection to X-Forwarded-For, as each proxy does, so the list
+ * ends with the nearest hop. With `hops` trusted proxies in front (TRUSTED_PROXY_HOPS), the client
+ * is the entry `hops` places from the right: 0 means no proxy, the connection's own address. Entries
+ * further left were written by the client and prove nothing; a list shorter than `hops` (a request
+ * that skipped a proxy) gives its first entry. This is Express's numeric `trust proxy` rule.
+ */
+export function clientIp(
+  headers: Headers | Record<string, string | string[] | undefined>,
+  hops: number = env().TRUSTED_PROXY_HOPS,
+): string {
+  const header = headers instanceof Headers ? headers.get("x-forwarded-for") : headers["x-forwarded-for"];
+  const list = (Array.isArray(header) ? header.join(",") : (header ?? ""))
+    .split(",")
+    .map((entry) => entry.trim())
+    .filter(Boolean);
+  return list[Math.max(0, list.length - 1 - hops)] ?? "unknown";
 }

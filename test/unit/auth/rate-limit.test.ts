@@ -82,11 +82,34 @@ describe("rate limits", () => {
     await expect(withLimiter("signUpIp", failure, () => consume([["signUpIp", "203.0.113.10"]]))).rejects.toBe(failure);
   });
 
-  test("messages and client addresses", () => {
+  test("messages", () => {
     expect(tooManyMessage(1)).toBe("Too many attempts, try again in 1 minute.");
     expect(tooManyMessage(14 * 60_000 + 1)).toBe("Too many attempts, try again in 15 minutes.");
-    expect(clientIp(new Headers({ "x-forwarded-for": "203.0.113.7, 10.0.0.1" }))).toBe("203.0.113.7");
-    expect(clientIp({ "x-real-ip": "198.51.100.2" })).toBe("198.51.100.2");
+  });
+
+  test("rotating X-Forwarded-For does not change the address when no proxy is trusted", () => {
+    // The server appends the connection's address (127.0.0.1 here) to whatever the client sent.
+    const seen = new Set(
+      ["203.0.113.1", "203.0.113.2", "198.51.100.9, 203.0.113.3", ""].map((claimed) =>
+        clientIp(new Headers({ "x-forwarded-for": claimed ? `${claimed}, 127.0.0.1` : "127.0.0.1" }), 0),
+      ),
+    );
+    expect([...seen]).toEqual(["127.0.0.1"]);
+    // TRUSTED_PROXY_HOPS is unset in the tests: no proxy is the default.
+    expect(clientIp(new Headers({ "x-forwarded-for": "203.0.113.7, 10.0.0.1" }))).toBe("10.0.0.1");
+  });
+
+  test("with trusted proxies, the client is that many entries from the right", () => {
+    const chain = { "x-forwarded-for": "198.51.100.66, 203.0.113.7, 10.0.0.2, 10.0.0.1" };
+    expect(clientIp(chain, 0)).toBe("10.0.0.1");
+    expect(clientIp(chain, 1)).toBe("10.0.0.2");
+    expect(clientIp(chain, 2)).toBe("203.0.113.7");
+    // What the client wrote to the left of the trusted hops never counts.
+    expect(clientIp({ "x-forwarded-for": "1.1.1.1, 203.0.113.7, 10.0.0.2, 10.0.0.1" }, 2)).toBe("203.0.113.7");
+    // Fewer entries than trusted hops (a request that skipped a proxy): the farthest one there is.
+    expect(clientIp({ "x-forwarded-for": "10.0.0.1" }, 2)).toBe("10.0.0.1");
+    // Headers other than X-Forwarded-For are the client's own words.
+    expect(clientIp({ "x-real-ip": "198.51.100.2" })).toBe("unknown");
     expect(clientIp({})).toBe("unknown");
   });
 });

@@ -7,6 +7,7 @@ import type { SessionUser } from "@/server/auth";
 import { setSession } from "./session-mock";
 import { closeDb } from "@/server/db";
 import { VIEW, world, type World } from "./world";
+import { ONE_MOVE_PATHS_REQUEST } from "../../fixtures/paths-request";
 
 // Who is signed in for the call under test. Route handlers read the session only through
 // @/server/auth, so the matrix sets it here; everything else (database, role checks) is real.
@@ -85,27 +86,7 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
   "POST /api/paths": [
     {
       what: "explore a posted graph",
-      call: () => ({
-        body: {
-          root: "a",
-          graph: {
-            nodes: [
-              {
-                kind: "move",
-                id: "a",
-                input: "1",
-                level: "mid",
-                damage: 10,
-                startup: 12,
-                onBlock: -2,
-                onHit: 3,
-                onCounterHit: 5,
-              },
-            ],
-            edges: [],
-          },
-        },
-      }),
+      call: () => ({ body: ONE_MOVE_PATHS_REQUEST }),
       expect: all(200),
     },
   ],
@@ -305,9 +286,12 @@ describe("role matrix", () => {
       const { params = {}, body, query = "" } = c.call(w);
       setSession(userOf(w, actor));
       const url = `http://test${path.replace(/\[(\.\.\.)?(\w+)\]/g, (_, __, name: string) => encodeURIComponent(params[name] ?? ""))}${query}`;
+      // Each call from its own address, like the actions above: no route's per-address limit decides a row.
+      const from = { "x-forwarded-for": `198.51.100.${(address++ % 250) + 1}` };
       const request = new Request(url, {
         method,
-        ...(body === undefined ? {} : { body: JSON.stringify(body), headers: { "content-type": "application/json" } }),
+        headers: body === undefined ? from : { ...from, "content-type": "application/json" },
+        ...(body === undefined ? {} : { body: JSON.stringify(body) }),
       });
       const res = await handler!(request, { params: Promise.resolve(params) });
       got[actor] = res.status;
