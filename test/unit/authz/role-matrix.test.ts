@@ -1,9 +1,7 @@
-import { readdirSync, statSync } from "node:fs";
-import { join, relative } from "node:path";
 import { afterAll, beforeEach, describe, expect, test, vi } from "vitest";
 import { ERROR_STATUS } from "@/lib/errors";
-import type { ActionState } from "@/server/actions";
 import type { SessionUser } from "@/server/auth";
+import { routeHandlers, routeUrl, serverActions, type Action } from "./inventory";
 import { setSession } from "./session-mock";
 import { closeDb } from "@/server/db";
 import { VIEW, world, type World } from "./world";
@@ -36,7 +34,6 @@ type Expected = Record<Actor, number>;
 const userOf = (w: World, actor: Actor): SessionUser | null =>
   actor === "anonymous" ? null : { id: w.people[actor].id, email: w.people[actor].email, name: w.people[actor].name };
 
-type Handler = (request: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
 interface Case {
   /** What the call does, for the failure message. */
   what: string;
@@ -165,16 +162,16 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
     { what: "list the team's links", call: (w) => ({ params: { team: w.team.slug } }), expect: members(200) },
   ],
   "POST /api/invites/accept": [
-    // The invite is for another address: nobody here may use it (the invitee's own use is tested in teams.test.ts).
+    // The invite is for another address: nobody here may use it, and to them it answers as an unknown
+    // invite (the invitee's own use is tested in teams.test.ts).
     {
       what: "use someone else's invite",
       call: (w) => ({ body: { token: w.pending.token } }),
-      expect: { ...all(403), anonymous: 401 },
+      expect: { ...all(404), anonymous: 401 },
     },
   ],
 };
 
-type Action = (previous: ActionState, form: FormData) => Promise<ActionState>;
 interface ActionCase {
   what: string;
   form: (w: World) => Record<string, string>;
@@ -213,16 +210,6 @@ const ACTIONS: Record<string, ActionCase[]> = {
   ],
 };
 
-async function actions(): Promise<Map<string, Action>> {
-  const out = new Map<string, Action>();
-  for (const file of filesNamed(APP, "actions.ts")) {
-    const mod = (await import(file)) as Record<string, unknown>;
-    for (const [name, fn] of Object.entries(mod))
-      if (typeof fn === "function") out.set(`${relative(APP, file)} ${name}`, fn as Action);
-  }
-  return out;
-}
-
 async function statusOfAction(action: Action, form: Record<string, string>): Promise<number> {
   const data = new FormData();
   for (const [k, v] of Object.entries(form)) data.set(k, v);
@@ -235,32 +222,9 @@ async function statusOfAction(action: Action, form: Record<string, string>): Pro
   }
 }
 
-const APP = join(process.cwd(), "src/app");
-const API = join(APP, "api");
-const METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE"] as const;
-
-/** Every file called `file` under `dir`. */
-function filesNamed(dir: string, file: string): string[] {
-  return readdirSync(dir).flatMap((name) => {
-    const path = join(dir, name);
-    if (statSync(path).isDirectory()) return filesNamed(path, file);
-    return name === file ? [path] : [];
-  });
-}
-
-async function handlers(): Promise<Map<string, Handler>> {
-  const out = new Map<string, Handler>();
-  for (const file of filesNamed(API, "route.ts")) {
-    const route = `/api/${relative(API, file).replace(/\/?route\.ts$/, "")}`.replace(/\/$/, "");
-    const mod = (await import(file)) as Partial<Record<(typeof METHODS)[number], Handler>>;
-    for (const m of METHODS) if (typeof mod[m] === "function") out.set(`${m} ${route}`, mod[m]);
-  }
-  return out;
-}
-
 describe("role matrix", () => {
   test("every route handler has a row, and every row a route", async () => {
-    const found = [...(await handlers()).keys()].sort();
+    const found = [...(await routeHandlers()).keys()].sort();
     expect(
       found.filter((k) => !(k in MATRIX)),
       "routes with no row in MATRIX",
@@ -275,7 +239,7 @@ describe("role matrix", () => {
     "exempt" in row ? [] : row.map((c) => [key, c] as const),
   );
   test.each(rows)("%s", async (key, c) => {
-    const handler = (await handlers()).get(key);
+    const handler = (await routeHandlers()).get(key);
     expect(handler, `${key} is not a route`).toBeDefined();
     const [method, path] = key.split(" ") as [string, string];
     const got: Partial<Expected> = {};
@@ -285,10 +249,9 @@ describe("role matrix", () => {
       const w = await world();
       const { params = {}, body, query = "" } = c.call(w);
       setSession(userOf(w, actor));
-      const url = `http://test${path.replace(/\[(\.\.\.)?(\w+)\]/g, (_, __, name: string) => encodeURIComponent(params[name] ?? ""))}${query}`;
       // Each call from its own address, like the actions above: no route's per-address limit decides a row.
       const from = { "x-forwarded-for": `198.51.100.${(address++ % 250) + 1}` };
-      const request = new Request(url, {
+      const request = new Request(routeUrl(path, params, query), {
         method,
         headers: body === undefined ? from : { ...from, "content-type": "application/json" },
         ...(body === undefined ? {} : { body: JSON.stringify(body) }),
@@ -308,7 +271,7 @@ describe("role matrix", () => {
   });
 
   test("every server action has a row, and every row an action", async () => {
-    const found = [...(await actions()).keys()].sort();
+    const found = [...(await serverActions()).keys()].sort();
     expect(
       found.filter((k) => !(k in ACTIONS)),
       "server actions with no row in ACTIONS",
@@ -321,7 +284,7 @@ describe("role matrix", () => {
 
   const actionRows = Object.entries(ACTIONS).flatMap(([key, cases]) => cases.map((c) => [key, c] as const));
   test.each(actionRows)("action %s", async (key, c) => {
-    const action = (await actions()).get(key);
+    const action = (await serverActions()).get(key);
     expect(action, `${key} is not a server action`).toBeDefined();
     const got: Partial<Expected> = {};
     for (const actor of ACTORS) {

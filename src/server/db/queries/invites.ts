@@ -244,27 +244,12 @@ export async function acceptInvite({
       .from(invites)
       .where(eq(invites.tokenHash, tokenHash))
       .for("update");
-    const status = !row
-      ? "unknown"
-      : row.revokedAt
-        ? "revoked"
-        : row.acceptedAt
-          ? "used"
-          : row.expiresAt <= now
-            ? "expired"
-            : "valid";
-    if (!row || status !== "valid")
-      throw new AppError(
-        status === "unknown" ? "not_found" : "conflict",
-        INVITE_PROBLEM[status as Exclude<typeof status, "valid">],
-      );
-    if (row.email !== userEmail.trim().toLowerCase()) {
-      // The address is not repeated here: an answer to an API call names nobody.
-      throw new AppError(
-        "forbidden",
-        "This invite was sent to another e-mail address. Sign in with the address it was sent to, then accept it.",
-      );
-    }
+    // An invite sent to someone else answers as one that does not exist, whatever its state:
+    // the answer tells a stranger holding a token nothing about the team behind it. (The invite
+    // page explains a signed-in person's wrong address before they can press Accept.)
+    if (!row || row.email !== userEmail.trim().toLowerCase()) throw new AppError("not_found", INVITE_PROBLEM.unknown);
+    const status = row.revokedAt ? "revoked" : row.acceptedAt ? "used" : row.expiresAt <= now ? "expired" : "valid";
+    if (status !== "valid") throw new AppError("conflict", INVITE_PROBLEM[status]);
     const [member] = await tx
       .select({ role: memberships.role })
       .from(memberships)
