@@ -179,3 +179,25 @@ test("the sign-up, team, invite and shared pages have no serious or critical acc
   await other.goto(linkIn(await waitForMail(invitedEmail)));
   await check(other, "invite");
 });
+
+test("past the hourly limit on invites, the invite form says so and how long to wait", async ({ page }) => {
+  await signUpAs(page, "Ivo Stratt", newEmail("limit"), "/teams");
+  const team = await new TeamsPage(page).create(`Busy Roster ${randomUUID().slice(0, 4)}`);
+  const { origin, pathname } = new URL(page.url());
+  // A whole roster sent at once (through the API, as the form does), up to the limit for one sender.
+  for (let i = 0; i < 20; i++) {
+    const res = await page.request.post(`${pathname.replace(/^\/teams\//, "/api/teams/")}/invites`, {
+      data: { email: newEmail("roster"), role: "viewer" },
+      headers: { origin },
+    });
+    expect(res.status()).toBe(201);
+  }
+  const next = newEmail("one-more");
+  await team.invite.getByLabel("E-mail").fill(next);
+  await team.invite.getByRole("button", { name: "Send invite" }).click();
+  await expect(team.invite.getByRole("alert")).toContainText(
+    /reached the limit on invites for the last hour\. .*try again in \d+ minutes?\./,
+  );
+  // Nothing typed is lost: the address is still there to send later.
+  await expect(team.invite.getByLabel("E-mail")).toHaveValue(next);
+});

@@ -5,6 +5,7 @@ import { redirect } from "next/navigation";
 import { z } from "zod";
 import { env } from "@/env";
 import { AppError } from "@/lib/errors";
+import { displayNameSchema } from "@/lib/names";
 import { validatedAction, validatedActionWithUser } from "@/server/actions";
 import { hashPassword, newPasswordSchema, verifyPassword } from "@/server/auth/password";
 import {
@@ -25,11 +26,7 @@ const ip = async () => clientIp(await headers());
 
 export const signUp = validatedAction(
   z.object({
-    name: z
-      .string()
-      .trim()
-      .min(1, { error: "Enter the name your team will see." })
-      .max(120, { error: "Use at most 120 characters for your name." }),
+    name: displayNameSchema,
     email: emailSchema,
     password: newPasswordSchema,
   }),

@@ -16,6 +16,10 @@ export const LIMITS = {
   // a person calling it by hand never comes near these, a script looping on it stops.
   pathsIpMinute: { points: 30, duration: 60 },
   pathsIpHour: { points: 300, duration: 60 * 60 },
+  // Each invite mails an address the team chose: enough for a coach to bring in a whole roster
+  // in one sitting, and for a team's few coaches to do it together; a spammer stops at these.
+  inviteUser: { points: 20, duration: 60 * 60 },
+  inviteTeam: { points: 50, duration: 60 * 60 },
 } as const satisfies Record<string, { points: number; duration: number }>;
 
 export type LimitName = keyof typeof LIMITS;

@@ -1,7 +1,11 @@
+import { cleanName } from "@/lib/names";
+
 /**
  * The e-mails Framefork sends. Each returns both parts of a multipart
  * message; every value put into the HTML goes through `escapeHtml`, since
- * names and team names are typed by users.
+ * names and team names are typed by users. Names also go through `cleanName`:
+ * rows written before names were checked may hold line breaks or
+ * text-direction characters, which must not reach a subject or a sentence.
  */
 export interface MailContent {
   subject: string;
@@ -96,13 +100,15 @@ export function inviteMail({
   url: string;
   expiresInDays: number;
 }): MailContent {
-  const invitation = `${inviterName} invited you to join the team ${teamName} on Framefork as a ${role}.`;
+  const inviter = cleanName(inviterName) || "A team member";
+  const team = cleanName(teamName) || "(no name)";
+  const invitation = `${inviter} invited you to join the team ${team} on Framefork as a ${role}.`;
   const footnote = `The invitation expires in ${plural(expiresInDays, "day")}. If you did not expect it, ignore this e-mail.`;
   return {
-    subject: `${inviterName} invited you to ${teamName} on Framefork`,
+    subject: `${inviter} invited you to ${team} on Framefork`,
     text: text([invitation, "Accept the invitation here:", url, footnote]),
     html: layout({
-      heading: `Join ${teamName}`,
+      heading: `Join ${team}`,
       paragraphs: [invitation],
       action: "Accept the invitation",
       url,

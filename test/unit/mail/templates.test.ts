@@ -41,4 +41,29 @@ describe("mail templates", () => {
     // The plain-text part shows them as typed.
     expect(mail.text).toContain(hostile);
   });
+
+  test("names lose line breaks and text-direction characters before they reach the subject or a sentence", () => {
+    // Rows written before names were checked may hold these; the mail must not carry them.
+    const mail = inviteMail({
+      teamName: "Night\u202EpuorG\u202C Crew",
+      inviterName: "Mara\r\nBcc: someone@example.test\u200B",
+      role: "player",
+      url: "http://127.0.0.1:3000/invites/abc",
+      expiresInDays: 7,
+    });
+    // Line feeds are the templates' own, between paragraphs; nothing else of these categories is left.
+    for (const part of [mail.subject, mail.text, mail.html])
+      expect(part.replaceAll("\n", "")).not.toMatch(/[\p{Cc}\p{Cf}\u2028\u2029]/u);
+    expect(mail.subject).toBe("Mara Bcc: someone@example.test invited you to NightpuorG Crew on Framefork");
+    expect(mail.text).toContain("Mara Bcc: someone@example.test invited you to join the team NightpuorG Crew");
+    // Emoji sequences and letters of other scripts stay as they are.
+    const kept = inviteMail({
+      teamName: "👩‍💻 می‌خواهم",
+      inviterName: "Zoë",
+      role: "viewer",
+      url: "http://x.example.test/",
+      expiresInDays: 7,
+    });
+    expect(kept.subject).toBe("Zoë invited you to 👩‍💻 می‌خواهم on Framefork");
+  });
 });

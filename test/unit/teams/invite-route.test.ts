@@ -1,9 +1,10 @@
+import { randomUUID } from "node:crypto";
 import { eq, inArray } from "drizzle-orm";
 import { afterAll, beforeEach, describe, expect, test, vi } from "vitest";
 import type { SessionUser } from "@/server/auth";
 import { closeDb, getDb } from "@/server/db";
 import { createTeam } from "@/server/db/queries/teams";
-import { invites, mailOutbox } from "@/server/db/schema";
+import { invites, mailOutbox, memberships } from "@/server/db/schema";
 import { drainOutbox } from "@/server/mail/outbox";
 import { asUser } from "./parallel-session";
 import { makeUser } from "./fixtures";
@@ -118,5 +119,48 @@ describe("the invite e-mail goes out after the answer", () => {
     mailServer.refuse.clear();
     await drainOutbox({ to: [to], now: new Date(Date.now() + 3_600_000) });
     expect(mailServer.sent).toEqual([to]);
+  });
+});
+
+describe("invites are limited per sender and per team", () => {
+  const body = (label: string, i: number) => ({
+    email: `${label}-${i}-${randomUUID().slice(0, 8)}@example.test`,
+    role: "viewer",
+  });
+
+  test("a sender's 21st invite in an hour is refused with 429 in the error format, and writes nothing", async () => {
+    const coach = await makeUser("coach");
+    const owner = await makeUser("owner");
+    const team = await createTeam({ name: "Busy Coach", ownerId: owner.id });
+    await getDb().insert(memberships).values({ teamId: team.id, userId: coach.id, role: "coach" });
+    for (let i = 0; i < 20; i++) expect((await send(coach, team.slug, body("roster", i))).status).toBe(201);
+
+    const over = body("one-too-many", 20);
+    const res = await send(coach, team.slug, over);
+    expect(res.status).toBe(429);
+    const answer = (await res.json()) as { error: { code: string; message: string } };
+    expect(answer.error.code).toBe("rate_limited");
+    expect(answer.error.message).toMatch(/try again in \d+ minutes?/);
+    expect(await getDb().select().from(invites).where(eq(invites.email, over.email))).toEqual([]);
+    expect(await outboxFor([over.email])).toEqual([]);
+    // The owner of the same team still has their own allowance.
+    expect((await send(owner, team.slug, body("owner", 0))).status).toBe(201);
+  });
+
+  test("a team's 51st invite in an hour is refused, and strangers' tries do not use the team's allowance", async () => {
+    const owner = await makeUser("owner");
+    const team = await createTeam({ name: "Busy Team", ownerId: owner.id });
+    const coaches = [await makeUser("coach"), await makeUser("coach")];
+    await getDb()
+      .insert(memberships)
+      .values(coaches.map((c) => ({ teamId: team.id, userId: c.id, role: "coach" as const })));
+    const stranger = await makeUser("stranger");
+    for (let i = 0; i < 60; i++) expect((await send(stranger, team.slug, body("probe", i))).status).toBe(404);
+
+    // 20 + 20 + 10: each sender within their own limit, the team at 50.
+    const senders = [...coaches.map((c) => [c, 20] as const), [owner, 10] as const];
+    for (const [sender, n] of senders)
+      for (let i = 0; i < n; i++) expect((await send(sender, team.slug, body("team", i))).status).toBe(201);
+    expect((await send(owner, team.slug, body("fifty-first", 0))).status).toBe(429);
   });
 });
