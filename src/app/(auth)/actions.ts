@@ -15,7 +15,7 @@ import {
   updatePassword,
   usePasswordReset,
 } from "@/server/auth/queries";
-import { clientIp, consume } from "@/server/auth/rate-limit";
+import { clientIp, consume, passwordAttempt } from "@/server/auth/rate-limit";
 import { emailSchema } from "@/server/auth/schemas";
 import { passwordResetMail, sendMail } from "@/server/mail";
 
@@ -84,10 +84,7 @@ export const changePassword = validatedActionWithUser(
     newPassword: newPasswordSchema,
   }),
   async ({ currentPassword, newPassword }, user) => {
-    await consume([
-      ["signInEmail", user.email],
-      ["signInIp", await ip()],
-    ]);
+    const attempt = await passwordAttempt(user.email, await ip());
     const row = await findUserById({ id: user.id });
     if (!row) throw new AppError("unauthorized", "Sign in to do this.");
     if (!row.passwordHash)
@@ -97,6 +94,7 @@ export const changePassword = validatedActionWithUser(
       );
     if (!(await verifyPassword(row.passwordHash, currentPassword)))
       throw new AppError("bad_request", "Your current password is not right.");
+    await attempt.succeeded();
     await updatePassword({ id: user.id, passwordHash: await hashPassword(newPassword) });
     return "Your password is changed.";
   },
