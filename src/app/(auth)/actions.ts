@@ -16,7 +16,7 @@ import {
   updatePassword,
   usePasswordReset,
 } from "@/server/auth/queries";
-import { clientIp, consume } from "@/server/auth/rate-limit";
+import { clientIp, consume, passwordAttempt } from "@/server/auth/rate-limit";
 import { emailSchema } from "@/server/auth/schemas";
 import { passwordResetMail, sendMail } from "@/server/mail";
 
@@ -81,10 +81,7 @@ export const changePassword = validatedActionWithUser(
     newPassword: newPasswordSchema,
   }),
   async ({ currentPassword, newPassword }, user) => {
-    await consume([
-      ["signInEmail", user.email],
-      ["signInIp", await ip()],
-    ]);
+    const attempt = await passwordAttempt(user.email, await ip());
     const row = await findUserById({ id: user.id });
     if (!row) throw new AppError("unauthorized", "Sign in to do this.");
     if (!row.passwordHash)
@@ -94,6 +91,7 @@ export const changePassword = validatedActionWithUser(
       );
     if (!(await verifyPassword(row.passwordHash, currentPassword)))
       throw new AppError("bad_request", "Your current password is not right.");
+    await attempt.succeeded();
     await updatePassword({ id: user.id, passwordHash: await hashPassword(newPassword) });
     return "Your password is changed.";
   },

@@ -12,7 +12,7 @@ import { accounts, sessions, users, verificationTokens } from "@/server/db/schem
 import { sendMail, signInLinkMail } from "@/server/mail";
 import { verifyAgainstDummy, verifyPassword } from "./password";
 import { findUserByEmail } from "./queries";
-import { clientIp, consume, resetLimit } from "./rate-limit";
+import { clientIp, passwordAttempt } from "./rate-limit";
 import { emailSchema } from "./schemas";
 
 export const MISMATCH = "That e-mail and password don't match.";
@@ -25,16 +25,13 @@ export async function authorizePassword(credentials: unknown, headers: Record<st
   const parsed = credentialsSchema.safeParse(credentials);
   if (!parsed.success) throw new AppError("bad_request", "Enter your e-mail and password.");
   const { email, password } = parsed.data;
-  await consume([
-    ["signInEmail", email],
-    ["signInIp", clientIp(headers)],
-  ]);
+  const attempt = await passwordAttempt(email, clientIp(headers));
   const user = await findUserByEmail({ email });
   const ok = user?.passwordHash
     ? await verifyPassword(user.passwordHash, password)
     : await verifyAgainstDummy(password);
   if (!user || !ok) throw new AppError("unauthorized", MISMATCH);
-  await resetLimit("signInEmail", email);
+  await attempt.succeeded();
   return { id: user.id, email: user.email, name: user.name };
 }
 

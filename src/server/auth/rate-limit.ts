@@ -1,4 +1,5 @@
 import "server-only";
+import { createHash } from "node:crypto";
 import type { Pool as PromisePool } from "mysql2/promise";
 import { RateLimiterMySQL } from "rate-limiter-flexible";
 import { env } from "@/env";
@@ -7,8 +8,13 @@ import { getDb } from "@/server/db";
 
 /** What each limit counts, and how many tries it allows in how long. */
 export const LIMITS = {
-  signInEmail: { points: 10, duration: 15 * 60 },
-  signInIp: { points: 50, duration: 15 * 60 },
+  // Passwords (sign-in, and the current password when changing it). Only wrong ones count: each
+  // try takes its point first, so tries sent at the same moment all count, and a right password
+  // gives it back. The tight limit is per account *and* address, so wrong passwords sent from an
+  // attacker's address never refuse the owner's right one from theirs; the looser per-address
+  // limit stops one address guessing across many accounts. No limit is per account alone.
+  passwordAccountIp: { points: 10, duration: 15 * 60 },
+  passwordIp: { points: 50, duration: 15 * 60 },
   signUpIp: { points: 10, duration: 60 * 60 },
   mailEmail: { points: 5, duration: 15 * 60 },
   mailIp: { points: 20, duration: 15 * 60 },
@@ -64,26 +70,57 @@ export function isOverLimit(error: unknown): error is { msBeforeNext: number; re
   return typeof msBeforeNext === "number" && typeof remainingPoints === "number";
 }
 
+/** One limit and what it counts per: an address, an e-mail, or both (`["passwordAccountIp", email, ip]`). */
+export type Check = [LimitName, ...string[]];
+
 /**
- * Counts one try against each named limit (all of them, so one over the limit
- * does not spare the others) and throws RateLimitedError (429) when any is over.
+ * The stored key for one check's parts: case-blind, and hashed, so an e-mail and an address
+ * together always fit the table's 255-character key and neither is stored as typed.
  */
-export async function consume(checks: [LimitName, string][]): Promise<void> {
-  let wait = 0;
-  for (const [name, key] of checks) {
-    try {
-      await limiter(name).consume(key.toLowerCase());
-    } catch (error) {
-      if (!isOverLimit(error)) throw error;
-      wait = Math.max(wait, error.msBeforeNext);
-    }
-  }
-  if (wait > 0) throw new RateLimitedError(tooManyMessage(wait), Math.ceil(wait / 1000));
+function storedKey(parts: string[]): string {
+  return createHash("sha256").update(parts.join("\n").toLowerCase()).digest("base64url");
 }
 
-/** Forgets the tries counted for one key (tests, and a successful sign-in for its e-mail). */
-export async function resetLimit(name: LimitName, key: string): Promise<void> {
-  await limiter(name).delete(key.toLowerCase());
+/**
+ * Counts one try against each limit in order and throws RateLimitedError (429) at the first one
+ * that is spent, leaving the later ones untouched. So list the caller's own limits first and a
+ * budget others share last: a refused try then spends nothing of what others share.
+ */
+export async function consume(checks: Check[]): Promise<void> {
+  for (const [name, ...parts] of checks) {
+    try {
+      await limiter(name).consume(storedKey(parts));
+    } catch (error) {
+      if (!isOverLimit(error)) throw error;
+      throw new RateLimitedError(tooManyMessage(error.msBeforeNext), Math.ceil(error.msBeforeNext / 1000));
+    }
+  }
+}
+
+/** Forgets the tries counted for one key. */
+export async function resetLimit(...[name, ...parts]: Check): Promise<void> {
+  await limiter(name).delete(storedKey(parts));
+}
+
+/**
+ * Starts one password check for `email` from `ip`: takes a point from the password limits, or
+ * throws RateLimitedError when one is spent. Call `succeeded()` when the password was right: the
+ * account's wrong tries from this address are forgotten and this try's point is given back, so
+ * the limits count wrong passwords only.
+ */
+export async function passwordAttempt(email: string, ip: string): Promise<{ succeeded(): Promise<void> }> {
+  await consume([
+    ["passwordAccountIp", email, ip],
+    ["passwordIp", ip],
+  ]);
+  return {
+    async succeeded() {
+      await resetLimit("passwordAccountIp", email, ip);
+      // Only this try's point: signing in to an account of one's own must not wipe wrong
+      // passwords sent to other accounts from the same address.
+      await limiter("passwordIp").reward(storedKey([ip]), 1);
+    },
+  };
 }
 
 /**
