@@ -16,7 +16,7 @@ import {
   updatePassword,
   usePasswordReset,
 } from "@/server/auth/queries";
-import { clientIp, consume, passwordAttempt } from "@/server/auth/rate-limit";
+import { clientIp, consume, limitMail, passwordAttempt } from "@/server/auth/rate-limit";
 import { emailSchema } from "@/server/auth/schemas";
 import { passwordResetMail, sendMail } from "@/server/mail";
 
@@ -43,10 +43,7 @@ export const signUp = validatedAction(
 );
 
 export const requestPasswordReset = validatedAction(z.object({ email: emailSchema }), async ({ email }) => {
-  await consume([
-    ["mailEmail", email],
-    ["mailIp", await ip()],
-  ]);
+  await limitMail("passwordReset", email, await ip());
   const user = await findUserByEmail({ email });
   if (user) {
     const token = await createPasswordReset({ userId: user.id, expiresInMinutes: RESET_EXPIRES_MINUTES });

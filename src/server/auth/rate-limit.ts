@@ -16,7 +16,13 @@ export const LIMITS = {
   passwordAccountIp: { points: 10, duration: 15 * 60 },
   passwordIp: { points: 50, duration: 15 * 60 },
   signUpIp: { points: 10, duration: 60 * 60 },
-  mailEmail: { points: 5, duration: 15 * 60 },
+  // Mail sent on a stranger's request, a budget per purpose (MAIL_LIMITS): tight per e-mail and
+  // address, so one client cannot use up another's; a looser cap per e-mail against filling an
+  // inbox from many addresses; and one per address over every purpose and e-mail.
+  signInLinkEmailIp: { points: 3, duration: 15 * 60 },
+  signInLinkEmail: { points: 10, duration: 60 * 60 },
+  passwordResetEmailIp: { points: 3, duration: 15 * 60 },
+  passwordResetEmail: { points: 10, duration: 60 * 60 },
   mailIp: { points: 20, duration: 15 * 60 },
   // POST /api/paths computes on a posted graph for anyone (up to half a second of CPU each):
   // a person calling it by hand never comes near these, a script looping on it stops.
@@ -121,6 +127,28 @@ export async function passwordAttempt(email: string, ip: string): Promise<{ succ
       await limiter("passwordIp").reward(storedKey([ip]), 1);
     },
   };
+}
+
+/** Each kind of mail a stranger can ask for, and its own budgets in LIMITS. */
+const MAIL_LIMITS = {
+  signInLink: { emailIp: "signInLinkEmailIp", email: "signInLinkEmail" },
+  passwordReset: { emailIp: "passwordResetEmailIp", email: "passwordResetEmail" },
+} as const satisfies Record<string, { emailIp: LimitName; email: LimitName }>;
+
+export type MailPurpose = keyof typeof MAIL_LIMITS;
+
+/**
+ * Counts one request for mail of `purpose` to `email` from `ip`, or throws RateLimitedError. The
+ * per-e-mail cap, the one budget other clients share, is spent last: only by requests that pass
+ * the client's own limits, so being refused never eats into it.
+ */
+export async function limitMail(purpose: MailPurpose, email: string, ip: string): Promise<void> {
+  const budgets = MAIL_LIMITS[purpose];
+  await consume([
+    [budgets.emailIp, email, ip],
+    ["mailIp", ip],
+    [budgets.email, email],
+  ]);
 }
 
 /**
