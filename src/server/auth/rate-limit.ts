@@ -23,6 +23,8 @@ export const LIMITS = {
   signInLinkEmail: { points: 10, duration: 60 * 60 },
   passwordResetEmailIp: { points: 3, duration: 15 * 60 },
   passwordResetEmail: { points: 10, duration: 60 * 60 },
+  confirmAddressEmailIp: { points: 3, duration: 15 * 60 },
+  confirmAddressEmail: { points: 10, duration: 60 * 60 },
   mailIp: { points: 20, duration: 15 * 60 },
   // POST /api/paths computes on a posted graph for anyone (up to half a second of CPU each):
   // a person calling it by hand never comes near these, a script looping on it stops.
@@ -133,6 +135,8 @@ export async function passwordAttempt(email: string, ip: string): Promise<{ succ
 const MAIL_LIMITS = {
   signInLink: { emailIp: "signInLinkEmailIp", email: "signInLinkEmail" },
   passwordReset: { emailIp: "passwordResetEmailIp", email: "passwordResetEmail" },
+  // Sign-up's confirmation link (or the note to an address that already has an account), and sending it again.
+  confirmAddress: { emailIp: "confirmAddressEmailIp", email: "confirmAddressEmail" },
 } as const satisfies Record<string, { emailIp: LimitName; email: LimitName }>;
 
 export type MailPurpose = keyof typeof MAIL_LIMITS;

@@ -250,6 +250,13 @@ export async function acceptInvite({
     if (!row || row.email !== userEmail.trim().toLowerCase()) throw new AppError("not_found", INVITE_PROBLEM.unknown);
     const status = row.revokedAt ? "revoked" : row.acceptedAt ? "used" : row.expiresAt <= now ? "expired" : "valid";
     if (status !== "valid") throw new AppError("conflict", INVITE_PROBLEM[status]);
+    // Only someone who has proven they own the invited address may take its place in the team.
+    const [proven] = await tx.select({ emailVerified: users.emailVerified }).from(users).where(eq(users.id, userId));
+    if (!proven?.emailVerified)
+      throw new AppError(
+        "forbidden",
+        "Confirm your e-mail address before joining: open the link we e-mailed you when you created the account.",
+      );
     const [member] = await tx
       .select({ role: memberships.role })
       .from(memberships)
