@@ -2,10 +2,14 @@ import { randomUUID } from "node:crypto";
 import { expect, test, type Browser } from "@playwright/test";
 import { query } from "./db";
 import { linkIn, waitForMail } from "./mail";
+import { confirmAddress } from "./pages/auth-pages";
 import { ExplorerPage } from "./pages/explorer-page";
 import { signUpAs, TeamPage, TeamsPage } from "./pages/team-pages";
 
 const newEmail = (tag: string) => `${tag}-${randomUUID().slice(0, 8)}@example.test`;
+
+// Signing up goes through the mail (the address is confirmed before the account works).
+test.describe.configure({ timeout: 60_000 });
 
 // Sign-up is rate limited per address, and every test comes from 127.0.0.1.
 test.beforeEach(async () => {
@@ -47,6 +51,8 @@ test("an owner invites a player by e-mail; the player accepts from the mail and 
   await player.getByRole("form", { name: "Create your account" }).getByLabel("Name").fill("Jun Okada");
   await player.getByRole("form", { name: "Create your account" }).getByLabel("Password").fill("frame-trap-drills");
   await player.getByRole("button", { name: "Create account" }).click();
+  // The address is proven through the mail; its link leads back to the invite, signed in.
+  await confirmAddress(player, playerEmail);
   await expect(player.getByRole("button", { name: "Accept and join" })).toBeVisible();
   await player.getByRole("button", { name: "Accept and join" }).click();
 

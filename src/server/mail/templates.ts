@@ -83,6 +83,45 @@ export function passwordResetMail({ url, expiresInMinutes }: { url: string; expi
   };
 }
 
+/** Sent at sign-up: the link proves the address before the password works. */
+export function confirmAddressMail({ url, expiresInHours }: { url: string; expiresInHours: number }): MailContent {
+  const footnote = `The link works once and expires in ${plural(expiresInHours, "hour")}. If you did not create a Framefork account, do not open it: without it the account cannot be used.`;
+  return {
+    subject: "Confirm your e-mail address for Framefork",
+    text: text([
+      "Someone (hopefully you) created a Framefork account with this e-mail address. Confirm the address to start using it:",
+      url,
+      footnote,
+    ]),
+    html: layout({
+      heading: "Confirm your e-mail address",
+      paragraphs: [
+        "Someone (hopefully you) created a Framefork account with this e-mail address. Confirm the address to start using it.",
+      ],
+      action: "Confirm my address",
+      url,
+      footnote,
+    }),
+  };
+}
+
+/**
+ * Sent instead of a confirmation when someone signs up with an address that already has an
+ * account: the sign-up page answers the same either way, and only the address's owner learns more.
+ */
+export function accountExistsMail({ url }: { url: string }): MailContent {
+  const lines = [
+    "Someone (hopefully you) tried to create a Framefork account with this e-mail address, but it already has one.",
+    "To get in, open the sign-in page: you can sign in with your password, have a sign-in link e-mailed to you, or choose a new password with “Forgot your password?”.",
+  ];
+  const footnote = "If it was not you, ignore this e-mail: nothing was changed.";
+  return {
+    subject: "You already have a Framefork account",
+    text: text([...lines, url, footnote]),
+    html: layout({ heading: "You already have an account", paragraphs: lines, action: "Go to sign in", url, footnote }),
+  };
+}
+
 export function inviteMail({
   teamName,
   inviterName,

@@ -19,8 +19,10 @@ vi.mock("@/server/mail", async (original) => ({
 }));
 // Server actions read the caller's address for rate limits; each call comes from its own.
 let address = 0;
+// Actions that start or end a session in this browser write its cookie: a jar that forgets.
 vi.mock("next/headers", () => ({
   headers: async () => new Headers({ "x-forwarded-for": `198.51.100.${(address++ % 250) + 1}` }),
+  cookies: async () => ({ get: () => undefined, getAll: () => [], set: () => undefined, delete: () => undefined }),
 }));
 
 afterAll(closeDb);
@@ -199,11 +201,21 @@ interface ActionCase {
  */
 const ACTIONS: Record<string, ActionCase[]> = {
   "(auth)/actions.ts signUp": [
+    // Answers "check your e-mail" (a redirect) for anyone; the account waits for its address to be proven.
     {
       what: "make an account",
       form: (w) => ({ name: "New Person", email: `new-${w.team.slug}@example.test`, password: "long enough password" }),
-      expect: all(200),
+      expect: all(303),
     },
+  ],
+  "(auth)/actions.ts resendConfirmation": [
+    { what: "ask for a new confirmation link", form: (w) => ({ email: w.people.viewer.email }), expect: all(200) },
+  ],
+  "(auth)/actions.ts confirmEmail": [
+    { what: "use a confirmation link that does not exist", form: () => ({ token: "no-such-token" }), expect: all(404) },
+  ],
+  "(auth)/actions.ts signOutEverywhere": [
+    { what: "end every session", form: () => ({}), expect: { ...all(303), anonymous: 401 } },
   ],
   "(auth)/actions.ts requestPasswordReset": [
     { what: "ask for a reset link", form: (w) => ({ email: w.people.viewer.email }), expect: all(303) },

@@ -1,5 +1,12 @@
 import { describe, expect, test } from "vitest";
-import { escapeHtml, inviteMail, passwordResetMail, signInLinkMail } from "@/server/mail/templates";
+import {
+  accountExistsMail,
+  confirmAddressMail,
+  escapeHtml,
+  inviteMail,
+  passwordResetMail,
+  signInLinkMail,
+} from "@/server/mail/templates";
 
 const hostile = `<script>alert("x")</script>&'`;
 
@@ -14,6 +21,8 @@ describe("mail templates", () => {
       signInLinkMail({ url }),
       passwordResetMail({ url, expiresInMinutes: 30 }),
       inviteMail({ teamName: "Night Owls", inviterName: "Ada", role: "coach", url, expiresInDays: 7 }),
+      confirmAddressMail({ url, expiresInHours: 24 }),
+      accountExistsMail({ url }),
     ]) {
       expect(mail.subject.length).toBeGreaterThan(5);
       expect(mail.text).toContain(url);
@@ -22,6 +31,7 @@ describe("mail templates", () => {
       expect(mail.text).not.toMatch(/<[a-z]/i);
     }
     expect(passwordResetMail({ url, expiresInMinutes: 30 }).text).toContain("30 minutes");
+    expect(confirmAddressMail({ url, expiresInHours: 24 }).text).toContain("24 hours");
     expect(inviteMail({ teamName: "T", inviterName: "I", role: "player", url, expiresInDays: 1 }).text).toContain(
       "1 day.",
     );

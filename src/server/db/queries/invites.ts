@@ -219,6 +219,13 @@ export async function acceptInvite({
         "This invite was sent to another e-mail address. Sign in with the address it was sent to, then accept it.",
       );
     }
+    // Only someone who has proven they own the invited address may take its place in the team.
+    const [me] = await tx.select({ emailVerified: users.emailVerified }).from(users).where(eq(users.id, userId));
+    if (!me?.emailVerified)
+      throw new AppError(
+        "forbidden",
+        "Confirm your e-mail address before joining: open the link we e-mailed you when you created the account.",
+      );
     const [team] = await tx.select({ slug: teams.slug, name: teams.name }).from(teams).where(eq(teams.id, row.teamId));
     const [member] = await tx
       .select({ role: memberships.role })
