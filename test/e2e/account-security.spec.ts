@@ -84,6 +84,7 @@ test("the takeover story: an unproven sign-up cannot be used, and the owner's li
   const ownerForm = new SignInPage(owner);
   await ownerForm.goto();
   await ownerForm.askForLink(coach);
+  await expect(owner.getByRole("heading", { name: "Check your e-mail" })).toBeVisible();
   await owner.goto(linkIn(await waitForMailAbout(coach, "Your Framefork sign-in link")));
   await expect(new AccountArea(owner).signOut).toBeVisible();
 

@@ -9,7 +9,7 @@ import { signUpAs, TeamPage, TeamsPage } from "./pages/team-pages";
 const newEmail = (tag: string) => `${tag}-${randomUUID().slice(0, 8)}@example.test`;
 
 // Signing up goes through the mail (the address is confirmed before the account works).
-test.describe.configure({ timeout: 60_000 });
+test.describe.configure({ timeout: 90_000 });
 
 // Sign-up is rate limited per address, and every test comes from 127.0.0.1.
 test.beforeEach(async () => {
