@@ -165,6 +165,9 @@ const ACTIONS: Record<string, { noIds: string }> = {
   "(auth)/actions.ts requestPasswordReset": { noIds: "an address; the answer is the same for any" },
   "(auth)/actions.ts resetPassword": { noIds: "a reset token is its account's own secret, not a team's" },
   "(auth)/actions.ts changePassword": { noIds: "the caller's own passwords" },
+  "(auth)/actions.ts confirmEmail": { noIds: "a confirmation token is its account's own secret, not a team's" },
+  "(auth)/actions.ts resendConfirmation": { noIds: "an address; the answer is the same for any" },
+  "(auth)/actions.ts signOutEverywhere": { noIds: "the caller's own sessions" },
 };
 
 const CALLERS = ["team B's owner", "anonymous"] as const;
