@@ -17,6 +17,9 @@ const chromium = {
   ],
 };
 
+const HTTP = /http\.spec\.ts$/;
+const FAULTS = /faults\.spec\.ts$/;
+
 export default defineConfig({
   testDir: "./test/e2e",
   fullyParallel: false,
@@ -33,12 +36,23 @@ export default defineConfig({
     launchOptions: chromium,
   },
   projects: [
-    { name: "desktop", use: { ...devices["Desktop Chrome"], launchOptions: chromium } },
-    { name: "phone", use: { ...devices["Pixel 7"], launchOptions: chromium } },
+    { name: "desktop", testIgnore: [HTTP, FAULTS], use: { ...devices["Desktop Chrome"], launchOptions: chromium } },
+    { name: "phone", testIgnore: [HTTP, FAULTS], use: { ...devices["Pixel 7"], launchOptions: chromium } },
+    // Answers read over HTTP (headers, cookies, refusals): no screen size to repeat them for.
+    { name: "http", testMatch: HTTP, use: { ...devices["Desktop Chrome"], launchOptions: chromium } },
+    // Stops and restarts MariaDB under the running app, so it comes after everything else.
+    // Alone: `npx playwright test --project=faults --no-deps`.
+    {
+      name: "faults",
+      testMatch: FAULTS,
+      dependencies: ["desktop", "phone", "http"],
+      use: { ...devices["Desktop Chrome"], launchOptions: chromium },
+    },
   ],
   webServer: {
-    // `node …/next start`, not `npm run`, so Playwright stops the server itself.
-    command: `node node_modules/next/dist/bin/next start -p ${port} -H 127.0.0.1`,
+    // The app's own server (`next start` that writes the caller's address), run by `node`, not
+    // `npm run`, so Playwright stops the server itself.
+    command: `node scripts/serve.mjs -p ${port} -H 127.0.0.1`,
     url: `${baseURL}/api/health`,
     reuseExistingServer: false,
     timeout: 60_000,

@@ -36,6 +36,8 @@ const pw = read("playwright.json");
 if (pw) {
   passed += (pw.stats?.expected ?? 0) + (pw.stats?.flaky ?? 0);
   failed += pw.stats?.unexpected ?? 0;
+  // A project that depends on a failed one (the fault test runs after all others) is skipped.
+  if ((pw.stats?.skipped ?? 0) > 0) notes.push(`${pw.stats.skipped} browser tests did not run (skipped)`);
   if ((pw.errors ?? []).length > 0) {
     failed += 1;
     notes.push("Playwright reported errors outside tests (counted as one failure)");

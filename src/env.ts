@@ -22,6 +22,13 @@ const schema = z.object({
   NEXTAUTH_SECRET: z
     .string({ error: "NEXTAUTH_SECRET must be set: 32 or more random characters (openssl rand -base64 32)" })
     .min(32, { error: "NEXTAUTH_SECRET must be at least 32 characters (openssl rand -base64 32)" }),
+  TRUSTED_PROXY_HOPS: z.coerce
+    .number({ error: "TRUSTED_PROXY_HOPS must be the number of proxies in front of the app, e.g. 1 (0 when none)" })
+    .int({ error: "TRUSTED_PROXY_HOPS must be a whole number of proxies, e.g. 1 (0 when none)" })
+    .min(0, { error: "TRUSTED_PROXY_HOPS must be 0 or more" })
+    .max(10, { error: "TRUSTED_PROXY_HOPS must be at most 10" })
+    .default(0)
+    .describe("how many proxies in front of the app write X-Forwarded-For"),
   NODE_ENV: z.enum(["development", "test", "production"]).default("development"),
 });
 

@@ -89,8 +89,13 @@ export interface SharedViewDto {
   character: { id: number; slug: string; name: string };
   characterId: number;
   edition: { slug: string; name: string };
-  /** The Explorer's data for the pinned Edition, as GET /api/characters/[id]/graph answers it. */
+  /**
+   * The Explorer's data for the pinned Edition, as GET /api/characters/[id]/graph answers it,
+   * cut to what the view shows: its Edition alone, and in the cast only the character and the opponent.
+   */
   data: GraphResponse;
+  /** The opponent's data in the same Edition and cut the same way, when the view was shared with one. */
+  opponent: GraphResponse | null;
   view: PermalinkView;
 }
 

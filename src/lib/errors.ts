@@ -41,6 +41,11 @@ export class AppError extends Error {
     return ERROR_STATUS[this.code];
   }
 
+  /** Headers the answer carries beside its status and body (none, except a rate limit's Retry-After). */
+  get headers(): Record<string, string> | undefined {
+    return undefined;
+  }
+
   toResponseBody(): ErrorBody {
     return { error: { code: this.code, message: this.message, ...(this.issues ? { issues: this.issues } : {}) } };
   }
@@ -52,5 +57,19 @@ export class AppError extends Error {
     }
     const code = (Object.entries(ERROR_STATUS).find(([, s]) => s === status)?.[0] ?? "internal") as ErrorCode;
     return new AppError(code, `The server answered ${status}.`);
+  }
+}
+
+/** A rate limit's refusal: 429, with the wait in the message and, in whole seconds, in `Retry-After`. */
+export class RateLimitedError extends AppError {
+  constructor(
+    message: string,
+    readonly retryAfterSeconds: number,
+  ) {
+    super("rate_limited", message);
+  }
+
+  override get headers(): Record<string, string> {
+    return { "Retry-After": String(this.retryAfterSeconds) };
   }
 }

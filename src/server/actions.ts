@@ -3,6 +3,7 @@ import { unstable_rethrow } from "next/navigation";
 import type { z } from "zod";
 import { AppError, type ErrorCode } from "@/lib/errors";
 import { requireUser, type SessionUser } from "@/server/auth";
+import { databaseUnavailable, isDatabaseDown } from "@/server/db/unavailable";
 
 /** What every server action answers: a form shows `message`, or `error` and the field errors beside their inputs. */
 export type ActionState =
@@ -26,6 +27,11 @@ async function run(fn: () => Promise<string>): Promise<ActionState> {
     // redirect() and notFound() travel as thrown errors: let Next handle them.
     unstable_rethrow(error);
     if (error instanceof AppError) return { ok: false, code: error.code, error: error.message };
+    if (isDatabaseDown(error)) {
+      console.error("[action] the database is not answering:", error instanceof Error ? error.message : error);
+      const unavailable = databaseUnavailable();
+      return { ok: false, code: unavailable.code, error: unavailable.message };
+    }
     console.error("[action] unexpected error:", error);
     return { ok: false, code: "internal", error: "Something went wrong on our side. Try again in a moment." };
   }

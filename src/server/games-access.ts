@@ -1,21 +1,22 @@
 import "server-only";
-import { AppError } from "@/lib/errors";
 import type { SessionUser } from "./auth";
-import { requireRole } from "./authz";
+import { getRole } from "./authz";
 import type { GameSummary } from "./db/queries/games";
 
 /**
- * Reading a game: a public game (no team) is open to everyone; a team's game to its members,
- * any role. Signed out → 401; not a member → 404, the same as a game that does not exist.
+ * Whether the viewer may read a game: a public game (no team) is open to
+ * everyone; a team's game to its members, any role. Callers answer "no" with
+ * the same not-found as for a game that does not exist, signed in or not, so
+ * nobody learns that a private game is there.
  */
-export async function checkGameRead({
+export async function canReadGame({
   game,
   user,
 }: {
   game: Pick<GameSummary, "teamId">;
   user: SessionUser | null;
-}): Promise<void> {
-  if (game.teamId === null) return;
-  if (!user) throw new AppError("unauthorized", "Sign in to see this team's game.");
-  await requireRole({ teamId: game.teamId, userId: user.id, needed: "viewer" });
+}): Promise<boolean> {
+  if (game.teamId === null) return true;
+  if (!user) return false;
+  return (await getRole({ teamId: game.teamId, userId: user.id })) !== null;
 }

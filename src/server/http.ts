@@ -1,6 +1,8 @@
 import "server-only";
 import type { z } from "zod";
+import { env } from "@/env";
 import { AppError, type ErrorIssue } from "@/lib/errors";
+import { databaseUnavailable, isDatabaseDown, RETRY_AFTER_SECONDS } from "@/server/db/unavailable";
 
 export const DEFAULT_MAX_BODY_BYTES = 1_000_000;
 
@@ -75,16 +77,49 @@ function tooLarge(maxBytes: number) {
   return new AppError("payload_too_large", `The body is larger than ${Math.round(maxBytes / 1000)} kB.`);
 }
 
+const STATE_CHANGING = new Set(["POST", "PUT", "PATCH", "DELETE"]);
+
 /**
- * Wraps a route handler: an `AppError` becomes its status and JSON body; any
- * other error is logged here and reaches the client only as a generic 500.
+ * Why a request that changes something must be refused as coming from another
+ * site, or null when it may go on: an `Origin` header that is not the app's
+ * own (NEXTAUTH_URL's origin), or a browser's `Sec-Fetch-Site: cross-site`.
+ * A request without either (curl, a server) passes: cookies are what a forged
+ * cross-site request would abuse, and only browsers send them unasked.
+ */
+export function crossSiteRefusal(request: Pick<Request, "method" | "headers">): AppError | null {
+  if (!STATE_CHANGING.has(request.method.toUpperCase())) return null;
+  const origin = request.headers.get("origin");
+  const ours = new URL(env().NEXTAUTH_URL).origin;
+  if ((origin !== null && origin !== ours) || request.headers.get("sec-fetch-site") === "cross-site") {
+    return new AppError("forbidden", "This request came from another site. Use Framefork's own pages to make changes.");
+  }
+  return null;
+}
+
+/**
+ * Wraps a route handler: a change requested from another site is refused
+ * (403); an `AppError` becomes its status and JSON body; MariaDB not
+ * answering becomes 503 with a message that says so; any other error is
+ * logged here and reaches the client only as a generic 500.
  */
 export function handle<Args extends unknown[]>(fn: (...args: Args) => Promise<Response>) {
   return async (...args: Args): Promise<Response> => {
+    const request = args[0];
+    const refused = request instanceof Request ? crossSiteRefusal(request) : null;
+    if (refused) return Response.json(refused.toResponseBody(), { status: refused.status });
     try {
       return await fn(...args);
     } catch (error) {
-      if (error instanceof AppError) return Response.json(error.toResponseBody(), { status: error.status });
+      if (error instanceof AppError)
+        return Response.json(error.toResponseBody(), { status: error.status, headers: error.headers });
+      if (isDatabaseDown(error)) {
+        console.error("[api] the database is not answering:", error instanceof Error ? error.message : error);
+        const unavailable = databaseUnavailable();
+        return Response.json(unavailable.toResponseBody(), {
+          status: unavailable.status,
+          headers: { "retry-after": String(RETRY_AFTER_SECONDS) },
+        });
+      }
       console.error("[api] unexpected error:", error);
       const internal = new AppError("internal", "Something went wrong on our side. Try again in a moment.");
       return Response.json(internal.toResponseBody(), { status: 500 });

@@ -1,7 +1,7 @@
 import "server-only";
 import { env } from "@/env";
-import type { Role } from "./db/schema";
-import { sendMail } from "./mail";
+import { INVITE_DAYS, type InviteMailFacts } from "./db/queries/invites";
+import type { OutgoingMail } from "./mail";
 import { inviteMail } from "./mail/templates";
 
 /** The link in an invite e-mail. */
@@ -9,16 +9,10 @@ export function inviteLink(token: string): string {
   return new URL(`/invites/${encodeURIComponent(token)}`, env().NEXTAUTH_URL).toString();
 }
 
-export async function sendInviteMail({
-  to,
-  ...content
-}: {
-  to: string;
-  teamName: string;
-  inviterName: string;
-  role: Role;
-  url: string;
-  expiresInDays: number;
-}) {
-  await sendMail({ to, ...inviteMail(content) });
+/** The invite e-mail for `createInvite`'s `mail`, which queues it with the invite. */
+export function inviteMessage({ token, email, role, teamName, inviterName }: InviteMailFacts): OutgoingMail {
+  return {
+    to: email,
+    ...inviteMail({ teamName, inviterName, role, url: inviteLink(token), expiresInDays: INVITE_DAYS }),
+  };
 }

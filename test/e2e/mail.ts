@@ -27,6 +27,18 @@ export async function waitForMail(address: string, count = 1): Promise<ReceivedM
   return found[count - 1]!;
 }
 
+/** Waits for a message to `address` whose subject starts with `subject`, and returns the newest. */
+export async function waitForMailAbout(address: string, subject: string): Promise<ReceivedMail> {
+  let found: ReceivedMail[] = [];
+  await expect
+    .poll(async () => (found = (await mailTo(address)).filter((m) => m.subject.startsWith(subject))).length, {
+      message: `mail "${subject}…" to ${address}`,
+      timeout: 15_000,
+    })
+    .toBeGreaterThan(0);
+  return found.at(-1)!;
+}
+
 /** The link a person would click: the first http(s) address in the plain-text part. */
 export function linkIn(mail: ReceivedMail): string {
   const match = /https?:\/\/\S+/.exec(mail.text);

@@ -159,16 +159,19 @@ const PAGES: Record<string, Target[]> = {
   "(auth)/sign-up/page.tsx": [{ what: "sign up", path: "/sign-up", expect: signedOut }],
   "(auth)/account/page.tsx": [{ what: "my account", path: "/account", expect: signedIn }],
   "(auth)/check-email/page.tsx": [{ what: "check your e-mail", path: "/check-email?for=reset", expect: all(200) }],
+  "(auth)/confirm-email/page.tsx": [
+    { what: "a confirmation link that does not exist", path: `/confirm-email?token=${tag}`, expect: all(200) },
+  ],
   "(auth)/forgot-password/page.tsx": [{ what: "forgot password", path: "/forgot-password", expect: all(200) }],
   "(auth)/reset-password/page.tsx": [
     { what: "a reset link that does not exist", path: `/reset-password?token=${tag}`, expect: all(200) },
   ],
   "s/[slug]/page.tsx": [
     {
-      // A signed-out visitor is asked to sign in, and told nothing else about it.
+      // To anyone outside team A, signed in or not, the same "not found" as a link that never was.
       what: "team A's team-only link",
       path: `/s/${data.teamOnlySlug}`,
-      expect: membersOnly(200),
+      expect: membersOnly(),
       membersSee: ["team-only link"],
     },
     // Anyone with the address may open it, by design: it shows the path and who shared it.
@@ -248,23 +251,27 @@ test.describe("page inventory", () => {
     }
   }
 
-  test("an address whose escapes do not decode is not found, on every dynamic page, image and route", async () => {
+  test("an address whose escapes do not decode is not found on every dynamic page and image, and refused on every route", async () => {
     const app = join(process.cwd(), "src/app");
     const dynamic = readdirRecursive(app)
       .filter((f) => /(^|\/)(page|route|opengraph-image)\.tsx?$/.test(f) && f.includes("["))
-      .map((f) =>
-        `/${f}`
+      .map((f) => ({
+        route: /(^|\/)route\.tsx?$/.test(f),
+        path: `/${f}`
           .replace(/\/\([^)]*\)/g, "")
           .replace(/\/(page|route)\.tsx?$/, "")
           .replace(/\.tsx?$/, "")
           .replace(/\[[^\]]+\]/, "%E0")
           .replace(/\[[^\]]+\]/g, "x"),
-      );
+      }));
     expect(dynamic.length).toBeGreaterThan(5);
     const got = Object.fromEntries(
-      await Promise.all(dynamic.map(async (path) => [path, (await visitors.get("anonymous")!.get(path)).status()])),
+      await Promise.all(
+        dynamic.map(async ({ path }) => [path, (await visitors.get("anonymous")!.get(path)).status()]),
+      ),
     );
-    expect(got).toEqual(Object.fromEntries(dynamic.map((path) => [path, 404])));
+    // A route answers our JSON 400 (src/proxy.ts), a page or image our 404.
+    expect(got).toEqual(Object.fromEntries(dynamic.map(({ path, route }) => [path, route ? 400 : 404])));
   });
 
   test("s/[slug]/opengraph-image.tsx: a link nobody may preview gets the one plain card, whoever asks", async () => {

@@ -2,10 +2,14 @@ import { randomUUID } from "node:crypto";
 import { expect, test, type Browser } from "@playwright/test";
 import { query } from "./db";
 import { linkIn, waitForMail } from "./mail";
+import { confirmAddress } from "./pages/auth-pages";
 import { ExplorerPage } from "./pages/explorer-page";
 import { signUpAs, TeamPage, TeamsPage } from "./pages/team-pages";
 
 const newEmail = (tag: string) => `${tag}-${randomUUID().slice(0, 8)}@example.test`;
+
+// Signing up goes through the mail (the address is confirmed before the account works).
+test.describe.configure({ timeout: 90_000 });
 
 // Sign-up is rate limited per address, and every test comes from 127.0.0.1.
 test.beforeEach(async () => {
@@ -47,6 +51,8 @@ test("an owner invites a player by e-mail; the player accepts from the mail and 
   await player.getByRole("form", { name: "Create your account" }).getByLabel("Name").fill("Jun Okada");
   await player.getByRole("form", { name: "Create your account" }).getByLabel("Password").fill("frame-trap-drills");
   await player.getByRole("button", { name: "Create account" }).click();
+  // The address is proven through the mail; its link leads back to the invite, signed in.
+  await confirmAddress(player, playerEmail);
   await expect(player.getByRole("button", { name: "Accept and join" })).toBeVisible();
   await player.getByRole("button", { name: "Accept and join" }).click();
 
@@ -116,9 +122,15 @@ test("a player shares a permalink; a stranger opens the public one, is refused t
   expect(png.headers()["content-type"]).toBe("image/png");
   expect((await png.body()).subarray(1, 4).toString()).toBe("PNG");
 
-  // The team-only link asks a signed-out stranger to sign in, and refuses a signed-in one.
-  await stranger.goto(teamOnly);
-  await expect(stranger.getByRole("heading", { name: "Sign in to open this link" })).toBeVisible();
+  // The team-only link is "not available" to a signed-out stranger, as an unknown link is, with a
+  // way to sign in and come back; a signed-in stranger is refused the same way.
+  const signedOut = await stranger.goto(teamOnly);
+  expect(signedOut?.status()).toBe(404);
+  await expect(stranger.getByRole("heading", { name: "This link is not available" })).toBeVisible();
+  await expect(stranger.getByRole("main").getByRole("link", { name: "sign in", exact: true })).toHaveAttribute(
+    "href",
+    `/sign-in?callbackUrl=${encodeURIComponent(new URL(teamOnly).pathname)}`,
+  );
   await signUpAs(stranger, "Pell Vantor", newEmail("stranger"));
   const refused = await stranger.goto(teamOnly);
   expect(refused?.status()).toBe(404);
@@ -172,4 +184,26 @@ test("the sign-up, team, invite and shared pages have no serious or critical acc
   const other = await freshPage(browser);
   await other.goto(linkIn(await waitForMail(invitedEmail)));
   await check(other, "invite");
+});
+
+test("past the hourly limit on invites, the invite form says so and how long to wait", async ({ page }) => {
+  await signUpAs(page, "Ivo Stratt", newEmail("limit"), "/teams");
+  const team = await new TeamsPage(page).create(`Busy Roster ${randomUUID().slice(0, 4)}`);
+  const { origin, pathname } = new URL(page.url());
+  // A whole roster sent at once (through the API, as the form does), up to the limit for one sender.
+  for (let i = 0; i < 20; i++) {
+    const res = await page.request.post(`${pathname.replace(/^\/teams\//, "/api/teams/")}/invites`, {
+      data: { email: newEmail("roster"), role: "viewer" },
+      headers: { origin },
+    });
+    expect(res.status()).toBe(201);
+  }
+  const next = newEmail("one-more");
+  await team.invite.getByLabel("E-mail").fill(next);
+  await team.invite.getByRole("button", { name: "Send invite" }).click();
+  await expect(team.invite.getByRole("alert")).toContainText(
+    /reached the limit on invites for the last hour\. .*try again in \d+ minutes?\./,
+  );
+  // Nothing typed is lost: the address is still there to send later.
+  await expect(team.invite.getByLabel("E-mail")).toHaveValue(next);
 });

@@ -32,6 +32,15 @@ describe("checkEnv", () => {
     expect(() => checkEnv({ ...good, NEXTAUTH_SECRET: undefined })).toThrow(/NEXTAUTH_SECRET/);
   });
 
+  test("trusts no proxy unless told how many stand in front of the app", () => {
+    expect(checkEnv(good).TRUSTED_PROXY_HOPS).toBe(0);
+    expect(checkEnv({ ...good, TRUSTED_PROXY_HOPS: "" }).TRUSTED_PROXY_HOPS).toBe(0);
+    expect(checkEnv({ ...good, TRUSTED_PROXY_HOPS: "2" }).TRUSTED_PROXY_HOPS).toBe(2);
+    expect(() => checkEnv({ ...good, TRUSTED_PROXY_HOPS: "one" })).toThrow(/TRUSTED_PROXY_HOPS must be the number/);
+    expect(() => checkEnv({ ...good, TRUSTED_PROXY_HOPS: "1.5" })).toThrow(/TRUSTED_PROXY_HOPS must be a whole number/);
+    expect(() => checkEnv({ ...good, TRUSTED_PROXY_HOPS: "-1" })).toThrow(/TRUSTED_PROXY_HOPS must be 0 or more/);
+  });
+
   test("refuses mail settings that cannot send", () => {
     expect(() => checkEnv({ ...good, SMTP_URL: "http://127.0.0.1:1080" })).toThrow(/SMTP_URL must look like smtp:\/\//);
     expect(() => checkEnv({ ...good, MAIL_FROM: "Framefork" })).toThrow(/MAIL_FROM must be an address/);

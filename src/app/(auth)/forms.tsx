@@ -3,10 +3,18 @@
 import Link from "next/link";
 import { signIn } from "next-auth/react";
 import { useActionState, useState, useTransition } from "react";
-import { changePassword, requestPasswordReset, resetPassword, signUp } from "./actions";
+import { MISMATCH, UNCONFIRMED } from "@/lib/auth-messages";
+import type { ActionState } from "@/server/actions";
+import {
+  changePassword,
+  confirmEmail,
+  requestPasswordReset,
+  resendConfirmation,
+  resetPassword,
+  signOutEverywhere,
+  signUp,
+} from "./actions";
 import { Field, fieldError, formError, NewPasswordField, Notice, Submit } from "./fields";
-
-const MISMATCH = "That e-mail and password don't match.";
 
 /** next-auth's own codes for a failed password sign-in become our sentence; our messages pass through. */
 function signInMessage(error: string | null | undefined): string {
@@ -24,12 +32,15 @@ function NextAuthForm({
   pendingText,
   send,
   children,
+  besideError,
 }: {
   label: string;
   submit: string;
   pendingText: string;
   send: (form: FormData) => Promise<string | null>;
   children: React.ReactNode;
+  /** What to offer under a given error (a way out of it), if anything. */
+  besideError?: (error: string) => React.ReactNode;
 }) {
   const [error, setError] = useState<string | null>(null);
   const [pending, start] = useTransition();
@@ -47,6 +58,7 @@ function NextAuthForm({
       }}
     >
       <Notice error={error} />
+      {error && besideError ? besideError(error) : null}
       {children}
       <Submit pending={pending} pendingText={pendingText}>
         {submit}
@@ -58,12 +70,18 @@ function NextAuthForm({
 const text = (form: FormData, name: string) => String(form.get(name) ?? "");
 
 export function PasswordSignInForm({ callbackUrl }: { callbackUrl: string }) {
+  // The address typed when the server said it is not confirmed yet: where a new link would go.
+  const [email, setEmail] = useState("");
   return (
     <NextAuthForm
       label="Sign in with password"
       submit="Sign in"
       pendingText="Signing in…"
+      besideError={(error) =>
+        error === UNCONFIRMED ? <ResendConfirmation email={email} callbackUrl={callbackUrl} /> : null
+      }
       send={async (form) => {
+        setEmail(text(form, "email"));
         const result = await signIn("credentials", {
           redirect: false,
           email: text(form, "email"),
@@ -110,32 +128,40 @@ export function SignInLinkForm({ callbackUrl }: { callbackUrl: string }) {
   );
 }
 
-export function SignUpForm({ callbackUrl, defaultEmail }: { callbackUrl: string; defaultEmail?: string }) {
-  const [state, setState] = useState<Awaited<ReturnType<typeof signUp>>>(null);
+/** A button inside the sign-in form (forms do not nest) that asks for a new confirmation link. */
+function ResendConfirmation({ email, callbackUrl }: { email: string; callbackUrl: string }) {
+  const [state, setState] = useState<ActionState>(null);
   const [pending, start] = useTransition();
+  if (state?.ok) return <Notice message={state.message} />;
   return (
-    <form
-      aria-label="Create your account"
-      className="space-y-4"
-      onSubmit={(event) => {
-        event.preventDefault();
-        const form = new FormData(event.currentTarget);
-        start(async () => {
-          const answer = await signUp(null, form);
-          setState(answer);
-          if (!answer?.ok) return;
-          const result = await signIn("credentials", {
-            redirect: false,
-            email: text(form, "email"),
-            password: text(form, "password"),
-            callbackUrl,
-          });
-          if (result?.ok && !result.error) go(callbackUrl);
-          else go(`/sign-in?callbackUrl=${encodeURIComponent(callbackUrl)}`);
-        });
-      }}
-    >
-      <Notice error={formError(state)} message={state?.ok ? `${state.message} Signing you in…` : null} />
+    <div className="space-y-2">
+      {state ? <Notice error={state.error} /> : null}
+      <button
+        type="button"
+        disabled={pending}
+        onClick={() =>
+          start(async () => {
+            const form = new FormData();
+            form.set("email", email);
+            form.set("callbackUrl", callbackUrl);
+            setState(await resendConfirmation(null, form));
+          })
+        }
+        className="rounded border border-accent-muted px-3 py-1.5 text-sm text-accent hover:bg-ink-800 disabled:cursor-wait disabled:opacity-70"
+      >
+        {pending ? "Sending…" : "E-mail me a new confirmation link"}
+      </button>
+    </div>
+  );
+}
+
+export function SignUpForm({ callbackUrl, defaultEmail }: { callbackUrl: string; defaultEmail?: string }) {
+  // On success the action moves on to "check your e-mail"; only errors come back here.
+  const [state, action, pending] = useActionState(signUp, null);
+  return (
+    <form action={action} aria-label="Create your account" className="space-y-4">
+      <Notice error={formError(state)} />
+      <input type="hidden" name="callbackUrl" value={callbackUrl} />
       <Field name="name" label="Name" autoComplete="name" error={fieldError(state, "name")} />
       <Field
         name="email"
@@ -148,6 +174,27 @@ export function SignUpForm({ callbackUrl, defaultEmail }: { callbackUrl: string;
       <NewPasswordField name="password" label="Password" error={fieldError(state, "password")} />
       <Submit pending={pending} pendingText="Creating your account…">
         Create account
+      </Submit>
+    </form>
+  );
+}
+
+/** The confirm page's one button; on success the action moves on to the page saying so. */
+export function ConfirmEmailForm({ token, callbackUrl }: { token: string; callbackUrl: string }) {
+  const [state, action, pending] = useActionState(confirmEmail, null);
+  const error = formError(state) ?? fieldError(state, "token") ?? null;
+  return (
+    <form action={action} aria-label="Confirm your e-mail address" className="space-y-4">
+      <Notice error={error} />
+      {error ? (
+        <Link href="/sign-in" className="inline-block text-accent underline underline-offset-2">
+          Go to sign in
+        </Link>
+      ) : null}
+      <input type="hidden" name="token" value={token} />
+      <input type="hidden" name="callbackUrl" value={callbackUrl} />
+      <Submit pending={pending} pendingText="Confirming…">
+        Confirm my address
       </Submit>
     </form>
   );
@@ -222,6 +269,19 @@ export function ChangePasswordForm() {
       <NewPasswordField name="newPassword" label="New password" error={fieldError(state, "newPassword")} />
       <Submit pending={pending} pendingText="Saving…">
         Change password
+      </Submit>
+    </form>
+  );
+}
+
+/** Ends every session of the account, this one too; the action then moves on to the sign-in page. */
+export function SignOutEverywhereForm() {
+  const [state, action, pending] = useActionState(signOutEverywhere, null);
+  return (
+    <form action={action} aria-label="Sign out everywhere" className="space-y-4">
+      <Notice error={formError(state)} />
+      <Submit pending={pending} pendingText="Signing out…">
+        Sign out everywhere
       </Submit>
     </form>
   );

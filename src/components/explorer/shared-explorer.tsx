@@ -5,6 +5,7 @@ import { ExplorerStoreProvider } from "@/components/providers/explorer-store-pro
 import { graphUrl } from "@/lib/explorer";
 import { VISIBILITY_TEXT, viewToExplorerState } from "@/lib/permalink";
 import type { SharedViewDto } from "@/lib/dto";
+import { SignInHereLink } from "@/components/sign-in-here-link";
 
 const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
 
@@ -34,7 +35,12 @@ export function SharedExplorer({ view: shared }: { view: SharedViewDto }) {
       </header>
       <SWRConfig
         value={{
-          fallback: { [graphUrl(shared.characterId, shared.edition.slug)]: data },
+          fallback: {
+            [graphUrl(shared.characterId, shared.edition.slug)]: data,
+            ...(shared.opponent
+              ? { [graphUrl(shared.opponent.character.id, shared.edition.slug)]: shared.opponent }
+              : {}),
+          },
           revalidateOnMount: false,
           revalidateIfStale: false,
           revalidateOnFocus: false,
@@ -49,8 +55,11 @@ export function SharedExplorer({ view: shared }: { view: SharedViewDto }) {
   );
 }
 
-/** For a link that is unknown, revoked or not the viewer's to see: one page for all, so it tells nothing. */
-export function SharedUnavailable() {
+/**
+ * For a link that is unknown, revoked or not the viewer's to see: one page for all, so it tells
+ * nothing. A signed-out visitor is offered to sign in, whatever the link is.
+ */
+export function SharedUnavailable({ signedOut }: { signedOut: boolean }) {
   return (
     <div className="mx-auto max-w-xl space-y-3 py-12 text-center">
       <h1 className="text-xl font-semibold">This link is not available</h1>
@@ -58,21 +67,14 @@ export function SharedUnavailable() {
         It may have been revoked, mistyped, or shared only with a team you are not in. Ask the person who sent it for a
         new one.
       </p>
+      {signedOut && (
+        <p className="text-ink-300">
+          If it was shared with your team, <SignInHereLink>sign in</SignInHereLink> with the account you use in that
+          team.
+        </p>
+      )}
       <Link href="/games" className="text-accent underline underline-offset-2">
         Browse the games
-      </Link>
-    </div>
-  );
-}
-
-/** For a team-only link opened signed out. */
-export function SharedSignIn({ signInHref }: { signInHref: string }) {
-  return (
-    <div className="mx-auto max-w-xl space-y-3 py-12 text-center">
-      <h1 className="text-xl font-semibold">Sign in to open this link</h1>
-      <p className="text-ink-300">It was shared with a team. Sign in with the account you use in that team.</p>
-      <Link href={signInHref} className="inline-block rounded bg-accent px-3 py-1 font-medium text-ink-950">
-        Sign in
       </Link>
     </div>
   );

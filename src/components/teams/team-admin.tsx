@@ -25,7 +25,7 @@ function describe(e: AuditEntryDto): string {
     case "member.invited":
       return `invited ${d.email} as ${d.role}`;
     case "invite.revoked":
-      return `withdrew the invite to ${d.email}`;
+      return `withdrew the invite to ${d.email}${REVOKED_BECAUSE[d.reason ?? ""] ?? ""}`;
     case "invite.accepted":
       return `joined as ${d.role}`;
     case "member.role_changed":
@@ -41,6 +41,20 @@ function describe(e: AuditEntryDto): string {
     default:
       return e.action;
   }
+}
+
+/** Why an invite was withdrawn without anyone asking: its sender is no longer in the team. */
+const REVOKED_BECAUSE: Record<string, string> = {
+  sender_left: " (they left the team)",
+  sender_removed: " (its sender was removed)",
+};
+
+/** What to say when an invite is refused: a rate limit says which limit, and how long to wait. */
+function inviteProblem(err: unknown): string {
+  if (!(err instanceof AppError)) return "That did not work. Try again.";
+  if (err.code === "rate_limited")
+    return `You or this team reached the limit on invites for the last hour. ${err.message}`;
+  return err.message;
 }
 
 function Section({ title, id, children }: { title: string; id: string; children: ReactNode }) {
@@ -83,8 +97,8 @@ export function TeamAdmin({
   const [error, setError] = useState<string | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
 
-  /** Runs one change; the server's message is shown when it refuses. */
-  const run = async (change: () => Promise<unknown>, done?: string) => {
+  /** Runs one change; the server's message is shown when it refuses (at the top, or by `onError`). */
+  const run = async (change: () => Promise<unknown>, done?: string, onError?: (err: unknown) => void) => {
     setError(null);
     setNotice(null);
     try {
@@ -97,18 +111,27 @@ export function TeamAdmin({
         manages ? audit.mutate() : null,
       ]);
     } catch (err) {
-      setError(err instanceof AppError ? err.message : "That did not work. Try again.");
+      if (onError) onError(err);
+      else setError(err instanceof AppError ? err.message : "That did not work. Try again.");
     }
   };
 
   const [email, setEmail] = useState("");
   const [inviteRole, setInviteRole] = useState<Role>("player");
+  const [inviteError, setInviteError] = useState<string | null>(null);
+  const [sending, setSending] = useState(false);
   const invite = (e: FormEvent) => {
     e.preventDefault();
-    void run(async () => {
-      await sendJson("POST", `${base}/invites`, { email, role: inviteRole });
-      setEmail("");
-    }, `Invite sent to ${email}.`);
+    setInviteError(null);
+    setSending(true);
+    void run(
+      async () => {
+        await sendJson("POST", `${base}/invites`, { email, role: inviteRole });
+        setEmail("");
+      },
+      `Invite sent to ${email}.`,
+      (err) => setInviteError(inviteProblem(err)),
+    ).finally(() => setSending(false));
   };
 
   const leave = () =>
@@ -251,10 +274,19 @@ export function TeamAdmin({
                 ))}
               </select>
             </label>
-            <button type="submit" className="rounded bg-accent px-3 py-1.5 text-sm font-medium text-ink-950">
+            <button
+              type="submit"
+              disabled={sending}
+              className="rounded bg-accent px-3 py-1.5 text-sm font-medium text-ink-950 disabled:opacity-60"
+            >
               Send invite
             </button>
           </form>
+          {inviteError && (
+            <p role="alert" className="rounded border border-block-launch-punishable/50 px-3 py-2 text-sm text-ink-100">
+              {inviteError}
+            </p>
+          )}
           <p className="text-xs text-ink-400">
             {ROLE_HINT[inviteRole]}. The link in the e-mail works once and expires in 7 days.
           </p>

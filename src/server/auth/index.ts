@@ -10,7 +10,12 @@ export interface SessionUser {
   name: string | null;
 }
 
-/** The signed-in user of this request, or null; read once per request. */
+/**
+ * The signed-in user of this request, or null; read once per request. The session callback
+ * (session.ts) has already checked the token against the database: an ended session (older
+ * session version), a deleted user or an unproven address is null, and the name and e-mail are
+ * the database's. Teams and roles are never in the session: they are read per request too.
+ */
 export const auth: () => Promise<SessionUser | null> = cache(async () => {
   const session = await getServerSession(authOptions());
   const user = session?.user as Partial<SessionUser> | undefined;

@@ -16,6 +16,13 @@ export function getDb(): Database {
     cache.frameforkPool = mysql.createPool({
       uri: env().DATABASE_URL,
       connectionLimit: 10,
+      // A stopped server refuses at once; one that hangs must not hold a request for
+      // mysql2's default 10 s before the app can say the database is not answering.
+      connectTimeout: 3_000,
+      // A connection the server dropped (a restart) leaves the pool on its own; keep-alive
+      // finds a silently dead one, so after an outage new connections are opened.
+      enableKeepAlive: true,
+      keepAliveInitialDelay: 10_000,
       // Drizzle maps JSON and dates itself; keep mysql2 from guessing.
       dateStrings: false,
       timezone: "Z",

@@ -1,2 +1,11 @@
 export { sendMail, type OutgoingMail } from "./send";
-export { escapeHtml, inviteMail, passwordResetMail, signInLinkMail, type MailContent } from "./templates";
+export {
+  accountExistsMail,
+  confirmAddressMail,
+  escapeHtml,
+  inviteMail,
+  passwordResetMail,
+  signInLinkMail,
+  type MailContent,
+} from "./templates";
+export { deliverSoon, drainOutbox, queueMail } from "./outbox";

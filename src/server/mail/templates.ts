@@ -1,7 +1,11 @@
+import { cleanName } from "@/lib/names";
+
 /**
  * The e-mails Framefork sends. Each returns both parts of a multipart
  * message; every value put into the HTML goes through `escapeHtml`, since
- * names and team names are typed by users.
+ * names and team names are typed by users. Names also go through `cleanName`:
+ * rows written before names were checked may hold line breaks or
+ * text-direction characters, which must not reach a subject or a sentence.
  */
 export interface MailContent {
   subject: string;
@@ -83,6 +87,45 @@ export function passwordResetMail({ url, expiresInMinutes }: { url: string; expi
   };
 }
 
+/** Sent at sign-up: the link proves the address before the password works. */
+export function confirmAddressMail({ url, expiresInHours }: { url: string; expiresInHours: number }): MailContent {
+  const footnote = `The link works once and expires in ${plural(expiresInHours, "hour")}. If you did not create a Framefork account, do not open it: without it the account cannot be used.`;
+  return {
+    subject: "Confirm your e-mail address for Framefork",
+    text: text([
+      "Someone (hopefully you) created a Framefork account with this e-mail address. Confirm the address to start using it:",
+      url,
+      footnote,
+    ]),
+    html: layout({
+      heading: "Confirm your e-mail address",
+      paragraphs: [
+        "Someone (hopefully you) created a Framefork account with this e-mail address. Confirm the address to start using it.",
+      ],
+      action: "Confirm my address",
+      url,
+      footnote,
+    }),
+  };
+}
+
+/**
+ * Sent instead of a confirmation when someone signs up with an address that already has an
+ * account: the sign-up page answers the same either way, and only the address's owner learns more.
+ */
+export function accountExistsMail({ url }: { url: string }): MailContent {
+  const lines = [
+    "Someone (hopefully you) tried to create a Framefork account with this e-mail address, but it already has one.",
+    "To get in, open the sign-in page: you can sign in with your password, have a sign-in link e-mailed to you, or choose a new password with “Forgot your password?”.",
+  ];
+  const footnote = "If it was not you, ignore this e-mail: nothing was changed.";
+  return {
+    subject: "You already have a Framefork account",
+    text: text([...lines, url, footnote]),
+    html: layout({ heading: "You already have an account", paragraphs: lines, action: "Go to sign in", url, footnote }),
+  };
+}
+
 export function inviteMail({
   teamName,
   inviterName,
@@ -96,13 +139,15 @@ export function inviteMail({
   url: string;
   expiresInDays: number;
 }): MailContent {
-  const invitation = `${inviterName} invited you to join the team ${teamName} on Framefork as a ${role}.`;
+  const inviter = cleanName(inviterName) || "A team member";
+  const team = cleanName(teamName) || "(no name)";
+  const invitation = `${inviter} invited you to join the team ${team} on Framefork as a ${role}.`;
   const footnote = `The invitation expires in ${plural(expiresInDays, "day")}. If you did not expect it, ignore this e-mail.`;
   return {
-    subject: `${inviterName} invited you to ${teamName} on Framefork`,
+    subject: `${inviter} invited you to ${team} on Framefork`,
     text: text([invitation, "Accept the invitation here:", url, footnote]),
     html: layout({
-      heading: `Join ${teamName}`,
+      heading: `Join ${team}`,
       paragraphs: [invitation],
       action: "Accept the invitation",
       url,

@@ -1,4 +1,11 @@
-import type { Locator, Page } from "@playwright/test";
+import { randomUUID } from "node:crypto";
+import { expect, type Locator, type Page } from "@playwright/test";
+import { linkIn, waitForMailAbout } from "../mail";
+
+export const MISMATCH = "That e-mail and password don't match.";
+
+/** A fresh address per test, so no test depends on another's account or mail. */
+export const newEmail = (tag: string) => `${tag}-${randomUUID().slice(0, 8)}@example.test`;
 
 /** A form's error: an alert inside the page's main content (Next's route announcer is an alert too). */
 export function formAlert(page: Page): Locator {
@@ -37,6 +44,30 @@ export class SignUpPage {
     await this.form.getByLabel("Password").fill(password);
     await this.form.getByRole("button", { name: "Create account" }).click();
   }
+}
+
+export const CONFIRM_SUBJECT = "Confirm your e-mail address";
+
+/** Opens the newest confirmation mail's link, confirms, and follows "Continue" (signed in by then). */
+export async function confirmAddress(page: Page, email: string) {
+  await page.goto(linkIn(await waitForMailAbout(email, CONFIRM_SUBJECT)));
+  await page.getByRole("button", { name: "Confirm my address" }).click();
+  await expect(page.getByRole("heading", { name: "Your address is confirmed" })).toBeVisible();
+  await page.getByRole("main").getByRole("link", { name: "Continue" }).click();
+}
+
+/** Signs a new person up through the form, confirms the address from the mail, and waits until the header shows them. */
+export async function signUpAndConfirm(
+  page: Page,
+  { name, email, password }: { name: string; email: string; password: string },
+  callbackUrl?: string,
+) {
+  const form = new SignUpPage(page);
+  await form.goto(callbackUrl);
+  await form.signUp({ name, email, password });
+  await expect(page.getByRole("heading", { name: "Check your e-mail" })).toBeVisible();
+  await confirmAddress(page, email);
+  await expect(new AccountArea(page).user(name)).toBeVisible();
 }
 
 /** /sign-in: the password form and the "e-mail me a link" form. */

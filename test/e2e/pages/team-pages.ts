@@ -1,14 +1,11 @@
 import { expect, type Locator, type Page } from "@playwright/test";
-import { AccountArea, SignUpPage } from "./auth-pages";
+import { signUpAndConfirm } from "./auth-pages";
 
 export const PASSWORD = "frame-trap-drills";
 
-/** Signs a new person up through the form and waits until the header shows them. */
+/** Signs a new person up through the form, confirms the address, and waits until the header shows them. */
 export async function signUpAs(page: Page, name: string, email: string, callbackUrl?: string) {
-  const form = new SignUpPage(page);
-  await form.goto(callbackUrl);
-  await form.signUp({ name, email, password: PASSWORD });
-  await expect(new AccountArea(page).user(name)).toBeVisible();
+  await signUpAndConfirm(page, { name, email, password: PASSWORD }, callbackUrl);
 }
 
 /** /teams: the user's teams and "Start a team". */

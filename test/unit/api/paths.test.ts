@@ -1,6 +1,14 @@
-import { describe, expect, test } from "vitest";
+import { randomBytes } from "node:crypto";
+import { afterAll, describe, expect, test } from "vitest";
 import { POST } from "@/app/api/paths/route";
 import { MAX_BODY_BYTES } from "@/app/api/paths/schema";
+import { LIMITS } from "@/server/auth/rate-limit";
+import { closeDb } from "@/server/db";
+
+afterAll(closeDb);
+
+/** An address of the documentation range no other run has used, so the route's per-address budget starts full. */
+const freshAddress = () => `2001:db8::${randomBytes(6).toString("hex").match(/..../g)!.join(":")}`;
 
 const move = (id: string, input: string, onBlock: number) => ({
   id,
@@ -41,11 +49,11 @@ const graph = {
   ],
 };
 
-function post(body: unknown, init: { type?: string; raw?: string } = {}) {
+function post(body: unknown, init: { type?: string; raw?: string; from?: string } = {}) {
   return POST(
     new Request("http://test/api/paths", {
       method: "POST",
-      headers: { "content-type": init.type ?? "application/json" },
+      headers: { "content-type": init.type ?? "application/json", "x-forwarded-for": init.from ?? freshAddress() },
       body: init.raw ?? JSON.stringify(body),
     }),
   );
@@ -98,5 +106,21 @@ describe("POST /api/paths", () => {
     const huge = JSON.stringify({ graph, root: "a", padding: "x".repeat(MAX_BODY_BYTES) });
     const res = await post(null, { raw: huge });
     expect(res.status).toBe(413);
+  });
+
+  test("one address past its budget gets 429 in the JSON error format, with Retry-After", async () => {
+    const from = freshAddress();
+    for (let i = 0; i < LIMITS.pathsIpMinute.points; i++)
+      expect((await post({ graph, root: "a" }, { from })).status).toBe(200);
+    const res = await post({ graph, root: "a" }, { from });
+    expect(res.status).toBe(429);
+    const body = (await res.json()) as { error: { code: string; message: string } };
+    expect(body.error).toEqual({ code: "rate_limited", message: "Too many attempts, try again in 1 minute." });
+    expect(Number(res.headers.get("retry-after"))).toBeGreaterThanOrEqual(1);
+    expect(Number(res.headers.get("retry-after"))).toBeLessThanOrEqual(LIMITS.pathsIpMinute.duration);
+    // Refused before the body is read: even a body that is not JSON gets the 429.
+    expect((await post(null, { from, type: "text/plain", raw: "hello" })).status).toBe(429);
+    // Another address is not affected.
+    expect((await post({ graph, root: "a" })).status).toBe(200);
   });
 });

@@ -1,3 +1,4 @@
+import { randomUUID } from "node:crypto";
 import { count, eq } from "drizzle-orm";
 import { afterAll, beforeEach, describe, expect, test, vi } from "vitest";
 import { POST as acceptInvite } from "@/app/api/invites/accept/route";
@@ -8,13 +9,14 @@ import { POST as createTeam } from "@/app/api/teams/route";
 import { setSession } from "./session-mock";
 import { closeDb, getDb } from "@/server/db";
 import { listMembers, listMyTeams } from "@/server/db/queries/teams";
-import { auditLog, invites, permalinks } from "@/server/db/schema";
+import { auditLog, invites, permalinks, users } from "@/server/db/schema";
 import { VIEW, world, type World } from "./world";
 
 vi.mock("@/server/auth", () => import("./session-mock"));
 vi.mock("@/server/mail", async (original) => ({
   ...(await original<typeof import("@/server/mail")>()),
   sendMail: async () => {},
+  deliverSoon: () => {},
 }));
 
 afterAll(closeDb);
@@ -160,4 +162,30 @@ test("a refused role change leaves the member as they were", async () => {
   expect(res.status).toBe(400);
   const extra = (await listMembers({ teamId: w.team.id })).find((m) => m.userId === w.people.extra.id);
   expect(extra?.role).toBe("player");
+});
+
+test("a team name with a line break, a control or a text-direction character is refused, and no team is made", async () => {
+  const w = await world();
+  setSession({ id: w.people.owner.id, email: w.people.owner.email, name: w.people.owner.name });
+  const before = await rowCounts(w);
+  for (const name of ["Night\nShift", "Night\u0085Shift", "Night\u202EtfihS", "Night\u2066Shift", "Night\u2028Shift"]) {
+    const res = await send(ROUTES[0]!, w, JSON.stringify({ name }));
+    expect(res.status, JSON.stringify(name)).toBe(400);
+    const body = (await res.json()) as { error: { message: string; issues: { message: string }[] } };
+    expect(body.error.issues[0]?.message).toMatch(/cannot contain line breaks, control characters/);
+  }
+  expect(await rowCounts(w)).toEqual(before);
+});
+
+test("sign-up refuses a display name with a line break or a text-direction character, and makes no account", async () => {
+  const { signUp } = await import("@/app/(auth)/actions");
+  for (const name of ["Mara\nQuell", "Mara\u202EllueQ"]) {
+    const email = `name-check-${randomUUID().slice(0, 8)}@example.test`;
+    const form = new FormData();
+    for (const [k, v] of Object.entries({ name, email, password: "long enough password" })) form.set(k, v);
+    const state = await signUp(null, form);
+    expect(state).toMatchObject({ ok: false, code: "bad_request" });
+    expect(state && !state.ok && state.fieldErrors?.name).toMatch(/^Your name cannot contain line breaks/);
+    expect(await getDb().select().from(users).where(eq(users.email, email))).toEqual([]);
+  }
 });

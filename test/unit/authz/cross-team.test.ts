@@ -159,6 +159,9 @@ const ACTIONS: Record<string, { noIds: string }> = {
   "(auth)/actions.ts requestPasswordReset": { noIds: "an address; the answer is the same for any" },
   "(auth)/actions.ts resetPassword": { noIds: "a reset token is its account's own secret, not a team's" },
   "(auth)/actions.ts changePassword": { noIds: "the caller's own passwords" },
+  "(auth)/actions.ts confirmEmail": { noIds: "a confirmation token is its account's own secret, not a team's" },
+  "(auth)/actions.ts resendConfirmation": { noIds: "an address; the answer is the same for any" },
+  "(auth)/actions.ts signOutEverywhere": { noIds: "the caller's own sessions" },
 };
 
 const CALLERS = ["team B's owner", "anonymous"] as const;
@@ -167,16 +170,6 @@ const callerUser = (w: CrossWorld, caller: Caller): SessionUser | null =>
   caller === "anonymous"
     ? null
     : { id: w.people.outsider.id, email: w.people.outsider.email, name: w.people.outsider.name };
-
-/**
- * Answers that differ today and will not once the 401-vs-404 change lands: a signed-out caller
- * asking for a private team's character gets 401 ("sign in"), one asking for an unknown character
- * 404. They are declared `test.fails`, so the day they pass, this list must shrink.
- */
-const AWAITING_404_FOR_SIGNED_OUT = new Set([
-  "GET /api/characters/[id]/graph · anonymous · id",
-  "GET /api/characters/[id]/graph · anonymous · every id",
-]);
 
 function withValue(call: Call, field: IdField, value: Id): Call {
   const out: Call = structuredClone(call);
@@ -246,8 +239,7 @@ describe("cross-team matrix", () => {
   });
 
   for (const c of cases) {
-    const declare = AWAITING_404_FOR_SIGNED_OUT.has(c.name) ? test.fails : test;
-    declare(c.name, async () => {
+    test(c.name, async () => {
       const w = await crossWorld();
       setSession(callerUser(w, c.caller));
       const own = c.row.own(w);

@@ -4,7 +4,8 @@ import type { SessionUser } from "@/server/auth";
 import { missingRows, pathParams, routeHandlers, routeUrl, serverActions, type Action } from "./inventory";
 import { tableChecksums, runOnPrivateDatabase } from "./private-database";
 import { setSession } from "./session-mock";
-import { ONE_MOVE_GRAPH, VIEW, world, type World } from "./world";
+import { VIEW, world, type World } from "./world";
+import { ONE_MOVE_PATHS_REQUEST } from "../../fixtures/paths-request";
 
 // Every route's path parameters, query and body, and every server action's form, filled with
 // arbitrary input by three kinds of caller: signed out, another team's owner, and team A's own
@@ -145,8 +146,7 @@ const ROUTES: Record<string, FuzzRow | { overHttp: string }> = {
   "GET /api/health": {},
   "POST /api/paths": {
     good: () => ({
-      root: "a",
-      graph: ONE_MOVE_GRAPH,
+      ...ONE_MOVE_PATHS_REQUEST,
       options: { maxDepth: 4 },
       limit: 10,
     }),
@@ -278,6 +278,9 @@ const ACTIONS: Record<string, { good: () => Record<string, string> }> = {
   "(auth)/actions.ts requestPasswordReset": { good: () => ({ email: w.people.viewer.email }) },
   "(auth)/actions.ts resetPassword": { good: () => ({ token: "no-such-token", password: PASSWORD }) },
   "(auth)/actions.ts changePassword": { good: () => ({ currentPassword: PASSWORD, newPassword: PASSWORD }) },
+  "(auth)/actions.ts resendConfirmation": { good: () => ({ email: w.people.viewer.email }) },
+  "(auth)/actions.ts confirmEmail": { good: () => ({ token: "no-such-token" }) },
+  "(auth)/actions.ts signOutEverywhere": { good: () => ({}) },
 };
 
 /** A form field's value: text of every kind, an address, a long enough password, or a file. */

@@ -2,24 +2,18 @@ import { afterAll, beforeEach, describe, expect, test, vi } from "vitest";
 import { ERROR_STATUS } from "@/lib/errors";
 import type { SessionUser } from "@/server/auth";
 import { routeHandlers, routeUrl, serverActions, type Action } from "./inventory";
+import { nextAddress } from "./headers-mock";
 import { setSession } from "./session-mock";
 import { closeDb } from "@/server/db";
-import { ONE_MOVE_GRAPH, VIEW, world, type World } from "./world";
+import { VIEW, world, type World } from "./world";
+import { ONE_MOVE_PATHS_REQUEST } from "../../fixtures/paths-request";
 
 // Who is signed in for the call under test. Route handlers read the session only through
 // @/server/auth, so the matrix sets it here; everything else (database, role checks) is real.
 vi.mock("@/server/auth", () => import("./session-mock"));
-// Invites would send e-mail; the matrix is about who may act, so mail is recorded, not sent.
-const sent: { to: string }[] = [];
-vi.mock("@/server/mail", async (original) => ({
-  ...(await original<typeof import("@/server/mail")>()),
-  sendMail: async (m: { to: string }) => void sent.push(m),
-}));
-// Server actions read the caller's address for rate limits; each call comes from its own.
-let address = 0;
-vi.mock("next/headers", () => ({
-  headers: async () => new Headers({ "x-forwarded-for": `198.51.100.${(address++ % 250) + 1}` }),
-}));
+// Mail is recorded, not sent; each call comes from its own address (see the mocks).
+vi.mock("@/server/mail", () => import("./mail-mock"));
+vi.mock("next/headers", () => import("./headers-mock"));
 
 afterAll(closeDb);
 beforeEach(() => setSession(null));
@@ -80,17 +74,17 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
   "POST /api/paths": [
     {
       what: "explore a posted graph",
-      call: () => ({
-        body: {
-          root: "a",
-          graph: ONE_MOVE_GRAPH,
-        },
-      }),
+      call: () => ({ body: ONE_MOVE_PATHS_REQUEST }),
       expect: all(200),
     },
   ],
   "GET /api/characters/[id]/graph": [
-    { what: "a team's game", call: (w) => ({ params: { id: String(w.teamCharacterId) } }), expect: members(200) },
+    // Signed out, a private character is as unknown as to an outsider (not-yours.test.ts compares the bodies).
+    {
+      what: "a team's game",
+      call: (w) => ({ params: { id: String(w.teamCharacterId) } }),
+      expect: { ...members(200), anonymous: 404 },
+    },
   ],
   "GET /api/auth/[...nextauth]": { exempt: "next-auth's own sign-in endpoints: public by design, rate limited" },
   "POST /api/auth/[...nextauth]": { exempt: "next-auth's own sign-in endpoints: public by design, rate limited" },
@@ -181,11 +175,21 @@ interface ActionCase {
  */
 const ACTIONS: Record<string, ActionCase[]> = {
   "(auth)/actions.ts signUp": [
+    // Answers "check your e-mail" (a redirect) for anyone; the account waits for its address to be proven.
     {
       what: "make an account",
       form: (w) => ({ name: "New Person", email: `new-${w.team.slug}@example.test`, password: "long enough password" }),
-      expect: all(200),
+      expect: all(303),
     },
+  ],
+  "(auth)/actions.ts resendConfirmation": [
+    { what: "ask for a new confirmation link", form: (w) => ({ email: w.people.viewer.email }), expect: all(200) },
+  ],
+  "(auth)/actions.ts confirmEmail": [
+    { what: "use a confirmation link that does not exist", form: () => ({ token: "no-such-token" }), expect: all(404) },
+  ],
+  "(auth)/actions.ts signOutEverywhere": [
+    { what: "end every session", form: () => ({}), expect: { ...all(303), anonymous: 401 } },
   ],
   "(auth)/actions.ts requestPasswordReset": [
     { what: "ask for a reset link", form: (w) => ({ email: w.people.viewer.email }), expect: all(303) },
@@ -246,9 +250,12 @@ describe("role matrix", () => {
       const w = await world();
       const { params = {}, body, query = "" } = c.call(w);
       setSession(userOf(w, actor));
+      // Each call from its own address, like the actions above: no route's per-address limit decides a row.
+      const from = { "x-forwarded-for": nextAddress() };
       const request = new Request(routeUrl(path, params, query), {
         method,
-        ...(body === undefined ? {} : { body: JSON.stringify(body), headers: { "content-type": "application/json" } }),
+        headers: body === undefined ? from : { ...from, "content-type": "application/json" },
+        ...(body === undefined ? {} : { body: JSON.stringify(body) }),
       });
       const res = await handler!(request, { params: Promise.resolve(params) });
       got[actor] = res.status;

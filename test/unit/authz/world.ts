@@ -14,24 +14,6 @@ export const VIEW = {
   opponent: null,
 };
 
-/** A graph of one move, the smallest the engine explores. */
-export const ONE_MOVE_GRAPH = {
-  nodes: [
-    {
-      kind: "move",
-      id: "a",
-      input: "1",
-      level: "mid",
-      damage: 10,
-      startup: 12,
-      onBlock: -2,
-      onHit: 3,
-      onCounterHit: 5,
-    },
-  ],
-  edges: [],
-};
-
 /** One team with a member of each role, another team owned by the outsider, and what the routes act on. */
 export async function world() {
   const people = {

@@ -1,5 +1,12 @@
 import { describe, expect, test } from "vitest";
-import { escapeHtml, inviteMail, passwordResetMail, signInLinkMail } from "@/server/mail/templates";
+import {
+  accountExistsMail,
+  confirmAddressMail,
+  escapeHtml,
+  inviteMail,
+  passwordResetMail,
+  signInLinkMail,
+} from "@/server/mail/templates";
 
 const hostile = `<script>alert("x")</script>&'`;
 
@@ -14,6 +21,8 @@ describe("mail templates", () => {
       signInLinkMail({ url }),
       passwordResetMail({ url, expiresInMinutes: 30 }),
       inviteMail({ teamName: "Night Owls", inviterName: "Ada", role: "coach", url, expiresInDays: 7 }),
+      confirmAddressMail({ url, expiresInHours: 24 }),
+      accountExistsMail({ url }),
     ]) {
       expect(mail.subject.length).toBeGreaterThan(5);
       expect(mail.text).toContain(url);
@@ -22,6 +31,7 @@ describe("mail templates", () => {
       expect(mail.text).not.toMatch(/<[a-z]/i);
     }
     expect(passwordResetMail({ url, expiresInMinutes: 30 }).text).toContain("30 minutes");
+    expect(confirmAddressMail({ url, expiresInHours: 24 }).text).toContain("24 hours");
     expect(inviteMail({ teamName: "T", inviterName: "I", role: "player", url, expiresInDays: 1 }).text).toContain(
       "1 day.",
     );
@@ -40,5 +50,30 @@ describe("mail templates", () => {
     expect(mail.html).not.toMatch(/href="[^"]*"></);
     // The plain-text part shows them as typed.
     expect(mail.text).toContain(hostile);
+  });
+
+  test("names lose line breaks and text-direction characters before they reach the subject or a sentence", () => {
+    // Rows written before names were checked may hold these; the mail must not carry them.
+    const mail = inviteMail({
+      teamName: "Night\u202EpuorG\u202C Crew",
+      inviterName: "Mara\r\nBcc: someone@example.test\u200B",
+      role: "player",
+      url: "http://127.0.0.1:3000/invites/abc",
+      expiresInDays: 7,
+    });
+    // Line feeds are the templates' own, between paragraphs; nothing else of these categories is left.
+    for (const part of [mail.subject, mail.text, mail.html])
+      expect(part.replaceAll("\n", "")).not.toMatch(/[\p{Cc}\p{Cf}\u2028\u2029]/u);
+    expect(mail.subject).toBe("Mara Bcc: someone@example.test invited you to NightpuorG Crew on Framefork");
+    expect(mail.text).toContain("Mara Bcc: someone@example.test invited you to join the team NightpuorG Crew");
+    // Emoji sequences and letters of other scripts stay as they are.
+    const kept = inviteMail({
+      teamName: "👩‍💻 می‌خواهم",
+      inviterName: "Zoë",
+      role: "viewer",
+      url: "http://x.example.test/",
+      expiresInDays: 7,
+    });
+    expect(kept.subject).toBe("Zoë invited you to 👩‍💻 می‌خواهم on Framefork");
   });
 });

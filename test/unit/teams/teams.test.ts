@@ -13,7 +13,8 @@ import {
   revokeInvite,
 } from "@/server/db/queries/invites";
 import { changeRole, createTeam, listMembers, listMyTeams, removeMember, teamSlug } from "@/server/db/queries/teams";
-import { invites, ROLES } from "@/server/db/schema";
+import { invites, mailOutbox, memberships, ROLES } from "@/server/db/schema";
+import { inviteMessage } from "@/server/invites";
 import { makeUser } from "./fixtures";
 
 // Against the test MariaDB that `npm test` prepares; every test makes its own users and teams.
@@ -240,22 +241,118 @@ describe("invites", () => {
   });
 });
 
-describe("invite delivery", () => {
-  test("when the e-mail cannot be sent, no invite and no log entry are left", async () => {
+describe("invite e-mail", () => {
+  test("the invite and its e-mail are written together: the message waits in the outbox with the link", async () => {
     const owner = await makeUser("owner");
-    const team = await createTeam({ name: "Mail Down", ownerId: owner.id });
-    const deliver = () => Promise.reject(new Error("SMTP refused"));
+    const member = await makeUser("member");
+    const team = await createTeam({ name: "Outbox Crew", ownerId: owner.id });
+    const address = `outbox-${team.slug}@example.test`;
+    const { token } = await createInvite({
+      teamId: team.id,
+      invitedBy: owner.id,
+      inviterRole: "owner",
+      email: address,
+      role: "player",
+      mail: inviteMessage,
+    });
+    const queued = await getDb().select().from(mailOutbox).where(eq(mailOutbox.to, address));
+    expect(queued).toHaveLength(1);
+    // The team's and the inviter's names as stored, and the link carrying the token.
+    expect(queued[0]!.subject).toBe(`${owner.name} invited you to Outbox Crew on Framefork`);
+    expect(queued[0]!.text).toContain(`/invites/${token}`);
+    expect(queued[0]!.sentAt).toBeNull();
+
+    // A refused invite (already a member) leaves no message behind.
+    await getDb().insert(memberships).values({ teamId: team.id, userId: member.id, role: "player" });
     await expect(
       createInvite({
         teamId: team.id,
         invitedBy: owner.id,
         inviterRole: "owner",
-        email: "nobody@example.test",
-        role: "player",
-        deliver,
+        email: member.email,
+        role: "viewer",
+        mail: inviteMessage,
       }),
-    ).rejects.toThrow("SMTP refused");
-    expect(await getDb().select().from(invites).where(eq(invites.teamId, team.id))).toEqual([]);
-    expect((await listAudit({ teamId: team.id })).map((e) => e.action)).toEqual(["team.created"]);
+    ).rejects.toMatchObject({ status: 409 });
+    expect(await getDb().select().from(mailOutbox).where(eq(mailOutbox.to, member.email))).toEqual([]);
+  });
+});
+
+describe("leaving and removal", () => {
+  /** A team with an owner and a coach who has sent one invite that is still waiting. */
+  async function coachWithInvite() {
+    const owner = await makeUser("owner");
+    const coach = await makeUser("coach");
+    const team = await createTeam({ name: "Pending Invites", ownerId: owner.id });
+    await getDb().insert(memberships).values({ teamId: team.id, userId: coach.id, role: "coach" });
+    const invited = await makeUser("invited");
+    const sent = await createInvite({
+      teamId: team.id,
+      invitedBy: coach.id,
+      inviterRole: "coach",
+      email: invited.email,
+      role: "player",
+    });
+    return { owner, coach, team, invited, sent };
+  }
+
+  test("a removed member's waiting invites are withdrawn with them, and the log says so", async () => {
+    const { owner, coach, team, invited, sent } = await coachWithInvite();
+    // One the owner sent stays: only the removed member's invites go.
+    const kept = await createInvite({
+      teamId: team.id,
+      invitedBy: owner.id,
+      inviterRole: "owner",
+      email: `kept-${team.slug}@example.test`,
+      role: "viewer",
+    });
+    await removeMember({ teamId: team.id, actorId: owner.id, userId: coach.id });
+    expect((await lookupInvite({ token: sent.token })).status).toBe("revoked");
+    expect((await lookupInvite({ token: kept.token })).status).toBe("valid");
+    expect(await status(acceptInvite({ token: sent.token, userId: invited.id, userEmail: invited.email }))).toBe(409);
+    expect(await getRole({ teamId: team.id, userId: invited.id })).toBeNull();
+    const log = await listAudit({ teamId: team.id });
+    expect(log.at(-1)).toMatchObject({
+      action: "invite.revoked",
+      actorEmail: owner.email,
+      detail: { email: invited.email, reason: "sender_removed" },
+    });
+    expect(log.at(-2)?.action).toBe("member.removed");
+  });
+
+  test("a member who leaves takes their waiting invites with them", async () => {
+    const { coach, team, sent, invited } = await coachWithInvite();
+    await removeMember({ teamId: team.id, actorId: coach.id, userId: coach.id });
+    expect((await lookupInvite({ token: sent.token })).status).toBe("revoked");
+    expect((await listAudit({ teamId: team.id })).at(-1)).toMatchObject({
+      action: "invite.revoked",
+      detail: { email: invited.email, reason: "sender_left" },
+    });
+    expect(await listPendingInvites({ teamId: team.id })).toEqual([]);
+  });
+
+  test("someone no longer in the team, or no longer an owner, changes nothing", async () => {
+    const { owner, coach, team } = await coachWithInvite();
+    const player = await makeUser("player");
+    await getDb().insert(memberships).values({ teamId: team.id, userId: player.id, role: "player" });
+    // The routes checked these people before; by the time their change runs, they have lost the role.
+    expect(await status(changeRole({ teamId: team.id, actorId: coach.id, userId: player.id, role: "coach" }))).toBe(
+      403,
+    );
+    expect(await status(removeMember({ teamId: team.id, actorId: coach.id, userId: player.id }))).toBe(403);
+    await removeMember({ teamId: team.id, actorId: owner.id, userId: coach.id });
+    expect(
+      await status(
+        createInvite({
+          teamId: team.id,
+          invitedBy: coach.id,
+          inviterRole: "coach",
+          email: `late-${team.slug}@example.test`,
+          role: "viewer",
+        }),
+      ),
+    ).toBe(403);
+    expect(await getRole({ teamId: team.id, userId: player.id })).toBe("player");
+    expect(await listPendingInvites({ teamId: team.id })).toEqual([]);
   });
 });

@@ -1,9 +1,8 @@
 import "server-only";
 import { notFound } from "next/navigation";
 import { cache } from "react";
-import { AppError } from "@/lib/errors";
 import { auth } from "@/server/auth";
-import { checkGameRead } from "@/server/games-access";
+import { canReadGame } from "@/server/games-access";
 import { getCharacterBySlug, getGameBySlug } from "@/server/db/queries/games";
 import { hasMove } from "@/server/db/queries/moves";
 
@@ -15,14 +14,7 @@ import { hasMove } from "@/server/db/queries/moves";
 export const loadGame = cache(async (slug: string) => {
   const game = await getGameBySlug({ slug });
   if (!game) notFound();
-  const allowed = await checkGameRead({ game, user: await auth() }).then(
-    () => true,
-    (e: unknown) => {
-      if (e instanceof AppError && (e.code === "not_found" || e.code === "unauthorized")) return false;
-      throw e;
-    },
-  );
-  if (!allowed) notFound();
+  if (!(await canReadGame({ game, user: await auth() }))) notFound();
   return game;
 });
 

@@ -21,6 +21,7 @@ export default async function SignInPage({
   const { callbackUrl, withCallback, params } = await callbackFor(searchParams);
   const code = first(params.error);
   const linkError = code ? (LINK_ERRORS[code] ?? "Sign-in did not work. Try again.") : null;
+  const signedOutEverywhere = first(params.signedOut) === "everywhere";
   return (
     <AuthCard
       title="Sign in"
@@ -33,6 +34,11 @@ export default async function SignInPage({
         </>
       }
     >
+      {signedOutEverywhere ? (
+        <p role="status" className="rounded border border-block-plus/50 bg-ink-850 px-3 py-2 text-sm text-ink-100">
+          You are signed out on every device, this one too.
+        </p>
+      ) : null}
       {linkError ? (
         <p role="alert" className="rounded border border-red-400/50 bg-red-950/40 px-3 py-2 text-sm text-red-200">
           {linkError}

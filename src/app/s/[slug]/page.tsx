@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
-import { SharedExplorer, SharedSignIn } from "@/components/explorer/shared-explorer";
+import { SharedExplorer } from "@/components/explorer/shared-explorer";
 import { auth } from "@/server/auth";
 import { loadSharedView } from "@/server/db/queries/permalinks";
 
@@ -28,7 +28,5 @@ export default async function SharedPage({ params }: Props) {
   const { slug } = await params;
   const shared = await load(slug);
   if (shared.status === "unavailable") notFound();
-  if (shared.status === "sign-in")
-    return <SharedSignIn signInHref={`/sign-in?callbackUrl=${encodeURIComponent(`/s/${slug}`)}`} />;
   return <SharedExplorer view={shared.view} />;
 }

@@ -2,10 +2,12 @@ import "server-only";
 import { and, desc, eq, isNull } from "drizzle-orm";
 import { AppError } from "@/lib/errors";
 import { atLeast } from "../../authz";
+import { queueMail, type OutgoingMail } from "../../mail";
 import { hashToken, newToken } from "../../tokens";
 import { getDb } from "../index";
 import { invites, memberships, teams, users, type Role } from "../schema";
 import { recordAudit } from "./audit";
+import { lockTeam, memberRole } from "./teams";
 import type { InviteDto } from "@/lib/dto";
 
 export const INVITE_DAYS = 7;
@@ -30,10 +32,24 @@ export function mayInvite(inviter: Role, role: Role): boolean {
   return false;
 }
 
+/** What the invite e-mail says, read in the transaction that makes the invite. */
+export interface InviteMailFacts {
+  token: string;
+  email: string;
+  role: Role;
+  expiresAt: Date;
+  teamName: string;
+  inviterName: string;
+}
+
 /**
  * Creates an invite and returns it with its token. Only the SHA-256 of the token is stored;
- * the token itself goes out in the e-mail and nowhere else. `deliver` sends that e-mail
- * inside the transaction: when it fails, no invite is left behind.
+ * the token itself goes out in the e-mail and nowhere else. The e-mail made by `mail` is queued
+ * in the same transaction (src/server/mail/outbox.ts): the invite and its message are kept or
+ * dropped together, and the caller sends it after the commit with `deliverSoon()`.
+ *
+ * `inviterRole` is the role the caller checked; it is read again under the team's lock, so
+ * someone removed or demoted a moment ago sends nothing.
  */
 export async function createInvite({
   teamId,
@@ -41,7 +57,7 @@ export async function createInvite({
   inviterRole,
   email,
   role,
-  deliver,
+  mail,
   now = new Date(),
 }: {
   teamId: number;
@@ -49,13 +65,22 @@ export async function createInvite({
   inviterRole: Role;
   email: string;
   role: Role;
-  deliver?: (message: { token: string; email: string; expiresAt: Date }) => Promise<void>;
+  mail?: (facts: InviteMailFacts) => OutgoingMail;
   now?: Date;
 }): Promise<{ invite: InviteDto; token: string }> {
   if (!mayInvite(inviterRole, role))
     throw new AppError("forbidden", `A ${inviterRole} cannot invite someone as ${role}.`);
   const address = email.trim().toLowerCase();
   return getDb().transaction(async (tx) => {
+    const team = await lockTeam(tx, teamId);
+    const roleNow = await memberRole(tx, teamId, invitedBy);
+    if (roleNow === null || !mayInvite(roleNow, role))
+      throw new AppError(
+        "forbidden",
+        roleNow === null
+          ? "You are no longer a member of this team, so no invite was sent."
+          : `A ${roleNow} cannot invite someone as ${role}.`,
+      );
     const [already] = await tx
       .select({ userId: memberships.userId })
       .from(memberships)
@@ -70,7 +95,14 @@ export async function createInvite({
       .values({ teamId, email: address, role, tokenHash: hashToken(token), invitedBy, expiresAt })
       .$returningId();
     await recordAudit(tx, { teamId, actorId: invitedBy, action: "member.invited", detail: { email: address, role } });
-    await deliver?.({ token, email: address, expiresAt });
+    if (mail) {
+      const [inviter] = await tx
+        .select({ name: users.name, email: users.email })
+        .from(users)
+        .where(eq(users.id, invitedBy));
+      const inviterName = inviter?.name || inviter?.email || "A team member";
+      await queueMail(tx, mail({ token, email: address, role, expiresAt, teamName: team.name, inviterName }));
+    }
     return {
       token,
       invite: {
@@ -121,6 +153,7 @@ export async function revokeInvite({
   actorId: string;
 }): Promise<void> {
   await getDb().transaction(async (tx) => {
+    await lockTeam(tx, teamId);
     const [row] = await tx
       .select({ email: invites.email, acceptedAt: invites.acceptedAt, revokedAt: invites.revokedAt })
       .from(invites)
@@ -171,7 +204,9 @@ export const INVITE_PROBLEM: Record<Exclude<InviteLookup["status"], "valid">, st
 /**
  * Uses an invite: the signed-in user, whose e-mail must be the invited one, joins the team
  * with the invited role (or keeps a higher role they already have). Single use: the row is
- * locked and marked in the same transaction.
+ * locked and marked in the same transaction. Locks are taken in the order every team change
+ * uses (the team, then the user, then the invite), so two invites for one person accepted at
+ * once run one after the other and both succeed, instead of racing on the membership row.
  */
 export async function acceptInvite({
   token,
@@ -184,7 +219,18 @@ export async function acceptInvite({
   userEmail: string;
   now?: Date;
 }): Promise<{ teamSlug: string; teamName: string; role: Role }> {
+  const tokenHash = hashToken(token);
+  // The invite's team never changes, so it is read before the transaction that locks the team.
+  const [found] = await getDb()
+    .select({ teamId: invites.teamId })
+    .from(invites)
+    .where(eq(invites.tokenHash, tokenHash))
+    .limit(1);
+  if (!found) throw new AppError("not_found", INVITE_PROBLEM.unknown);
   return getDb().transaction(async (tx) => {
+    const team = await lockTeam(tx, found.teamId);
+    const [me] = await tx.select({ id: users.id }).from(users).where(eq(users.id, userId)).for("update");
+    if (!me) throw new AppError("unauthorized", "Sign in again to accept this invite.");
     const [row] = await tx
       .select({
         id: invites.id,
@@ -196,7 +242,7 @@ export async function acceptInvite({
         revokedAt: invites.revokedAt,
       })
       .from(invites)
-      .where(eq(invites.tokenHash, hashToken(token)))
+      .where(eq(invites.tokenHash, tokenHash))
       .for("update");
     // An invite sent to someone else answers as one that does not exist, whatever its state:
     // the answer tells a stranger holding a token nothing about the team behind it. (The invite
@@ -204,7 +250,13 @@ export async function acceptInvite({
     if (!row || row.email !== userEmail.trim().toLowerCase()) throw new AppError("not_found", INVITE_PROBLEM.unknown);
     const status = row.revokedAt ? "revoked" : row.acceptedAt ? "used" : row.expiresAt <= now ? "expired" : "valid";
     if (status !== "valid") throw new AppError("conflict", INVITE_PROBLEM[status]);
-    const [team] = await tx.select({ slug: teams.slug, name: teams.name }).from(teams).where(eq(teams.id, row.teamId));
+    // Only someone who has proven they own the invited address may take its place in the team.
+    const [proven] = await tx.select({ emailVerified: users.emailVerified }).from(users).where(eq(users.id, userId));
+    if (!proven?.emailVerified)
+      throw new AppError(
+        "forbidden",
+        "Confirm your e-mail address before joining: open the link we e-mailed you when you created the account.",
+      );
     const [member] = await tx
       .select({ role: memberships.role })
       .from(memberships)
@@ -224,6 +276,6 @@ export async function acceptInvite({
       action: "invite.accepted",
       detail: { email: row.email, role },
     });
-    return { teamSlug: team!.slug, teamName: team!.name, role };
+    return { teamSlug: team.slug, teamName: team.name, role };
   });
 }

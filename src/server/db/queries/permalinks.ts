@@ -18,9 +18,9 @@ import { recordAudit } from "./audit";
 import { getExplorerData } from "./explorer";
 import { getCharacterGraph } from "./moves";
 import type { PermalinkDto, SharedViewDto, TeamPermalinkDto } from "@/lib/dto";
+import type { GraphResponse } from "@/lib/explorer";
 
-export type SharedViewResult =
-  { status: "ok"; view: SharedViewDto } | { status: "sign-in" } | { status: "unavailable" };
+export type SharedViewResult = { status: "ok"; view: SharedViewDto } | { status: "unavailable" };
 
 /** A title says what the link shows at a glance: character, the path's input, the Edition. */
 const MAX_TITLE_INPUT = 120;
@@ -244,9 +244,12 @@ export async function revokePermalink({ slug, actorId }: { slug: string; actorId
 
 /**
  * What `/s/[slug]` may show to this viewer. Unknown, revoked, and team-only
- * links seen from outside the team all answer "unavailable", so the answer
- * tells nothing about which it is; a team-only link asks a signed-out viewer
- * to sign in.
+ * links seen from outside the team (signed in or not) all answer
+ * "unavailable", so the answer tells nothing about which it is.
+ *
+ * The view carries only what it shows: the pinned character in the pinned
+ * Edition, and the opponent the view was shared with. A link into a team's
+ * private game reveals neither the rest of its cast nor its other Editions.
  */
 export async function loadSharedView({
   slug,
@@ -259,12 +262,21 @@ export async function loadSharedView({
   if (!found || found.row.revokedAt !== null) return { status: "unavailable" };
   const { row, view } = found;
   if (row.visibility === "team") {
-    if (viewerId === null) return { status: "sign-in" };
-    if ((await getRole({ teamId: row.teamId, userId: viewerId })) === null) return { status: "unavailable" };
+    if (viewerId === null || (await getRole({ teamId: row.teamId, userId: viewerId })) === null)
+      return { status: "unavailable" };
   }
   const explorer = await getExplorerData({ characterId: row.characterId, edition: row.edition.slug });
   if (!explorer.ok) return { status: "unavailable" };
-  const { data } = explorer;
+  const opponentId = view.opponent !== null && view.opponent !== row.characterId ? view.opponent : null;
+  const opponent =
+    opponentId === null ? null : await getExplorerData({ characterId: opponentId, edition: row.edition.slug });
+  const shown = new Set([row.characterId, ...(opponent?.ok ? [opponentId] : [])]);
+  const pinned = (data: GraphResponse): GraphResponse => ({
+    ...data,
+    editions: [data.edition],
+    cast: data.cast.filter((c) => shown.has(c.id)),
+  });
+  const data = pinned(explorer.data);
   return {
     status: "ok",
     view: {
@@ -278,6 +290,7 @@ export async function loadSharedView({
       characterId: row.characterId,
       edition: { slug: data.edition.slug, name: data.edition.name },
       data,
+      opponent: opponent?.ok ? pinned(opponent.data) : null,
       view,
     },
   };

@@ -1,9 +1,9 @@
 import "server-only";
 import { randomBytes } from "node:crypto";
-import { and, asc, count, eq } from "drizzle-orm";
+import { and, asc, count, eq, gt, inArray, isNull } from "drizzle-orm";
 import { AppError } from "@/lib/errors";
 import { getDb } from "../index";
-import { memberships, teams, users, type Role } from "../schema";
+import { invites, memberships, teams, users, type Role } from "../schema";
 import { recordAudit, type Executor } from "./audit";
 import type { MemberDto, MyTeamDto, TeamDto } from "@/lib/dto";
 
@@ -55,15 +55,34 @@ export async function listMembers({ teamId }: { teamId: number }): Promise<Membe
   return listMembersWith(getDb(), teamId);
 }
 
+/**
+ * Locks the team's row for the rest of the transaction and returns it. Every change to a team's
+ * members or invites takes this lock first, so such changes run one after another: two owners
+ * demoting each other at once cannot both see two owners. The team comes first in the lock
+ * order (then the user, then invites and memberships), so these changes cannot deadlock.
+ */
+export async function lockTeam(tx: Executor, teamId: number): Promise<TeamDto> {
+  const [team] = await tx
+    .select({ id: teams.id, slug: teams.slug, name: teams.name })
+    .from(teams)
+    .where(eq(teams.id, teamId))
+    .for("update");
+  if (!team) throw new AppError("not_found", "No such team.");
+  return team;
+}
+
+/** Owners as committed now: a locking read, so it never answers from an older snapshot. */
 async function ownerCount(tx: Executor, teamId: number): Promise<number> {
   const [row] = await tx
     .select({ n: count() })
     .from(memberships)
-    .where(and(eq(memberships.teamId, teamId), eq(memberships.role, "owner")));
+    .where(and(eq(memberships.teamId, teamId), eq(memberships.role, "owner")))
+    .for("update");
   return Number(row?.n ?? 0);
 }
 
-async function memberRole(tx: Executor, teamId: number, userId: string): Promise<Role | null> {
+/** A member's role, read with a lock on their membership row (null for a non-member). */
+export async function memberRole(tx: Executor, teamId: number, userId: string): Promise<Role | null> {
   const [row] = await tx
     .select({ role: memberships.role })
     .from(memberships)
@@ -73,6 +92,16 @@ async function memberRole(tx: Executor, teamId: number, userId: string): Promise
 }
 
 const LAST_OWNER = "A team needs at least one owner: make someone else an owner first.";
+
+/**
+ * The route checked the actor's role before the transaction; another owner may have changed it
+ * since. Read again under the team lock, so a change is only made by someone who is an owner
+ * when it is made.
+ */
+async function requireOwnerNow(tx: Executor, teamId: number, actorId: string): Promise<void> {
+  if ((await memberRole(tx, teamId, actorId)) !== "owner")
+    throw new AppError("forbidden", "You are no longer an owner of this team, so this change was not made.");
+}
 
 /** An owner changes a member's role. The last owner cannot step down. */
 export async function changeRole({
@@ -87,6 +116,8 @@ export async function changeRole({
   role: Role;
 }): Promise<MemberDto> {
   return getDb().transaction(async (tx) => {
+    await lockTeam(tx, teamId);
+    await requireOwnerNow(tx, teamId, actorId);
     const current = await memberRole(tx, teamId, userId);
     if (current === null) throw new AppError("not_found", "That person is not a member of this team.");
     if (current === "owner" && role !== "owner" && (await ownerCount(tx, teamId)) <= 1)
@@ -108,17 +139,26 @@ export async function changeRole({
   });
 }
 
-/** An owner removes a member, or a member leaves (actor = the member). The last owner cannot go. */
+/**
+ * An owner removes a member, or a member leaves (actor = the member). The last owner cannot go.
+ * The invites they sent that are still waiting are withdrawn with them: nobody joins on the word
+ * of someone who is no longer in the team.
+ */
 export async function removeMember({
   teamId,
   actorId,
   userId,
+  now = new Date(),
 }: {
   teamId: number;
   actorId: string;
   userId: string;
+  now?: Date;
 }): Promise<void> {
   await getDb().transaction(async (tx) => {
+    await lockTeam(tx, teamId);
+    const leaving = actorId === userId;
+    if (!leaving) await requireOwnerNow(tx, teamId, actorId);
     const current = await memberRole(tx, teamId, userId);
     if (current === null) throw new AppError("not_found", "That person is not a member of this team.");
     if (current === "owner" && (await ownerCount(tx, teamId)) <= 1) throw new AppError("conflict", LAST_OWNER);
@@ -126,10 +166,50 @@ export async function removeMember({
     await recordAudit(tx, {
       teamId,
       actorId,
-      action: actorId === userId ? "member.left" : "member.removed",
+      action: leaving ? "member.left" : "member.removed",
       detail: { userId, role: current },
     });
+    await withdrawInvitesSentBy(tx, {
+      teamId,
+      actorId,
+      invitedBy: userId,
+      reason: leaving ? "sender_left" : "sender_removed",
+      now,
+    });
   });
+}
+
+/** Withdraws the invites a member sent that are still waiting, one log entry each. */
+async function withdrawInvitesSentBy(
+  tx: Executor,
+  {
+    teamId,
+    actorId,
+    invitedBy,
+    reason,
+    now,
+  }: { teamId: number; actorId: string; invitedBy: string; reason: "sender_left" | "sender_removed"; now: Date },
+): Promise<void> {
+  const waiting = and(
+    eq(invites.teamId, teamId),
+    eq(invites.invitedBy, invitedBy),
+    isNull(invites.acceptedAt),
+    isNull(invites.revokedAt),
+    gt(invites.expiresAt, now),
+  );
+  const pending = await tx.select({ id: invites.id, email: invites.email }).from(invites).where(waiting).for("update");
+  if (pending.length === 0) return;
+  await tx
+    .update(invites)
+    .set({ revokedAt: now })
+    .where(
+      inArray(
+        invites.id,
+        pending.map((i) => i.id),
+      ),
+    );
+  for (const invite of pending)
+    await recordAudit(tx, { teamId, actorId, action: "invite.revoked", detail: { email: invite.email, reason } });
 }
 
 async function listMembersWith(tx: Executor, teamId: number): Promise<MemberDto[]> {
