@@ -1,8 +1,10 @@
 import "server-only";
-import { getServerSession } from "next-auth";
+import { decode } from "next-auth/jwt";
+import { cookies } from "next/headers";
 import { cache } from "react";
+import { env } from "@/env";
 import { AppError } from "@/lib/errors";
-import { authOptions } from "./options";
+import { sessionCookie, userForToken } from "./session";
 
 export interface SessionUser {
   id: string;
@@ -11,16 +13,20 @@ export interface SessionUser {
 }
 
 /**
- * The signed-in user of this request, or null; read once per request. The session callback
- * (session.ts) has already checked the token against the database: an ended session (older
- * session version), a deleted user or an unproven address is null, and the name and e-mail are
- * the database's. Teams and roles are never in the session: they are read per request too.
+ * The signed-in user of this request, or null; read once per request. The token is decoded
+ * here and checked against the database (session.ts): an ended session (older session
+ * version), a deleted user or an unproven address is null, and the name and e-mail are the
+ * database's. Teams and roles are never in the session: they are read per request too.
+ *
+ * This does not go through next-auth's getServerSession: next-auth logs and swallows an error
+ * thrown in its session callback and answers "signed out", so a database that stopped answering
+ * would look like a missing session (401) instead of the 503 it is.
  */
 export const auth: () => Promise<SessionUser | null> = cache(async () => {
-  const session = await getServerSession(authOptions());
-  const user = session?.user as Partial<SessionUser> | undefined;
-  if (!user?.id || !user.email) return null;
-  return { id: user.id, email: user.email, name: user.name ?? null };
+  const raw = (await cookies()).get(sessionCookie().name)?.value;
+  if (!raw) return null;
+  const token = await decode({ token: raw, secret: env().NEXTAUTH_SECRET }).catch(() => null);
+  return userForToken(token);
 });
 
 /** The signed-in user, or AppError "unauthorized" for route handlers and actions to answer with. */
