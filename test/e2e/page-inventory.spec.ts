@@ -266,9 +266,7 @@ test.describe("page inventory", () => {
       }));
     expect(dynamic.length).toBeGreaterThan(5);
     const got = Object.fromEntries(
-      await Promise.all(
-        dynamic.map(async ({ path }) => [path, (await visitors.get("anonymous")!.get(path)).status()]),
-      ),
+      await Promise.all(dynamic.map(async ({ path }) => [path, (await visitors.get("anonymous")!.get(path)).status()])),
     );
     // A route answers our JSON 400 (src/proxy.ts), a page or image our 404.
     expect(got).toEqual(Object.fromEntries(dynamic.map(({ path, route }) => [path, route ? 400 : 404])));
