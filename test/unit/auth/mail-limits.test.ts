@@ -108,7 +108,7 @@ describe("POST /api/auth/signin/email", () => {
     expect(reachedNextAuth).toHaveBeenCalledTimes(3 * refusedByNextAuth.length + TIGHT);
   });
 
-  test("a valid token with a bad e-mail is a 400 that spends nothing; a body next-auth cannot read is a 400", async () => {
+  test("a valid token with a bad e-mail is a 400 that spends nothing; a JSON body (next-auth reads forms) is a 415", async () => {
     const ip = newAddress();
     const good = csrfPair();
     const res = await askForLink("not an address", ip, good);
@@ -121,7 +121,7 @@ describe("POST /api/auth/signin/email", () => {
       }),
       { params: Promise.resolve({ nextauth: ["signin", "email"] }) },
     );
-    expect(unreadable.status).toBe(400);
+    expect(unreadable.status).toBe(415);
     expect(reachedNextAuth).not.toHaveBeenCalled();
   });
 });

@@ -20,21 +20,11 @@ function refuse(error: AppError): Response {
   return Response.json({ url: url.toString() }, { status: error.status, headers: error.headers });
 }
 
-/** The POST body as next-auth reads it (next-auth/next/utils.js, getBody): JSON or a URL-encoded form. */
+/** The POST body as next-auth reads it: a URL-encoded form (refusedAuthInput has refused JSON already). */
 async function readBody(request: Request): Promise<Record<string, unknown> | null> {
   const type = request.headers.get("content-type") ?? "";
-  const copy = request.clone();
-  try {
-    if (type.includes("application/json")) {
-      const json: unknown = await copy.json();
-      return typeof json === "object" && json !== null ? (json as Record<string, unknown>) : null;
-    }
-    if (type.includes("application/x-www-form-urlencoded"))
-      return Object.fromEntries(new URLSearchParams(await copy.text()));
-  } catch {
-    return null;
-  }
-  return null;
+  if (!type.includes("application/x-www-form-urlencoded")) return null;
+  return Object.fromEntries(new URLSearchParams(await request.clone().text()));
 }
 
 /**
