@@ -1,8 +1,7 @@
 import { randomBytes, randomUUID } from "node:crypto";
-import { readFileSync } from "node:fs";
 import { expect, test, type APIResponse } from "@playwright/test";
 import { query } from "./db";
-import { parseSetCookie, personWithPassword, signInOverHttp, withSecondServer, type SetCookie } from "./http";
+import { actionId, parseSetCookie, personWithPassword, signInOverHttp, withSecondServer, type SetCookie } from "./http";
 
 // What the production build answers over HTTP, read without a browser: headers, cookies,
 // refusals. Where a check follows an outside rule, the rule is named beside it.
@@ -129,16 +128,6 @@ test("behind https (NEXTAUTH_URL https) the cookies are Secure with the __Host-/
     },
   );
 });
-
-/** The id of a server action in this build, from Next's manifest of them. */
-function actionId(file: string, name: string): string {
-  const manifest = JSON.parse(readFileSync(".next/server/server-reference-manifest.json", "utf8")) as {
-    node: Record<string, { filename?: string; exportedName?: string }>;
-  };
-  const found = Object.entries(manifest.node).find(([, a]) => a.filename === file && a.exportedName === name);
-  if (!found) throw new Error(`no server action ${name} in ${file} in this build`);
-  return found[0];
-}
 
 test("a change requested from another site is refused with 403 and does nothing: route handlers and server actions", async ({
   baseURL,

@@ -1,6 +1,7 @@
 import { spawn } from "node:child_process";
 import { randomUUID } from "node:crypto";
 import { once } from "node:events";
+import { readFileSync } from "node:fs";
 import { hash } from "@node-rs/argon2";
 import { freePort } from "../fixtures/free-port";
 import { query } from "./db";
@@ -95,4 +96,43 @@ export async function withSecondServer(
       await once(child, "exit");
     }
   }
+}
+
+/** The id of a server action in this build, from Next's manifest of them. */
+export function actionId(file: string, name: string): string {
+  const manifest = JSON.parse(readFileSync(".next/server/server-reference-manifest.json", "utf8")) as {
+    node: Record<string, { filename?: string; exportedName?: string }>;
+  };
+  const found = Object.entries(manifest.node).find(([, a]) => a.filename === file && a.exportedName === name);
+  if (!found) throw new Error(`no server action ${name} in ${file} in this build`);
+  return found[0];
+}
+
+/**
+ * Posts a form to a server action of src/app/(auth)/actions.ts as React posts it from a form
+ * with useActionState (the fields as _1_<name>, the arguments in field 0), from the app's own
+ * origin. Returns the status and the body (React's wire format, which carries the action's state).
+ */
+export async function postAuthAction(
+  base: string,
+  page: string,
+  name: string,
+  fields: Record<string, string>,
+  cookie = "",
+): Promise<{ status: number; text: string }> {
+  const form = new FormData();
+  for (const [key, value] of Object.entries(fields)) form.set(`_1_${key}`, value);
+  form.set("0", '[null,"$K1"]');
+  const res = await fetch(`${base}${page}`, {
+    method: "POST",
+    redirect: "manual",
+    headers: {
+      origin: new URL(base).origin,
+      "next-action": actionId("src/app/(auth)/actions.ts", name),
+      accept: "text/x-component",
+      ...(cookie ? { cookie } : {}),
+    },
+    body: form,
+  });
+  return { status: res.status, text: await res.text() };
 }
