@@ -7,7 +7,7 @@ import { AppError } from "@/lib/errors";
 import { fetcher, sendJson } from "@/lib/fetcher";
 import type { AuditEntryDto, InviteDto, MemberDto, TeamDto, TeamPermalinkDto } from "@/lib/dto";
 import { canRevoke, VISIBILITY_TEXT } from "@/lib/permalink";
-import { atLeast, ROLES, type Role } from "@/lib/roles";
+import { atLeast, mayInvite, ROLES, type Role } from "@/lib/roles";
 import { RoleTag, ROLE_HINT } from "./role-tag";
 
 const control = "rounded border border-ink-700 bg-ink-900 px-2 py-1 text-sm text-ink-100";
@@ -43,10 +43,11 @@ function describe(e: AuditEntryDto): string {
   }
 }
 
-/** Why an invite was withdrawn without anyone asking: its sender is no longer in the team. */
+/** Why an invite was withdrawn without anyone asking: its sender left, was removed, or may no longer send it. */
 const REVOKED_BECAUSE: Record<string, string> = {
   sender_left: " (they left the team)",
   sender_removed: " (its sender was removed)",
+  sender_demoted: " (its sender's new role cannot send it)",
 };
 
 /** What to say when an invite is refused: a rate limit says which limit, and how long to wait. */
@@ -140,7 +141,7 @@ export function TeamAdmin({
       router.push("/teams");
     });
 
-  const invitable = ROLES.filter((r) => owner || r !== "owner");
+  const invitable = ROLES.filter((r) => mayInvite(me.role, r));
   return (
     <div className="space-y-4">
       <div className="flex flex-wrap items-baseline justify-between gap-2">

@@ -9,13 +9,13 @@ import {
   createInvite,
   listPendingInvites,
   lookupInvite,
-  mayInvite,
   revokeInvite,
 } from "@/server/db/queries/invites";
 import { changeRole, createTeam, listMembers, listMyTeams, removeMember, teamSlug } from "@/server/db/queries/teams";
 import { invites, mailOutbox, memberships, ROLES } from "@/server/db/schema";
 import { inviteMessage } from "@/server/invites";
 import { makeUser } from "./fixtures";
+import { mayInvite } from "@/lib/roles";
 
 // Against the test MariaDB that `npm test` prepares; every test makes its own users and teams.
 afterAll(closeDb);
@@ -329,6 +329,41 @@ describe("leaving and removal", () => {
       detail: { email: invited.email, reason: "sender_left" },
     });
     expect(await listPendingInvites({ teamId: team.id })).toEqual([]);
+  });
+
+  test("a demoted member's waiting invites their new role could not send are withdrawn; the rest stay", async () => {
+    const { owner, coach, team, invited, sent } = await coachWithInvite();
+    // An owner's invite to be an owner, and one to be a viewer: stepping down to coach keeps only the second.
+    const other = await makeUser("second-owner");
+    await getDb().insert(memberships).values({ teamId: team.id, userId: other.id, role: "owner" });
+    const asOwner = await createInvite({
+      teamId: team.id,
+      invitedBy: other.id,
+      inviterRole: "owner",
+      email: `future-owner-${team.slug}@example.test`,
+      role: "owner",
+    });
+    const asViewer = await createInvite({
+      teamId: team.id,
+      invitedBy: other.id,
+      inviterRole: "owner",
+      email: `future-viewer-${team.slug}@example.test`,
+      role: "viewer",
+    });
+    await changeRole({ teamId: team.id, actorId: owner.id, userId: other.id, role: "coach" });
+    expect((await lookupInvite({ token: asOwner.token })).status).toBe("revoked");
+    expect((await lookupInvite({ token: asViewer.token })).status).toBe("valid");
+
+    // A coach made a player may send no invite at all: theirs go.
+    await changeRole({ teamId: team.id, actorId: owner.id, userId: coach.id, role: "player" });
+    expect((await lookupInvite({ token: sent.token })).status).toBe("revoked");
+    expect((await listAudit({ teamId: team.id })).at(-1)).toMatchObject({
+      action: "invite.revoked",
+      detail: { email: invited.email, reason: "sender_demoted" },
+    });
+    // Promoted back, nothing returns: a withdrawn invite stays withdrawn.
+    await changeRole({ teamId: team.id, actorId: owner.id, userId: coach.id, role: "coach" });
+    expect((await lookupInvite({ token: sent.token })).status).toBe("revoked");
   });
 
   test("someone no longer in the team, or no longer an owner, changes nothing", async () => {

@@ -1,6 +1,7 @@
 import "server-only";
 import { and, desc, eq, isNull } from "drizzle-orm";
 import { AppError } from "@/lib/errors";
+import { mayInvite } from "@/lib/roles";
 import { atLeast } from "../../authz";
 import { queueMail, type OutgoingMail } from "../../mail";
 import { hashToken, newToken } from "../../tokens";
@@ -24,13 +25,6 @@ export type InviteLookup =
       inviterName: string | null;
     }
   | { status: "expired" | "used" | "revoked" | "unknown" };
-
-/** Who may invite whom: owners any role; coaches up to coach (a coach cannot make an owner). */
-export function mayInvite(inviter: Role, role: Role): boolean {
-  if (inviter === "owner") return true;
-  if (inviter === "coach") return role !== "owner";
-  return false;
-}
 
 /** What the invite e-mail says, read in the transaction that makes the invite. */
 export interface InviteMailFacts {

@@ -2,6 +2,7 @@ import "server-only";
 import { randomBytes } from "node:crypto";
 import { and, asc, count, eq, gt, inArray, isNull } from "drizzle-orm";
 import { AppError } from "@/lib/errors";
+import { mayInvite } from "@/lib/roles";
 import { getDb } from "../index";
 import { invites, memberships, teams, users, type Role } from "../schema";
 import { recordAudit, type Executor } from "./audit";
@@ -103,7 +104,10 @@ async function requireOwnerNow(tx: Executor, teamId: number, actorId: string): P
     throw new AppError("forbidden", "You are no longer an owner of this team, so this change was not made.");
 }
 
-/** An owner changes a member's role. The last owner cannot step down. */
+/**
+ * An owner changes a member's role. The last owner cannot step down. Waiting invites the member
+ * sent that the new role could not send are withdrawn.
+ */
 export async function changeRole({
   teamId,
   actorId,
@@ -132,6 +136,16 @@ export async function changeRole({
         actorId,
         action: "member.role_changed",
         detail: { userId, from: current, to: role },
+      });
+      // Invites they sent that their new role could not send are withdrawn (a demoted coach's all,
+      // a demoted owner's invites to be an owner).
+      await withdrawInvitesSentBy(tx, {
+        teamId,
+        actorId,
+        invitedBy: userId,
+        reason: "sender_demoted",
+        now: new Date(),
+        keep: role,
       });
     }
     const [member] = (await listMembersWith(tx, teamId)).filter((m) => m.userId === userId);
@@ -179,7 +193,10 @@ export async function removeMember({
   });
 }
 
-/** Withdraws the invites a member sent that are still waiting, one log entry each. */
+/**
+ * Withdraws the invites a member sent that are still waiting, one log entry each; with `keep`
+ * (their new role), only those that role may not send.
+ */
 async function withdrawInvitesSentBy(
   tx: Executor,
   {
@@ -188,7 +205,15 @@ async function withdrawInvitesSentBy(
     invitedBy,
     reason,
     now,
-  }: { teamId: number; actorId: string; invitedBy: string; reason: "sender_left" | "sender_removed"; now: Date },
+    keep = null,
+  }: {
+    teamId: number;
+    actorId: string;
+    invitedBy: string;
+    reason: "sender_left" | "sender_removed" | "sender_demoted";
+    now: Date;
+    keep?: Role | null;
+  },
 ): Promise<void> {
   const waiting = and(
     eq(invites.teamId, teamId),
@@ -197,7 +222,13 @@ async function withdrawInvitesSentBy(
     isNull(invites.revokedAt),
     gt(invites.expiresAt, now),
   );
-  const pending = await tx.select({ id: invites.id, email: invites.email }).from(invites).where(waiting).for("update");
+  const pending = (
+    await tx
+      .select({ id: invites.id, email: invites.email, role: invites.role })
+      .from(invites)
+      .where(waiting)
+      .for("update")
+  ).filter((invite) => !mayInvite(keep, invite.role));
   if (pending.length === 0) return;
   await tx
     .update(invites)
