@@ -336,20 +336,16 @@ describe("leaving and removal", () => {
     // An owner's invite to be an owner, and one to be a viewer: stepping down to coach keeps only the second.
     const other = await makeUser("second-owner");
     await getDb().insert(memberships).values({ teamId: team.id, userId: other.id, role: "owner" });
-    const asOwner = await createInvite({
-      teamId: team.id,
-      invitedBy: other.id,
-      inviterRole: "owner",
-      email: `future-owner-${team.slug}@example.test`,
-      role: "owner",
-    });
-    const asViewer = await createInvite({
-      teamId: team.id,
-      invitedBy: other.id,
-      inviterRole: "owner",
-      email: `future-viewer-${team.slug}@example.test`,
-      role: "viewer",
-    });
+    const sentBy = (role: "owner" | "viewer") =>
+      createInvite({
+        teamId: team.id,
+        invitedBy: other.id,
+        inviterRole: "owner",
+        email: `future-${role}-${team.slug}@example.test`,
+        role,
+      });
+    const asOwner = await sentBy("owner");
+    const asViewer = await sentBy("viewer");
     await changeRole({ teamId: team.id, actorId: owner.id, userId: other.id, role: "coach" });
     expect((await lookupInvite({ token: asOwner.token })).status).toBe("revoked");
     expect((await lookupInvite({ token: asViewer.token })).status).toBe("valid");
