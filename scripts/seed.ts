@@ -9,7 +9,9 @@ async function main() {
   try {
     const report = await seedDemo(getDb());
     console.log(
-      `[db] demo seeded: ${report.editions} editions, ${report.characters} characters, ${report.stances} stances, ${report.moves} moves, ${report.edges} edges`,
+      report.published === 0
+        ? `[db] demo already seeded: ${report.editions} published editions, left as they are`
+        : `[db] demo seeded: ${report.published} editions published, ${report.characters} characters, ${report.stances} stances, ${report.moves} moves, ${report.edges} edges`,
     );
   } finally {
     await closeDb();

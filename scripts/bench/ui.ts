@@ -7,7 +7,7 @@ import { writeFileSync } from "node:fs";
 import { chromium, type Page } from "@playwright/test";
 import { openDb } from "../../src/server/db";
 import { migrateDatabase } from "../../src/server/db/migrate";
-import { seedCharacter, seedDemo } from "../../src/server/db/seed";
+import { seedDemo } from "../../src/server/db/seed";
 import { flatten } from "../../src/server/db/seed/dsl";
 import { benchCharacter } from "./ui-graph";
 
@@ -194,8 +194,7 @@ async function main() {
     execFileSync("bash", ["scripts/db.sh", "reset"], { env, stdio: "inherit" });
     await migrateDatabase(DATABASE_URL);
     const { db, close } = openDb(DATABASE_URL);
-    await seedDemo(db);
-    await seedCharacter(db, "vesper-circuit", character);
+    await seedDemo(db, { extraCharacters: [character] });
     await close();
 
     if (!process.argv.includes("--no-build")) {

@@ -45,7 +45,7 @@ export function cleanName(name: string): string {
     .trim();
 }
 
-function nameSchema({
+export function nameSchema({
   missing,
   min,
   tooShort,

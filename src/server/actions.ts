@@ -3,6 +3,7 @@ import { unstable_rethrow } from "next/navigation";
 import type { z } from "zod";
 import { AppError, type ErrorCode } from "@/lib/errors";
 import { requireUser, type SessionUser } from "@/server/auth";
+import { isPublishedEditionWrite, publishedEdition } from "@/server/db/published";
 import { databaseUnavailable, isDatabaseDown } from "@/server/db/unavailable";
 
 /** What every server action answers: a form shows `message`, or `error` and the field errors beside their inputs. */
@@ -27,6 +28,7 @@ async function run(fn: () => Promise<string>): Promise<ActionState> {
     // redirect() and notFound() travel as thrown errors: let Next handle them.
     unstable_rethrow(error);
     if (error instanceof AppError) return { ok: false, code: error.code, error: error.message };
+    if (isPublishedEditionWrite(error)) return { ok: false, code: "conflict", error: publishedEdition().message };
     if (isDatabaseDown(error)) {
       console.error("[action] the database is not answering:", error instanceof Error ? error.message : error);
       const unavailable = databaseUnavailable();

@@ -2,6 +2,7 @@ import "server-only";
 import type { z } from "zod";
 import { env } from "@/env";
 import { AppError, type ErrorIssue } from "@/lib/errors";
+import { isPublishedEditionWrite, publishedEdition } from "@/server/db/published";
 import { databaseUnavailable, isDatabaseDown, RETRY_AFTER_SECONDS } from "@/server/db/unavailable";
 
 export const DEFAULT_MAX_BODY_BYTES = 1_000_000;
@@ -98,7 +99,8 @@ export function crossSiteRefusal(request: Pick<Request, "method" | "headers">): 
 
 /**
  * Wraps a route handler: a change requested from another site is refused
- * (403); an `AppError` becomes its status and JSON body; MariaDB not
+ * (403); an `AppError` becomes its status and JSON body; a write the
+ * database refused because its Edition is published becomes 409; MariaDB not
  * answering becomes 503 with a message that says so; any other error is
  * logged here and reaches the client only as a generic 500.
  */
@@ -112,6 +114,10 @@ export function handle<Args extends unknown[]>(fn: (...args: Args) => Promise<Re
     } catch (error) {
       if (error instanceof AppError)
         return Response.json(error.toResponseBody(), { status: error.status, headers: error.headers });
+      if (isPublishedEditionWrite(error)) {
+        const refused = publishedEdition();
+        return Response.json(refused.toResponseBody(), { status: refused.status });
+      }
       if (isDatabaseDown(error)) {
         console.error("[api] the database is not answering:", error instanceof Error ? error.message : error);
         const unavailable = databaseUnavailable();

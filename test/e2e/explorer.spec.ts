@@ -261,6 +261,8 @@ test("on a phone the Path card sits below the graph", async ({ browser }) => {
 });
 
 test("the Explorer has no serious or critical accessibility violations", async ({ page }) => {
+  // axe reads every node of the graph: on a busy machine that alone can take half a minute.
+  test.setTimeout(60_000);
   const explorer = new ExplorerPage(page);
   await page.goto("/games/vesper-circuit/tarrow/explore/2");
   await explorer.node("2,2,3").click();

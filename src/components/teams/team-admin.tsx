@@ -38,6 +38,16 @@ function describe(e: AuditEntryDto): string {
       return `shared a link${d.title ? ` “${d.title}”` : ""}`;
     case "permalink.revoked":
       return `revoked a shared link${d.title ? ` “${d.title}”` : ""}`;
+    case "game.created":
+      return `created the game “${d.name ?? ""}”`;
+    case "character.created":
+      return `added the character “${d.name ?? ""}”`;
+    case "stance.created":
+      return `added the stance “${d.key ?? ""}”`;
+    case "edition.started":
+      return `started the Edition “${d.name ?? ""}”${d.from ? ` from ${d.from}` : ""}`;
+    case "edition.published":
+      return `published the Edition “${d.name ?? ""}”`;
     default:
       return e.action;
   }

@@ -33,6 +33,11 @@ export const LEVELS = ["high", "mid", "low", "special-mid", "throw", "unblockabl
 export const EDGE_KINDS = ["follow", "cancel", "enter"] as const;
 /** Where a defender can do the move from: it decides which punishers apply after a high or a low. */
 export const POSTURES = ["standing", "crouching", "any"] as const;
+/** A draft Edition is edited; publishing freezes it for good (triggers refuse writes to its rows). */
+export const EDITION_STATUSES = ["draft", "published"] as const;
+
+/** A row's version, for saves based on what the editor last read: a save of an older version is refused. */
+const version = () => int("version").notNull().default(1);
 
 /** A game: its frame rate and the defaults the engine classifies with. */
 export const games = mysqlTable(
@@ -49,6 +54,7 @@ export const games = mysqlTable(
     launchAt: smallint("launch_at", { unsigned: true }).notNull().default(15),
     /** The team that owns the game; null for the public demo game, read-only to everyone. */
     teamId: ref("team_id").references((): AnyMySqlColumn => teams.id, { onDelete: "cascade" }),
+    version: version(),
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex("games_slug_uq").on(t.slug), index("games_team_idx").on(t.teamId)],
@@ -66,6 +72,9 @@ export const editions = mysqlTable(
     name: varchar("name", { length: 120 }).notNull(),
     releasedOn: datetime("released_on", { mode: "date" }).notNull(),
     notes: text("notes"),
+    status: mysqlEnum("status", EDITION_STATUSES).notNull().default("draft"),
+    publishedAt: datetime("published_at", { mode: "date" }),
+    version: version(),
     createdAt: createdAt(),
   },
   (t) => [
@@ -85,6 +94,7 @@ export const characters = mysqlTable(
     slug: varchar("slug", { length: 64 }).notNull(),
     name: varchar("name", { length: 120 }).notNull(),
     summary: text("summary"),
+    version: version(),
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex("characters_game_slug_uq").on(t.gameId, t.slug)],
@@ -105,6 +115,7 @@ export const stances = mysqlTable(
     name: varchar("name", { length: 120 }).notNull(),
     abbreviation: varchar("abbreviation", { length: 12 }).notNull(),
     notes: text("notes"),
+    version: version(),
   },
   (t) => [uniqueIndex("stances_edition_character_key_uq").on(t.editionId, t.characterId, t.key)],
 );
@@ -139,6 +150,7 @@ export const moves = mysqlTable(
     stanceId: ref("stance_id").references(() => stances.id, { onDelete: "set null" }),
     /** Order in the move list. */
     sort: int("sort").notNull().default(0),
+    version: version(),
   },
   (t) => [
     uniqueIndex("moves_edition_character_key_uq").on(t.editionId, t.characterId, t.key),
@@ -178,6 +190,7 @@ export const edges = mysqlTable(
     onHit: json("on_hit").$type<Outcome>(),
     onCounterHit: json("on_counter_hit").$type<Outcome>(),
     autoGuard: json("auto_guard").$type<Level[]>(),
+    version: version(),
   },
   (t) => [
     uniqueIndex("edges_edition_character_key_uq").on(t.editionId, t.characterId, t.key),

@@ -6,10 +6,13 @@ import { POST as createPermalink } from "@/app/api/permalinks/route";
 import { POST as invite } from "@/app/api/teams/[team]/invites/route";
 import { PATCH as changeRole } from "@/app/api/teams/[team]/members/[user]/route";
 import { POST as createTeam } from "@/app/api/teams/route";
+import { POST as createGame } from "@/app/api/teams/[team]/games/route";
+import { POST as createCharacter } from "@/app/api/games/[game]/characters/route";
+import { POST as startEdition } from "@/app/api/games/[game]/editions/route";
 import { setSession } from "./session-mock";
 import { closeDb, getDb } from "@/server/db";
 import { listMembers, listMyTeams } from "@/server/db/queries/teams";
-import { auditLog, invites, permalinks, users } from "@/server/db/schema";
+import { auditLog, characters, editions, games, invites, permalinks, users } from "@/server/db/schema";
 import { VIEW, world, type World } from "./world";
 
 vi.mock("@/server/auth", () => import("./session-mock"));
@@ -30,6 +33,25 @@ interface BodyRoute {
   good: (w: World) => Record<string, unknown>;
   /** The fields that hold text a person typed. */
   text: string[];
+  /** Where a route that keeps free text keeps it: the texts stored, to find SQL- or script-looking text unchanged. */
+  stored?: (w: World) => Promise<string[]>;
+}
+
+/** The names and summaries of the team's games, their characters and Editions, as stored. */
+async function storedOfGames(w: World): Promise<string[]> {
+  const db = getDb();
+  const mine = await db.select().from(games).where(eq(games.teamId, w.team.id));
+  const out = mine.flatMap((g) => [g.name, g.summary ?? ""]);
+  for (const g of mine) {
+    out.push(
+      ...(await db.select().from(characters).where(eq(characters.gameId, g.id))).flatMap((c) => [
+        c.name,
+        c.summary ?? "",
+      ]),
+    );
+    out.push(...(await db.select().from(editions).where(eq(editions.gameId, g.id))).map((e) => e.name));
+  }
+  return out;
 }
 
 // Every route that takes a JSON body. Each is sent broken JSON, an oversized body, wrong types,
@@ -43,6 +65,7 @@ const ROUTES: BodyRoute[] = [
     params: () => ({}),
     good: () => ({ name: "Night Shift" }),
     text: ["name"],
+    stored: async (w) => (await listMyTeams({ userId: w.people.owner.id })).map((t) => t.name),
   },
   {
     name: "PATCH /api/teams/[team]/members/[user]",
@@ -77,6 +100,30 @@ const ROUTES: BodyRoute[] = [
       visibility: "link",
     }),
     text: ["edition", "visibility"],
+  },
+  {
+    name: "POST /api/teams/[team]/games",
+    handler: createGame as Handler,
+    params: (w) => ({ team: w.team.slug }),
+    good: () => ({ name: "Night Circuit", fps: 60, fastest: 10, launchAt: 15, edition: "1.0" }),
+    text: ["name", "edition"],
+    stored: storedOfGames,
+  },
+  {
+    name: "POST /api/games/[game]/characters",
+    handler: createCharacter as Handler,
+    params: (w) => ({ game: w.teamGame.slug }),
+    good: () => ({ name: "Wren Falloway", summary: "Keeps you out." }),
+    text: ["name", "summary"],
+    stored: storedOfGames,
+  },
+  {
+    name: "POST /api/games/[game]/editions",
+    handler: startEdition as Handler,
+    params: (w) => ({ game: w.teamGame.slug }),
+    good: () => ({ name: "0.2", releasedOn: "2026-12-01" }),
+    text: ["name", "releasedOn"],
+    stored: storedOfGames,
   },
 ];
 
@@ -142,9 +189,8 @@ describe.each(ROUTES)("$name refuses bad input with 400 and a message, and write
         const res = await send(route, fresh, JSON.stringify({ ...route.good(fresh), [field]: nasty }));
         if (res.status === 201 || res.status === 200) {
           // Only a free-text field may take it, and then it comes back exactly as typed.
-          expect(route.name).toBe("POST /api/teams");
-          const mine = await listMyTeams({ userId: fresh.people.owner.id });
-          expect(mine.map((t) => t.name)).toContain(nasty);
+          expect(route.stored, `${route.name} took ${field}`).toBeDefined();
+          expect(await route.stored!(fresh)).toContain(nasty);
         } else {
           // Refused by the schema (400), or read as plain text and found to match nothing (404).
           await refused(res, [400, 404]);

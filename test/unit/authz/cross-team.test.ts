@@ -2,6 +2,7 @@ import { randomBytes, randomUUID } from "node:crypto";
 import { beforeEach, describe, expect, test, vi } from "vitest";
 import type { SessionUser } from "@/server/auth";
 import { createInvite } from "@/server/db/queries/invites";
+import { createCharacter, createGame, publishEdition } from "@/server/db/queries/authoring";
 import { createPermalink } from "@/server/db/queries/permalinks";
 import { createTeam } from "@/server/db/queries/teams";
 import { getDb } from "@/server/db";
@@ -55,7 +56,26 @@ async function crossWorld() {
     email: w.people.outsider.email,
     role: "player",
   });
-  return { ...w, b: { team: b, player: bPlayer, invite: bInvite, link: bLink, tokenForCaller: forCaller.token } };
+  // Team B's own game, its first Edition still a draft, with one character; and one whose only
+  // Edition is published, so the next one can be started.
+  const asB = { teamId: b.id, actorId: w.people.outsider.id };
+  const bGame = await createGame({ ...asB, input: { name: `B Game ${b.slug.slice(-6)}` } });
+  await createCharacter({ ...asB, gameId: bGame.game.id, input: { name: "B Fighter" } });
+  const bDone = await createGame({ ...asB, input: { name: `B Done ${b.slug.slice(-6)}` } });
+  await publishEdition({ ...asB, gameId: bDone.game.id, editionId: bDone.edition.id });
+  return {
+    ...w,
+    b: {
+      publishedGame: bDone.game,
+      team: b,
+      player: bPlayer,
+      invite: bInvite,
+      link: bLink,
+      tokenForCaller: forCaller.token,
+      game: bGame.game,
+      edition: bGame.edition.slug,
+    },
+  };
 }
 type CrossWorld = Awaited<ReturnType<typeof crossWorld>>;
 
@@ -87,6 +107,11 @@ const noTeamSlug = (w: CrossWorld) => `${w.team.slug.slice(0, -6)}${randomBytes(
 const noToken = () => randomBytes(32).toString("base64url");
 
 const TEAM: IdField = { in: "path", name: "team", teamA: (w) => w.team.slug, none: noTeamSlug };
+const noSlug = () => `none-${randomBytes(4).toString("hex")}`;
+const GAME: IdField = { in: "path", name: "game", teamA: (w) => w.teamGame.slug, none: noSlug };
+// Team A's Edition and character, named by their slugs, which B's game does not have.
+const EDITION: IdField = { in: "path", name: "edition", teamA: () => "0-1", none: () => "9-9" };
+const CHARACTER: IdField = { in: "path", name: "character", teamA: () => "sparring-dummy", none: noSlug };
 const teamRoute = (own: (w: CrossWorld) => Call = (w) => ({ params: { team: w.b.team.slug } })): RouteRow => ({
   own,
   ids: [TEAM],
@@ -130,6 +155,29 @@ const ROUTES: Record<string, Row> = {
   "DELETE /api/teams/[team]/members/[user]": {
     own: (w) => ({ params: { team: w.b.team.slug, user: w.b.player.id } }),
     ids: [TEAM, { in: "path", name: "user", teamA: (w) => w.people.extra.id, none: () => randomUUID() }],
+  },
+  "POST /api/teams/[team]/games": teamRoute((w) => ({
+    params: { team: w.b.team.slug },
+    body: { name: "Cross Rumble" },
+  })),
+  "POST /api/games/[game]/characters": {
+    own: (w) => ({ params: { game: w.b.game.slug }, body: { name: "New Fighter" } }),
+    ids: [GAME],
+  },
+  "POST /api/games/[game]/editions": {
+    own: (w) => ({ params: { game: w.b.publishedGame.slug }, body: { name: "2.0" } }),
+    ids: [GAME],
+  },
+  "POST /api/games/[game]/editions/[edition]/publish": {
+    own: (w) => ({ params: { game: w.b.game.slug, edition: w.b.edition } }),
+    ids: [GAME, EDITION],
+  },
+  "POST /api/games/[game]/editions/[edition]/characters/[character]/stances": {
+    own: (w) => ({
+      params: { game: w.b.game.slug, edition: w.b.edition, character: "b-fighter" },
+      body: { key: "low", name: "Low Guard", abbreviation: "LG" },
+    }),
+    ids: [GAME, EDITION, CHARACTER],
   },
   "DELETE /api/permalinks/[slug]": {
     own: (w) => ({ params: { slug: w.b.link.slug } }),

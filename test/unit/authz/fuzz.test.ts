@@ -81,6 +81,9 @@ const REFS = {
   ownerEmail: () => w.people.owner.email,
   permalinkSlug: () => w.shared.slug,
   teamCharacterId: () => w.teamCharacterId,
+  teamGameSlug: () => w.teamGame.slug,
+  teamEdition: () => "0-1",
+  teamCharacterSlug: () => "sparring-dummy",
   demoCharacterId: () => w.demoCharacterId,
   edition: () => "1-1",
   role: () => "viewer",
@@ -123,6 +126,9 @@ const PARAM_REFS: Record<string, Ref["ref"][]> = {
   invite: ["inviteId"],
   slug: ["permalinkSlug"],
   id: ["teamCharacterId", "demoCharacterId"],
+  game: ["teamGameSlug"],
+  edition: ["teamEdition", "edition"],
+  character: ["teamCharacterSlug"],
 };
 const param = (name: string): fc.Arbitrary<Text> =>
   PARAM_REFS[name]
@@ -176,6 +182,15 @@ const ROUTES: Record<string, FuzzRow | { overHttp: string }> = {
   },
   "DELETE /api/permalinks/[slug]": {},
   "POST /api/invites/accept": { good: () => ({ token: w.pending.token }) },
+  "POST /api/teams/[team]/games": {
+    good: () => ({ name: "Fuzz Rumble", fps: 60, fastest: 10, launchAt: 15, edition: "1.0", summary: "x" }),
+  },
+  "POST /api/games/[game]/characters": { good: () => ({ name: "Fuzz Fighter", summary: "x" }) },
+  "POST /api/games/[game]/editions": { good: () => ({ name: "0.2", releasedOn: "2026-12-01", notes: "x" }) },
+  "POST /api/games/[game]/editions/[edition]/publish": {},
+  "POST /api/games/[game]/editions/[edition]/characters/[character]/stances": {
+    good: () => ({ key: "guard", name: "Low Guard", abbreviation: "LG", notes: "x" }),
+  },
 };
 
 const sometimes = <T>(arb: fc.Arbitrary<T>) =>

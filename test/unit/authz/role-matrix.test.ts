@@ -5,7 +5,7 @@ import { routeHandlers, routeUrl, serverActions, type Action } from "./inventory
 import { nextAddress } from "./headers-mock";
 import { setSession } from "./session-mock";
 import { closeDb } from "@/server/db";
-import { VIEW, world, type World } from "./world";
+import { draftOf, VIEW, world, type World } from "./world";
 import { ONE_MOVE_PATHS_REQUEST } from "../../fixtures/paths-request";
 
 // Who is signed in for the call under test. Route handlers read the session only through
@@ -28,9 +28,11 @@ const userOf = (w: World, actor: Actor): SessionUser | null =>
 interface Case {
   /** What the call does, for the failure message. */
   what: string;
-  call: (w: World) => { params?: Record<string, string>; body?: unknown; query?: string };
+  call: (w: World) => Call | Promise<Call>;
   expect: Expected;
 }
+
+type Call = { params?: Record<string, string>; body?: unknown; query?: string };
 
 const all = (status: number): Expected => ({
   anonymous: status,
@@ -131,6 +133,54 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
   ],
   "GET /api/teams/[team]/audit": [
     { what: "read the team log", call: (w) => ({ params: { team: w.team.slug } }), expect: atLeastCoach(200) },
+  ],
+  "POST /api/teams/[team]/games": [
+    {
+      what: "make a game for the team",
+      call: (w) => ({ params: { team: w.team.slug }, body: { name: "Matrix Rumble" } }),
+      expect: atLeastCoach(201),
+    },
+  ],
+  "POST /api/games/[game]/characters": [
+    {
+      what: "add a character to the team's game",
+      call: (w) => ({ params: { game: w.teamGame.slug }, body: { name: "Wren Falloway" } }),
+      expect: atLeastCoach(201),
+    },
+    {
+      what: "add a character to the demo game (read-only)",
+      call: () => ({ params: { game: "vesper-circuit" }, body: { name: "Wren Falloway" } }),
+      expect: { ...all(403), anonymous: 401 },
+    },
+  ],
+  "POST /api/games/[game]/editions": [
+    {
+      what: "start the next Edition",
+      call: (w) => ({ params: { game: w.teamGame.slug }, body: { name: "0.2" } }),
+      expect: atLeastCoach(201),
+    },
+    {
+      what: "start an Edition of the demo game (read-only)",
+      call: () => ({ params: { game: "vesper-circuit" }, body: { name: "9.9" } }),
+      expect: { ...all(403), anonymous: 401 },
+    },
+  ],
+  "POST /api/games/[game]/editions/[edition]/publish": [
+    {
+      what: "publish a draft",
+      call: async (w) => ({ params: { game: w.teamGame.slug, edition: await draftOf(w) } }),
+      expect: atLeastCoach(200),
+    },
+  ],
+  "POST /api/games/[game]/editions/[edition]/characters/[character]/stances": [
+    {
+      what: "add a stance in a draft",
+      call: async (w) => ({
+        params: { game: w.teamGame.slug, edition: await draftOf(w), character: "sparring-dummy" },
+        body: { key: "guard", name: "Low Guard", abbreviation: "LG" },
+      }),
+      expect: atLeastCoach(201),
+    },
   ],
   "POST /api/permalinks": [
     {
@@ -248,7 +298,7 @@ describe("role matrix", () => {
     for (const actor of ACTORS) {
       // A fresh world per caller: a change one caller makes must not decide the next one's answer.
       const w = await world();
-      const { params = {}, body, query = "" } = c.call(w);
+      const { params = {}, body, query = "" } = await c.call(w);
       setSession(userOf(w, actor));
       // Each call from its own address, like the actions above: no route's per-address limit decides a row.
       const from = { "x-forwarded-for": nextAddress() };

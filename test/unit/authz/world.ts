@@ -1,5 +1,6 @@
 import type { Role } from "@/lib/roles";
 import { getDb } from "@/server/db";
+import { startEdition } from "@/server/db/queries/authoring";
 import { getCharacterBySlug, getGameBySlug } from "@/server/db/queries/games";
 import { createInvite } from "@/server/db/queries/invites";
 import { createPermalink } from "@/server/db/queries/permalinks";
@@ -42,14 +43,22 @@ export async function world() {
     email: `invitee-${people.owner.id.slice(0, 8)}@example.test`,
     role: "player",
   });
-  // A game of the team's own, with one character and one Edition.
+  // A game of the team's own, with one character and one published Edition.
+  const teamGameSlug = `team-game-${people.owner.id.slice(0, 8)}`;
   const [game] = await getDb()
     .insert(games)
-    .values({ slug: `team-game-${people.owner.id.slice(0, 8)}`, name: "Team Game", teamId: team.id })
+    .values({ slug: teamGameSlug, name: "Team Game", teamId: team.id })
     .$returningId();
   await getDb()
     .insert(editions)
-    .values({ gameId: game!.id, slug: "0-1", name: "0.1", releasedOn: new Date("2026-10-01") });
+    .values({
+      gameId: game!.id,
+      slug: "0-1",
+      name: "0.1",
+      releasedOn: new Date("2026-10-01"),
+      status: "published",
+      publishedAt: new Date("2026-10-01"),
+    });
   const [character] = await getDb()
     .insert(characters)
     .values({ gameId: game!.id, slug: "sparring-dummy", name: "Sparring Dummy" })
@@ -66,7 +75,27 @@ export async function world() {
     view: VIEW,
     visibility: "team",
   });
-  return { people, team, other, pending, teamCharacterId: character!.id, demoCharacterId: tarrow.id, shared };
+  return {
+    people,
+    team,
+    other,
+    pending,
+    teamGame: { id: game!.id, slug: teamGameSlug },
+    teamCharacterId: character!.id,
+    demoCharacterId: tarrow.id,
+    shared,
+  };
 }
 
 export type World = Awaited<ReturnType<typeof world>>;
+
+/** A draft Edition of the team's game (the next one, started by its owner), for the changes only a draft takes. */
+export async function draftOf(w: World): Promise<string> {
+  const draft = await startEdition({
+    teamId: w.team.id,
+    gameId: w.teamGame.id,
+    actorId: w.people.owner.id,
+    input: { name: `Draft ${Math.random().toString(36).slice(2, 8)}` },
+  });
+  return draft.slug;
+}

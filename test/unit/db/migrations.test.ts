@@ -4,6 +4,7 @@ import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { openDb, type Database } from "@/server/db";
 import { migrateDatabase } from "@/server/db/migrate";
 import * as schema from "@/server/db/schema";
+import { isPublishedEditionWrite } from "@/server/db/published";
 import { seedDemo } from "@/server/db/seed";
 import { createThrowawayDatabase } from "./throwaway";
 
@@ -22,6 +23,15 @@ afterAll(async () => {
   await close?.();
   await throwaway?.drop();
 });
+
+/** A draft Edition of the demo game (the seeded ones are published), for writes of a test's own. */
+async function draftEdition() {
+  const [game] = await db.select({ id: schema.games.id }).from(schema.games).limit(1);
+  const slug = `draft-${Math.random().toString(36).slice(2, 8)}`;
+  await db.insert(schema.editions).values({ gameId: game!.id, slug, name: "Draft", releasedOn: new Date() });
+  const [edition] = await db.select().from(schema.editions).where(eq(schema.editions.slug, slug));
+  return edition!;
+}
 
 async function counts() {
   const out: Record<string, number> = {};
@@ -64,8 +74,16 @@ describe("migrations and seed on an empty database", () => {
     expect(first.moves).toBeGreaterThanOrEqual(3 * 25 * 2);
   });
 
+  test("the demo's Editions are published, so the database refuses a change to them", async () => {
+    const published = await db.select().from(schema.editions);
+    expect(published.map((e) => e.status)).toEqual(["published", "published"]);
+    await expect(
+      db.update(schema.moves).set({ damage: 1 }).where(eq(schema.moves.editionId, published[0]!.id)),
+    ).rejects.toSatisfy(isPublishedEditionWrite);
+  });
+
   test("JSON columns round-trip numbers, states with frames, and lists", async () => {
-    const [edition] = await db.select().from(schema.editions).limit(1);
+    const edition = await draftEdition();
     const [character] = await db.select().from(schema.characters).limit(1);
     if (!edition || !character) throw new Error("seed wrote no edition or character");
     const outcome = { state: "knockdown" as const, frames: -3 };
@@ -91,7 +109,7 @@ describe("migrations and seed on an empty database", () => {
   });
 
   test("the database refuses an edge whose ends do not fit its kind", async () => {
-    const [edition] = await db.select().from(schema.editions).limit(1);
+    const edition = await draftEdition();
     const [stance] = await db.select().from(schema.stances).limit(1);
     const [move] = await db.select().from(schema.moves).limit(1);
     if (!edition || !stance || !move) throw new Error("seed wrote no rows");

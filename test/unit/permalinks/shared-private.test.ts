@@ -1,3 +1,4 @@
+import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { closeDb, getDb } from "@/server/db";
 import { createPermalink, loadSharedView } from "@/server/db/queries/permalinks";
@@ -34,6 +35,8 @@ beforeAll(async () => {
     ids.push(await seedCharacter(db, gameSlug, { ...from, slug: name.toLowerCase().replace(" ", "-"), name }));
   }
   [ctx.pinned, ctx.opponent] = ids as [number, number];
+  // Links are made on published Editions.
+  await db.update(editions).set({ status: "published" }).where(eq(editions.gameId, game!.id));
 });
 // Removing the team removes its game, and with it the characters and Editions.
 afterAll(async () => {

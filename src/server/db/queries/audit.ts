@@ -16,7 +16,12 @@ export type AuditAction =
   | "member.removed"
   | "member.left"
   | "permalink.created"
-  | "permalink.revoked";
+  | "permalink.revoked"
+  | "game.created"
+  | "character.created"
+  | "stance.created"
+  | "edition.started"
+  | "edition.published";
 
 /** Records who did what in a team. Call it with the transaction that makes the change. */
 export async function recordAudit(

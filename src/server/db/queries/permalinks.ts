@@ -137,11 +137,14 @@ export async function createPermalink({
     throw new AppError("not_found", `There is no character ${characterId}.`);
   }
   const [edition] = await db
-    .select({ id: editions.id, slug: editions.slug, name: editions.name })
+    .select({ id: editions.id, slug: editions.slug, name: editions.name, status: editions.status })
     .from(editions)
     .where(and(eq(editions.gameId, found.gameId), eq(editions.slug, editionSlug)))
     .limit(1);
   if (!edition) throw new AppError("not_found", `${found.gameName} has no Edition "${editionSlug}".`);
+  // A link is pinned to data that never changes: a draft is still being edited.
+  if (edition.status !== "published")
+    throw new AppError("conflict", `${edition.name} is a draft: publish it before sharing a link to it.`);
 
   const { graph } = await getCharacterGraph({ characterId, editionId: edition.id });
   const traced = tracePath(graph, checked);

@@ -1,6 +1,7 @@
 import "server-only";
 import { randomBytes } from "node:crypto";
 import { and, asc, count, eq, gt, inArray, isNull } from "drizzle-orm";
+import { slugify } from "@/lib/authoring";
 import { AppError } from "@/lib/errors";
 import { mayInvite } from "@/lib/roles";
 import { getDb } from "../index";
@@ -10,15 +11,7 @@ import type { MemberDto, MyTeamDto, TeamDto } from "@/lib/dto";
 
 /** "Night Shift Crew" → "night-shift-crew-4f1a": readable, and unique without asking the user to pick. */
 export function teamSlug(name: string): string {
-  const base =
-    name
-      .normalize("NFKD")
-      .replace(/[\u0300-\u036f]/g, "")
-      .toLowerCase()
-      .replace(/[^a-z0-9]+/g, "-")
-      .replace(/^-+|-+$/g, "")
-      .slice(0, 48) || "team";
-  return `${base}-${randomBytes(3).toString("hex")}`;
+  return `${slugify(name, "team")}-${randomBytes(3).toString("hex")}`;
 }
 
 /** Creates a team with its creator as the first owner, in one transaction. */

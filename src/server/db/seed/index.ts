@@ -20,6 +20,8 @@ function updateAllBut<T extends MySqlTable>(table: T, keep: string[]): Record<st
 export interface SeedReport {
   game: number;
   editions: number;
+  /** Editions written and published by this run; the others were published before and stay as they are. */
+  published: number;
   characters: number;
   stances: number;
   moves: number;
@@ -27,12 +29,16 @@ export interface SeedReport {
 }
 
 /**
- * Writes the demo scenario. Idempotent: rows are upserted on their natural
- * keys (slugs and per-edition move keys), and rows of the demo game that the
- * scenario no longer has are removed, so a second run changes nothing and
- * ids stay stable for anything that points at them.
+ * Writes the demo scenario. Idempotent: the game and its characters are upserted on their slugs;
+ * each Edition is written as a draft and then published, and a published Edition is frozen (the
+ * database refuses writes to it), so a second run leaves it, and every id, as it is.
+ * `extraCharacters` are written into each Edition beside the demo cast before it is published
+ * (the UI bench adds a generated character this way).
  */
-export async function seedDemo(db: Database): Promise<SeedReport> {
+export async function seedDemo(
+  db: Database,
+  { extraCharacters = [] }: { extraCharacters?: DemoCharacter[] } = {},
+): Promise<SeedReport> {
   return db.transaction(async (tx) => {
     await tx
       .insert(games)
@@ -41,22 +47,23 @@ export async function seedDemo(db: Database): Promise<SeedReport> {
     const [game] = await tx.select({ id: games.id }).from(games).where(eq(games.slug, DEMO_GAME.slug));
     if (!game) throw new Error("demo game was not written");
 
+    const cast = [...DEMO_CHARACTERS, ...extraCharacters];
     await tx
       .insert(characters)
-      .values(DEMO_CHARACTERS.map((c) => ({ gameId: game.id, slug: c.slug, name: c.name, summary: c.summary })))
+      .values(cast.map((c) => ({ gameId: game.id, slug: c.slug, name: c.name, summary: c.summary })))
       .onDuplicateKeyUpdate({ set: updateAllBut(characters, ["id", "gameId", "slug", "createdAt"]) });
     const characterRows = await tx.select().from(characters).where(eq(characters.gameId, game.id));
     const characterId = new Map(characterRows.map((c) => [c.slug, c.id]));
 
-    await tx
-      .insert(editions)
-      .values(EDITIONS.map((e) => ({ gameId: game.id, ...e })))
-      .onDuplicateKeyUpdate({ set: updateAllBut(editions, ["id", "gameId", "slug", "createdAt"]) });
+    const written = await tx.select({ slug: editions.slug }).from(editions).where(eq(editions.gameId, game.id));
+    const missing = EDITIONS.filter((e) => !written.some((w) => w.slug === e.slug));
+    if (missing.length > 0) await tx.insert(editions).values(missing.map((e) => ({ gameId: game.id, ...e })));
     const editionRows = await tx.select().from(editions).where(eq(editions.gameId, game.id));
 
     const report: SeedReport = {
       game: 1,
       editions: editionRows.length,
+      published: 0,
       characters: characterRows.length,
       stances: 0,
       moves: 0,
@@ -64,8 +71,8 @@ export async function seedDemo(db: Database): Promise<SeedReport> {
     };
     for (const edition of editionRows) {
       const spec = EDITIONS.find((e) => e.slug === edition.slug);
-      if (!spec) continue;
-      for (const character of DEMO_CHARACTERS) {
+      if (!spec || edition.status === "published") continue;
+      for (const character of cast) {
         const cid = characterId.get(character.slug);
         if (cid === undefined) throw new Error(`character ${character.slug} was not written`);
         const counts = await writeCharacterEdition(tx, edition.id, cid, character.data(spec.slug));
@@ -73,6 +80,11 @@ export async function seedDemo(db: Database): Promise<SeedReport> {
         report.moves += counts.moves;
         report.edges += counts.edges;
       }
+      await tx
+        .update(editions)
+        .set({ status: "published", publishedAt: new Date() })
+        .where(eq(editions.id, edition.id));
+      report.published += 1;
     }
     return report;
   });
@@ -190,8 +202,8 @@ async function writeCharacterEdition(tx: Tx, editionId: number, characterId: num
 }
 
 /**
- * Writes one more character into an existing game, in every Edition it has
- * (the UI bench adds a generated one to the demo game this way).
+ * Writes one more character into an existing game, in every draft Edition it has (a published
+ * Edition is frozen; the demo's extra characters go through seedDemo's `extraCharacters`).
  */
 export async function seedCharacter(db: Database, gameSlug: string, character: DemoCharacter): Promise<number> {
   return db.transaction(async (tx) => {
@@ -206,7 +218,11 @@ export async function seedCharacter(db: Database, gameSlug: string, character: D
       .from(characters)
       .where(and(eq(characters.gameId, game.id), eq(characters.slug, character.slug)));
     if (!row) throw new Error(`character ${character.slug} was not written`);
-    for (const edition of await tx.select().from(editions).where(eq(editions.gameId, game.id))) {
+    const drafts = await tx
+      .select()
+      .from(editions)
+      .where(and(eq(editions.gameId, game.id), eq(editions.status, "draft")));
+    for (const edition of drafts) {
       await writeCharacterEdition(tx, edition.id, row.id, character.data(edition.slug as EditionSlug));
     }
     return row.id;
