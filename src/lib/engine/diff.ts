@@ -55,45 +55,62 @@ class Side {
 }
 
 /**
- * Where the graphs differ, kept to tell which paths must be compared one by one. A path with
- * no changed node or edge on it is the same on both sides, and so is every path extending it
- * until one takes a changed edge or reaches a changed node; when the bounds let no extension
- * get that far, every extension is the same on both sides too.
+ * The fields of a node that the steps after it read: whether it is a move, and its startup
+ * (the gap and combo of an enter after a cancel, which every longer path carries). Its other
+ * fields only count for the paths that end on it.
+ */
+const CARRIED_FIELDS: ReadonlySet<string> = new Set(["kind", "startup"]);
+
+/**
+ * Where the graphs differ, kept to tell which paths must be compared one by one. A path that
+ * takes no changed edge and no node changed in a carried field is extended the same way on
+ * both sides until an extension takes a changed edge or enters a changed node; when the
+ * bounds let no extension get that far, every extension is the same on both sides.
  */
 class Changes {
-  private readonly nodes: ReadonlySet<string>;
+  /** Nodes changed in a field the steps after them read. */
+  private readonly carried: ReadonlySet<string>;
   private readonly edges: ReadonlySet<string>;
-  /** Per node, the fewest moves a path from it enters before it meets a change, in either graph (none: never). */
+  /** Per node, the fewest moves a path going on from it enters up to a change, in either graph (none: never). */
   private readonly movesToChange: ReadonlyMap<string, number>;
   private readonly maxDepth: number;
 
   constructor(before: MoveGraph, after: MoveGraph, nodes: ItemsDiff, edges: ItemsDiff, maxDepth: number) {
     this.maxDepth = maxDepth;
-    this.nodes = new Set([...nodes.added, ...nodes.removed, ...nodes.changed.map((c) => c.id)]);
+    this.carried = new Set(
+      nodes.changed.filter((c) => c.changes.some((f) => CARRIED_FIELDS.has(f.field))).map((c) => c.id),
+    );
     this.edges = new Set([...edges.added, ...edges.removed, ...edges.changed.map((c) => c.id)]);
-    const fewest = movesToChange(before, this.nodes, this.edges);
-    for (const [id, moves] of movesToChange(after, this.nodes, this.edges)) {
+    const changedNodes = new Set([...nodes.added, ...nodes.removed, ...nodes.changed.map((c) => c.id)]);
+    const fewest = movesToChange(before, changedNodes, this.edges);
+    for (const [id, moves] of movesToChange(after, changedNodes, this.edges)) {
       fewest.set(id, Math.min(moves, fewest.get(id) ?? moves));
     }
     this.movesToChange = fewest;
   }
 
-  /** Whether every path that extends the walk's current one, found on both sides, is the same on both. */
-  sameBelow(path: PathWalker): boolean {
-    const last = path.length - 1;
-    const moves = this.movesToChange.get(path.nodeIdAt(last));
-    if (moves !== undefined && path.hitCount + moves <= this.maxDepth) return false;
-    for (let i = 0; i <= last; i++) if (this.nodes.has(path.nodeIdAt(i))) return false;
-    for (let i = 0; i < last; i++) if (this.edges.has(path.edgeIdAt(i))) return false;
-    return true;
+  /** Whether the step into position i of the walk's current path takes no changed edge and enters no node changed in a carried field. */
+  cleanStep(path: PathWalker, i: number): boolean {
+    return !this.carried.has(path.nodeIdAt(i)) && (i === 0 || !this.edges.has(path.edgeIdAt(i - 1)));
+  }
+
+  /**
+   * Whether every path that extends the walk's current one, found on both sides, is the same
+   * on both, given whether every step of the current path is clean (`cleanStep`).
+   */
+  sameBelow(path: PathWalker, clean: boolean): boolean {
+    if (!clean) return false;
+    const moves = this.movesToChange.get(path.nodeIdAt(path.length - 1));
+    return moves === undefined || path.hitCount + moves > this.maxDepth;
   }
 }
 
 /**
- * For each node of `graph` from which a path can meet one of the changed nodes or take one
- * of the changed edges, the fewest moves it enters on the way (entering a stance costs
- * none). Dial's shortest paths backwards from the changes: bucket k holds the nodes offered
- * at k moves, read in order, and a node keeps the first bucket that reaches it.
+ * For each node of `graph` from which a path can go on to take one of the changed edges or
+ * enter one of the changed nodes, the fewest moves it enters on the way, that last step
+ * included (entering a stance costs none). Dial's shortest paths backwards from those last
+ * steps: bucket k holds the nodes offered at k moves, read in order, and a node keeps the
+ * first bucket that reaches it.
  */
 function movesToChange(graph: MoveGraph, nodes: ReadonlySet<string>, edges: ReadonlySet<string>): Map<string, number> {
   const moveIds = new Set(graph.nodes.filter((n) => n.kind === "move").map((n) => n.id));
@@ -106,8 +123,7 @@ function movesToChange(graph: MoveGraph, nodes: ReadonlySet<string>, edges: Read
   }
   const buckets: string[][] = [];
   const offer = (id: string, moves: number) => (buckets[moves] ??= []).push(id);
-  for (const id of nodes) offer(id, 0);
-  for (const edge of graph.edges) if (edges.has(edge.id)) offer(edge.from, cost(edge));
+  for (const edge of graph.edges) if (edges.has(edge.id) || nodes.has(edge.to)) offer(edge.from, cost(edge));
   const fewest = new Map<string, number>();
   for (let moves = 0; moves < buckets.length; moves++) {
     // A stance edge costs nothing, so the bucket being read may still grow.
@@ -135,8 +151,18 @@ function diffPathsFrom(
   changes: Changes,
 ): PathChange[] {
   const out: PathChange[] = [];
+  // clean[i]: every step of the after walk's current path up to position i is clean. The
+  // walk's next path shares all positions but its last with a path it stood on before, so
+  // each step of the walk fills in one slot.
+  const clean: boolean[] = [];
+  const advanceAfter = (): boolean => {
+    if (after === null || !after.advance()) return false;
+    const i = after.length - 1;
+    clean[i] = (i === 0 || clean[i - 1] === true) && changes.cleanStep(after, i);
+    return true;
+  };
   let a = before?.advance() === true;
-  let b = after?.advance() === true;
+  let b = advanceAfter();
   while (a || b) {
     const order = !a ? 1 : !b ? -1 : comparePaths(before!, after!);
     if (order < 0) {
@@ -144,16 +170,16 @@ function diffPathsFrom(
       a = before!.advance();
     } else if (order > 0) {
       out.push(pathChange(root, after!, "added"));
-      b = after!.advance();
+      b = advanceAfter();
     } else {
       const changed = pathFieldChanges(before!, after!);
       if (changed !== null) out.push(pathChange(root, after!, "changed", changed));
-      if (changes.sameBelow(after!)) {
+      if (changes.sameBelow(after!, clean[after!.length - 1] === true)) {
         before!.skipExtensions();
         after!.skipExtensions();
       }
       a = before!.advance();
-      b = after!.advance();
+      b = advanceAfter();
     }
   }
   return out;
@@ -256,5 +282,6 @@ function compareIdLists(a: readonly string[], b: readonly string[]): number {
 
 /** By input; paths with the same input by their edge ids, so the order never depends on a walk. */
 function byInput(a: PathChange, b: PathChange): number {
-  return byCodeUnits(a.input, b.input) || compareIdLists(a.edges, b.edges);
+  if (a.input !== b.input) return a.input < b.input ? -1 : 1;
+  return compareIdLists(a.edges, b.edges);
 }
