@@ -89,7 +89,10 @@ class Changes {
     this.movesToChange = fewest;
   }
 
-  /** Whether the step into position i of the walk's current path takes no changed edge and enters no node changed in a carried field. */
+  /**
+   * Whether the step into position i of the walk's current path is clean: it takes no changed
+   * edge and enters no node changed in a carried field.
+   */
   cleanStep(path: PathWalker, i: number): boolean {
     return !this.carried.has(path.nodeIdAt(i)) && (i === 0 || !this.edges.has(path.edgeIdAt(i - 1)));
   }
