@@ -21,12 +21,16 @@
  *   engine       explorePaths, materialising
  *   peer         graphology + graphology-simple-path allSimplePaths (one call, through an
  *                added sink node: see peer.ts), then the same annotations per path
+ *
+ * What changed: diffGraphs between two Editions of a generated ~300-move character, the
+ * second a balance patch of the first (diff.ts, patch.ts); printed as diff_300_ms.
  */
 import { execFileSync } from "node:child_process";
 import { fileURLToPath } from "node:url";
 import { compileGraph, type CompiledGraph, type ExploreOptions, type PathResult } from "../../src/lib/engine";
 import { createPathWalker, explorePaths, iteratePaths, type PathWalker } from "../../src/lib/engine/walk";
 import { bareWalk } from "./bare-walk";
+import { benchDiff, type DiffBench } from "./diff";
 import { generateGraph } from "./generate";
 import { peerPaths } from "./peer";
 
@@ -232,25 +236,17 @@ function findGraph(target: number, acyclic: boolean): { stances: number; seed: n
 
 function main(): void {
   const self = fileURLToPath(import.meta.url);
-  const child = (kind: Case, stances: number, seed: number): ChildResult => {
+  /** This script in a child process with the given arguments: the JSON of its last line. */
+  const inChild = <T>(childArgs: string[]): T => {
     const out = execFileSync(
       process.execPath,
-      [
-        "--expose-gc",
-        "--max-old-space-size=8192",
-        "--max-semi-space-size=64",
-        "--import",
-        "tsx",
-        self,
-        "--child",
-        kind,
-        String(stances),
-        String(seed),
-      ],
+      ["--expose-gc", "--max-old-space-size=8192", "--max-semi-space-size=64", "--import", "tsx", self, ...childArgs],
       { encoding: "utf8", maxBuffer: 1 << 24 },
     );
-    return JSON.parse(out.trim().split("\n").pop()!) as ChildResult;
+    return JSON.parse(out.trim().split("\n").pop()!) as T;
   };
+  const child = (kind: Case, stances: number, seed: number) =>
+    inChild<ChildResult>(["--child", kind, String(stances), String(seed)]);
 
   const search = process.argv.includes("--search");
   const sizes = [1e2, 1e4, 1e6];
@@ -313,6 +309,13 @@ function main(): void {
     .join(", ");
   console.log(`  stream heap peak: ${streamMem}`);
 
+  const diff = inChild<DiffBench>(["--child-diff"]);
+  const diffMs = median(diff.times);
+  console.log(
+    `\nwhat changed (diffGraphs), generated ${diff.moves}-move character and a patch of it: ` +
+      `${diff.pathsBefore} and ${diff.pathsAfter} paths, ${diff.listed} listed; median ${diffMs.toFixed(1)} ms over ${diff.times.length} runs`,
+  );
+
   const big = 1e6;
   const stream = pick("cyclic", big, "stream");
   console.log(
@@ -323,6 +326,7 @@ function main(): void {
         (pick("acyclic", big, "peer").ms / pick("acyclic", big, "engine").ms).toFixed(3),
       ),
       peak_mb_stream_1e6: Number(stream.peakMb.toFixed(2)),
+      diff_300_ms: Number(diffMs.toFixed(1)),
     }),
   );
 }
@@ -330,6 +334,8 @@ function main(): void {
 const args = process.argv.slice(2);
 if (args[0] === "--child") {
   console.log(JSON.stringify(runChild(args[1] as Case, Number(args[2]), Number(args[3]))));
+} else if (args[0] === "--child-diff") {
+  console.log(JSON.stringify(benchDiff()));
 } else {
   main();
 }

@@ -5,6 +5,7 @@
  */
 export { explorePaths, explorePathsLimited, iteratePaths, countPaths } from "./walk";
 export { topPaths, rankings, type TopOptions } from "./top";
+export { diffGraphs } from "./diff";
 export { compileGraph, type CompiledGraph, EngineInputError } from "./compile";
 export {
   classifyBlock,

@@ -70,3 +70,43 @@ export interface PathResult {
 
 /** Anything a ranking or filter may read: a materialised result or the streaming cursor. */
 export type PathView = Readonly<PathResult>;
+
+/** One field whose value differs between two versions: `null` on a side that lacks the field. */
+export interface FieldChange {
+  field: string;
+  before: unknown;
+  after: unknown;
+}
+
+/** A node or an edge in both graphs whose fields differ, the fields sorted by name. */
+export interface ChangedItem {
+  id: string;
+  changes: FieldChange[];
+}
+
+/** What changed among one kind of item (nodes or edges), ids in code unit order. */
+export interface ItemsDiff {
+  added: string[];
+  removed: string[];
+  changed: ChangedItem[];
+}
+
+/** A path that exists on one side only, or whose compared fields differ. */
+export interface PathChange {
+  /** The root move's id. */
+  root: string;
+  /** Edge ids along the path: with the root, its identity in both graphs. */
+  edges: string[];
+  /** The path's input: the `after` side's where the path exists there. */
+  input: string;
+  status: "added" | "removed" | "changed";
+  /** Only blockClass, onHit, naturalCombo, jails, in that order; empty unless "changed". */
+  changes: FieldChange[];
+}
+
+/** What changed between two graphs of one character (DESIGN.md, "Editions over time"). */
+export interface GraphDiff {
+  nodes: ItemsDiff;
+  edges: ItemsDiff;
+  paths: PathChange[];
+}

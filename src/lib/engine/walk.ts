@@ -139,6 +139,14 @@ export class PathWalker implements PathView {
     return this.d >= 0 && this.nextPath();
   }
 
+  /**
+   * Leaves out every path that extends the current one: the next `advance()` goes on as if
+   * the current path's last node had no edges left to take. Call it after `advance()` returned true.
+   */
+  skipExtensions(): void {
+    this.nextSlotAt[this.d] = this.g.slotStart[this.nodeAt[this.d]! + 1]!;
+  }
+
   /** The first path: the root move alone, or for a stance root the first hit after it. */
   private start(): boolean {
     const g = this.g;
@@ -357,6 +365,16 @@ export class PathWalker implements PathView {
 
   get gapCount(): number {
     return this.gapCountAt[this.d]!;
+  }
+
+  /** The id of the current path's node at 0-based position i (below `length`), read without building `nodes`. */
+  nodeIdAt(i: number): string {
+    return this.g.nodeIds[this.nodeAt[i]!]!;
+  }
+
+  /** The id of the current path's edge at 0-based position i (below `length - 1`), read without building `edges`. */
+  edgeIdAt(i: number): string {
+    return this.g.edgeIds[this.edgeInto(i + 1)]!;
   }
 
   get nodes(): string[] {

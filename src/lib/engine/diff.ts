@@ -1,0 +1,290 @@
+import { compileGraph, type CompiledGraph } from "./compile";
+import type {
+  ChangedItem,
+  ExploreOptions,
+  FieldChange,
+  GraphEdge,
+  GraphDiff,
+  ItemsDiff,
+  MoveGraph,
+  PathChange,
+  PathView,
+} from "./types";
+import { PathWalker, resolveOptions } from "./walk";
+
+/**
+ * What changed between two graphs of one character (DESIGN.md, "Editions over time"): nodes
+ * and edges added, removed and changed field by field, and every path that exists on one side
+ * only or whose block class, on-hit outcome, natural combo or jail differs. Node and edge ids
+ * are the keys stable across Editions; both sides are explored with the same options.
+ */
+export function diffGraphs(before: MoveGraph, after: MoveGraph, options?: ExploreOptions): GraphDiff {
+  const resolved = resolveOptions(options);
+  const was = new Side(before);
+  const now = new Side(after);
+  const nodes = diffItems(before.nodes, after.nodes);
+  const edges = diffItems(before.edges, after.edges);
+  const changes = new Changes(before, after, nodes, edges, resolved.maxDepth);
+  const paths: PathChange[] = [];
+  const roots = [...new Set([...was.roots, ...now.roots])].sort(byCodeUnits);
+  for (const root of roots) {
+    const a = was.roots.has(root) ? new PathWalker(was.compiled, root, resolved) : null;
+    const b = now.roots.has(root) ? new PathWalker(now.compiled, root, resolved) : null;
+    // Roots come in order, so sorting each root's paths by input sorts the whole list.
+    for (const path of diffPathsFrom(root, a, b, changes).sort(byInput)) paths.push(path);
+  }
+  return { nodes, edges, paths };
+}
+
+/**
+ * One graph ready to walk. Its edges are compiled in id order, so that every walk lists the
+ * paths from a root in the order of their edge ids (a path before those that extend it): the
+ * two sides' walks can then be merged like two sorted lists, with no index of either.
+ */
+class Side {
+  readonly compiled: CompiledGraph;
+  /** Move nodes with no incoming follow edge. */
+  readonly roots: ReadonlySet<string>;
+
+  constructor(graph: MoveGraph) {
+    const edges = [...graph.edges].sort((a, b) => byCodeUnits(a.id, b.id));
+    this.compiled = compileGraph({ nodes: graph.nodes, edges });
+    const followed = new Set(graph.edges.filter((e) => e.kind === "follow").map((e) => e.to));
+    this.roots = new Set(graph.nodes.filter((n) => n.kind === "move" && !followed.has(n.id)).map((n) => n.id));
+  }
+}
+
+/**
+ * The fields of a node that the steps after it read: whether it is a move, and its startup
+ * (the gap and combo of an enter after a cancel, which every longer path carries). Its other
+ * fields only count for the paths that end on it.
+ */
+const CARRIED_FIELDS: ReadonlySet<string> = new Set(["kind", "startup"]);
+
+/**
+ * Where the graphs differ, kept to tell which paths must be compared one by one. A path that
+ * takes no changed edge and no node changed in a carried field is extended the same way on
+ * both sides until an extension takes a changed edge or enters a changed node; when the
+ * bounds let no extension get that far, every extension is the same on both sides.
+ */
+class Changes {
+  /** Nodes changed in a field the steps after them read. */
+  private readonly carried: ReadonlySet<string>;
+  private readonly edges: ReadonlySet<string>;
+  /** Per node, the fewest moves a path going on from it enters up to a change, in either graph (none: never). */
+  private readonly movesToChange: ReadonlyMap<string, number>;
+  private readonly maxDepth: number;
+
+  constructor(before: MoveGraph, after: MoveGraph, nodes: ItemsDiff, edges: ItemsDiff, maxDepth: number) {
+    this.maxDepth = maxDepth;
+    this.carried = new Set(
+      nodes.changed.filter((c) => c.changes.some((f) => CARRIED_FIELDS.has(f.field))).map((c) => c.id),
+    );
+    this.edges = new Set([...edges.added, ...edges.removed, ...edges.changed.map((c) => c.id)]);
+    const changedNodes = new Set([...nodes.added, ...nodes.removed, ...nodes.changed.map((c) => c.id)]);
+    const fewest = movesToChange(before, changedNodes, this.edges);
+    for (const [id, moves] of movesToChange(after, changedNodes, this.edges)) {
+      fewest.set(id, Math.min(moves, fewest.get(id) ?? moves));
+    }
+    this.movesToChange = fewest;
+  }
+
+  /**
+   * Whether the step into position i of the walk's current path is clean: it takes no changed
+   * edge and enters no node changed in a carried field.
+   */
+  cleanStep(path: PathWalker, i: number): boolean {
+    return !this.carried.has(path.nodeIdAt(i)) && (i === 0 || !this.edges.has(path.edgeIdAt(i - 1)));
+  }
+
+  /**
+   * Whether every path that extends the walk's current one, found on both sides, is the same
+   * on both, given whether every step of the current path is clean (`cleanStep`).
+   */
+  sameBelow(path: PathWalker, clean: boolean): boolean {
+    if (!clean) return false;
+    const moves = this.movesToChange.get(path.nodeIdAt(path.length - 1));
+    return moves === undefined || path.hitCount + moves > this.maxDepth;
+  }
+}
+
+/**
+ * For each node of `graph` from which a path can go on to take one of the changed edges or
+ * enter one of the changed nodes, the fewest moves it enters on the way, that last step
+ * included (entering a stance costs none). Dial's shortest paths backwards from those last
+ * steps: bucket k holds the nodes offered at k moves, read in order, and a node keeps the
+ * first bucket that reaches it.
+ */
+function movesToChange(graph: MoveGraph, nodes: ReadonlySet<string>, edges: ReadonlySet<string>): Map<string, number> {
+  const moveIds = new Set(graph.nodes.filter((n) => n.kind === "move").map((n) => n.id));
+  const cost = (edge: GraphEdge) => (moveIds.has(edge.to) ? 1 : 0);
+  const into = new Map<string, GraphEdge[]>();
+  for (const edge of graph.edges) {
+    const list = into.get(edge.to);
+    if (list === undefined) into.set(edge.to, [edge]);
+    else list.push(edge);
+  }
+  const buckets: string[][] = [];
+  const offer = (id: string, moves: number) => (buckets[moves] ??= []).push(id);
+  for (const edge of graph.edges) if (edges.has(edge.id) || nodes.has(edge.to)) offer(edge.from, cost(edge));
+  const fewest = new Map<string, number>();
+  for (let moves = 0; moves < buckets.length; moves++) {
+    // A stance edge costs nothing, so the bucket being read may still grow.
+    const bucket = buckets[moves] ?? [];
+    for (let i = 0; i < bucket.length; i++) {
+      const id = bucket[i]!;
+      if (fewest.has(id)) continue;
+      fewest.set(id, moves);
+      for (const edge of into.get(id) ?? []) offer(edge.from, moves + cost(edge));
+    }
+  }
+  return fewest;
+}
+
+/**
+ * Merges the two walks from one root (null: the root is not a root on that side). Both list
+ * paths in edge-id order, so at each step the path that comes first exists on its side only,
+ * unless both walks stand on the same path, which is then compared field by field. Where no
+ * path extending it can differ, both walks skip those paths.
+ */
+function diffPathsFrom(
+  root: string,
+  before: PathWalker | null,
+  after: PathWalker | null,
+  changes: Changes,
+): PathChange[] {
+  const out: PathChange[] = [];
+  // clean[i]: every step of the after walk's current path up to position i is clean. The
+  // walk's next path shares all positions but its last with a path it stood on before, so
+  // each step of the walk fills in one slot.
+  const clean: boolean[] = [];
+  const advanceAfter = (): boolean => {
+    if (after === null || !after.advance()) return false;
+    const i = after.length - 1;
+    clean[i] = (i === 0 || clean[i - 1] === true) && changes.cleanStep(after, i);
+    return true;
+  };
+  let a = before?.advance() === true;
+  let b = advanceAfter();
+  while (a || b) {
+    const order = !a ? 1 : !b ? -1 : comparePaths(before!, after!);
+    if (order < 0) {
+      out.push(pathChange(root, before!, "removed"));
+      a = before!.advance();
+    } else if (order > 0) {
+      out.push(pathChange(root, after!, "added"));
+      b = advanceAfter();
+    } else {
+      const changed = pathFieldChanges(before!, after!);
+      if (changed !== null) out.push(pathChange(root, after!, "changed", changed));
+      if (changes.sameBelow(after!, clean[after!.length - 1] === true)) {
+        before!.skipExtensions();
+        after!.skipExtensions();
+      }
+      a = before!.advance();
+      b = advanceAfter();
+    }
+  }
+  return out;
+}
+
+/** The walks' current paths in the order of their edge ids, a path before those that extend it. */
+function comparePaths(a: PathWalker, b: PathWalker): number {
+  const shared = Math.min(a.length, b.length) - 1;
+  for (let i = 0; i < shared; i++) {
+    const order = byCodeUnits(a.edgeIdAt(i), b.edgeIdAt(i));
+    if (order !== 0) return order;
+  }
+  return a.length - b.length;
+}
+
+/**
+ * Which of the compared fields differ between the same path on both sides, in the order
+ * "what changed" lists them. Each field is read by name: this runs once per path on both
+ * sides, and reading a getter through a computed name is several times slower.
+ */
+function pathFieldChanges(before: PathView, after: PathView): FieldChange[] | null {
+  const blockClass = before.blockClass !== after.blockClass;
+  const onHit = !sameValue(before.onHit, after.onHit);
+  const naturalCombo = before.naturalCombo !== after.naturalCombo;
+  const jails = before.jails !== after.jails;
+  if (!blockClass && !onHit && !naturalCombo && !jails) return null;
+  const changes: FieldChange[] = [];
+  if (blockClass) changes.push({ field: "blockClass", before: before.blockClass, after: after.blockClass });
+  if (onHit) changes.push({ field: "onHit", before: before.onHit, after: after.onHit });
+  if (naturalCombo) changes.push({ field: "naturalCombo", before: before.naturalCombo, after: after.naturalCombo });
+  if (jails) changes.push({ field: "jails", before: before.jails, after: after.jails });
+  return changes;
+}
+
+/** The entry of the walk's current path. */
+function pathChange(
+  root: string,
+  path: PathWalker,
+  status: PathChange["status"],
+  changes: FieldChange[] = [],
+): PathChange {
+  const edges = new Array<string>(path.length - 1);
+  for (let i = 0; i < edges.length; i++) edges[i] = path.edgeIdAt(i);
+  return { root, edges, input: path.input, status, changes };
+}
+
+/** Nodes or edges matched by id; a changed one lists every field that differs, but its id. */
+function diffItems<T extends { id: string }>(before: readonly T[], after: readonly T[]): ItemsDiff {
+  const was = new Map(before.map((item) => [item.id, item]));
+  const now = new Map(after.map((item) => [item.id, item]));
+  const changed: ChangedItem[] = [];
+  for (const id of [...now.keys()].filter((id) => was.has(id)).sort(byCodeUnits)) {
+    const changes = fieldChanges(was.get(id)!, now.get(id)!);
+    if (changes.length > 0) changed.push({ id, changes });
+  }
+  return {
+    added: [...now.keys()].filter((id) => !was.has(id)).sort(byCodeUnits),
+    removed: [...was.keys()].filter((id) => !now.has(id)).sort(byCodeUnits),
+    changed,
+  };
+}
+
+/** Every field but `id` whose value differs, by field name; a field one side lacks is `null` there. */
+function fieldChanges(before: object, after: object): FieldChange[] {
+  const was = before as Readonly<Record<string, unknown>>;
+  const now = after as Readonly<Record<string, unknown>>;
+  const fields = [...new Set([...Object.keys(was), ...Object.keys(now)])].filter((f) => f !== "id").sort(byCodeUnits);
+  const changes: FieldChange[] = [];
+  for (const field of fields) {
+    const a = was[field] ?? null;
+    const b = now[field] ?? null;
+    if (!sameValue(a, b)) changes.push({ field, before: a, after: b });
+  }
+  return changes;
+}
+
+/** Deep equality of JSON values: numbers, strings, booleans, null, arrays and plain objects. */
+function sameValue(a: unknown, b: unknown): boolean {
+  if (a === b) return true;
+  if (Array.isArray(a) || Array.isArray(b)) {
+    return Array.isArray(a) && Array.isArray(b) && a.length === b.length && a.every((item, i) => sameValue(item, b[i]));
+  }
+  if (typeof a !== "object" || typeof b !== "object" || a === null || b === null) return false;
+  const was = a as Readonly<Record<string, unknown>>;
+  const now = b as Readonly<Record<string, unknown>>;
+  const keys = new Set([...Object.keys(was), ...Object.keys(now)]);
+  return [...keys].every((key) => sameValue(was[key], now[key]));
+}
+
+function byCodeUnits(a: string, b: string): number {
+  return a < b ? -1 : a > b ? 1 : 0;
+}
+
+/** Lists of ids in the order of their first difference, a list before those it begins. */
+function compareIdLists(a: readonly string[], b: readonly string[]): number {
+  const shared = Math.min(a.length, b.length);
+  for (let i = 0; i < shared; i++) if (a[i] !== b[i]) return byCodeUnits(a[i]!, b[i]!);
+  return a.length - b.length;
+}
+
+/** By input; paths with the same input by their edge ids, so the order never depends on a walk. */
+function byInput(a: PathChange, b: PathChange): number {
+  if (a.input !== b.input) return a.input < b.input ? -1 : 1;
+  return compareIdLists(a.edges, b.edges);
+}
