@@ -27,6 +27,7 @@ import { fileURLToPath } from "node:url";
 import { compileGraph, type CompiledGraph, type ExploreOptions, type PathResult } from "../../src/lib/engine";
 import { createPathWalker, explorePaths, iteratePaths, type PathWalker } from "../../src/lib/engine/walk";
 import { bareWalk } from "./bare-walk";
+import { benchImportParse } from "./character-file";
 import { generateGraph } from "./generate";
 import { peerPaths } from "./peer";
 
@@ -323,6 +324,7 @@ function main(): void {
         (pick("acyclic", big, "peer").ms / pick("acyclic", big, "engine").ms).toFixed(3),
       ),
       peak_mb_stream_1e6: Number(stream.peakMb.toFixed(2)),
+      import_parse_10k_s: Number((benchImportParse().ms / 1000).toFixed(4)),
     }),
   );
 }
