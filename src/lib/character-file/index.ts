@@ -14,6 +14,7 @@ export {
   MAX_FILE_BYTES,
   POSTURES,
   edgeKey,
+  moveNode,
   orderEdges,
   stanceNodeId,
   toMoveGraph,

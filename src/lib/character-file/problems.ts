@@ -106,7 +106,10 @@ export const coachErrorMap: z.core.$ZodErrorMap = (issue) => {
           return `unknown state ${quote(state)}; use one of ${STATES.join(", ")}`;
         return `must be ${OUTCOME_HINT}, not ${received(issue.input)}`;
       }
-      if (field === "kind") return `unknown edge kind ${quote(issue.input)}; use follow, cancel or enter`;
+      if (field === "kind" || (issue.input as { kind?: unknown } | null)?.kind !== undefined) {
+        const kind = (issue.input as { kind?: unknown } | null)?.kind ?? issue.input;
+        return `unknown edge kind ${quote(kind)}; use follow, cancel or enter`;
+      }
       return `is not in a shape this file format knows (${received(issue.input)})`;
     case "unrecognized_keys":
       return `unknown field${issue.keys.length > 1 ? "s" : ""} ${issue.keys.map((k) => quote(k)).join(", ")}`;

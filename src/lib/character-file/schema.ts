@@ -193,24 +193,45 @@ export function edgeKey(edge: Pick<PortableEdge, "kind" | "from" | "to" | "input
 /** The engine's node id of a stance; moves use their key as it is (as `getCharacterGraph` does). */
 export const stanceNodeId = (key: string) => `stance:${key}`;
 
+type MoveFields = Pick<
+  PortableMove,
+  | "key"
+  | "input"
+  | "name"
+  | "level"
+  | "damage"
+  | "startup"
+  | "onBlock"
+  | "onHit"
+  | "onCounterHit"
+  | "range"
+  | "tags"
+  | "notes"
+>;
+
+/** A move as the engine's node: a move row of the database has the same fields (`key` is the node id). */
+export function moveNode(m: MoveFields): GraphNode {
+  return {
+    id: m.key,
+    kind: "move",
+    input: m.input,
+    name: m.name,
+    level: m.level,
+    damage: m.damage,
+    ...(m.startup === null ? {} : { startup: m.startup }),
+    onBlock: m.onBlock,
+    onHit: m.onHit,
+    onCounterHit: m.onCounterHit,
+    ...(m.range === null ? {} : { range: m.range }),
+    tags: m.tags,
+    ...(m.notes === null ? {} : { notes: m.notes }),
+  };
+}
+
 /** The character as the engine's graph: node ids are move keys and `stance:<key>`, edge ids are edge keys. */
 export function toMoveGraph(c: PortableCharacter): MoveGraph {
   const nodes: GraphNode[] = [
-    ...c.moves.map((m): GraphNode => ({
-      id: m.key,
-      kind: "move",
-      input: m.input,
-      name: m.name,
-      level: m.level,
-      damage: m.damage,
-      ...(m.startup === null ? {} : { startup: m.startup }),
-      onBlock: m.onBlock,
-      onHit: m.onHit,
-      onCounterHit: m.onCounterHit,
-      ...(m.range === null ? {} : { range: m.range }),
-      tags: m.tags,
-      ...(m.notes === null ? {} : { notes: m.notes }),
-    })),
+    ...c.moves.map(moveNode),
     ...c.stances.map((s): GraphNode => ({ id: stanceNodeId(s.key), kind: "stance", name: s.name })),
   ];
   const edges = c.edges.map((e): GraphEdge => {

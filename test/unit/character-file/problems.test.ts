@@ -125,6 +125,13 @@ describe("a good file", () => {
     expect(parseCharactersCsv(csv(ROWS, header))).toEqual(parseCharactersCsv(csv()));
   });
 
+  test("a move without a key takes its input as key, and other rows can name it by that", () => {
+    const rows = [ROWS[0]!, { ...ROWS[2]!, key: "" }, { ...ROWS[3]!, key: "" }];
+    const r = parseCharactersCsv(csv(rows));
+    expect(r.ok && r.characters[0]!.moves.map((m) => m.key)).toEqual(["1", "1,2"]);
+    expect(r.ok && r.characters[0]!.edges.map((e) => `${e.from}>${e.to}`)).toEqual(["1>1,2"]);
+  });
+
   test("the row reader takes papaparse's stream row by row and counts them", () => {
     const reader = createCsvReader();
     const text = csv();
@@ -415,7 +422,7 @@ describe("a JSON file with mistakes: every problem with its path", () => {
         (e.edges as Record<string, unknown>[])[0]!.kind = "link";
         return e;
       })(),
-      ["edges[0].kind"],
+      ['edges[0].kind: unknown edge kind "link"; use follow, cancel or enter'],
     ],
     [
       "an edge to a move that does not exist",
