@@ -1,11 +1,20 @@
 /**
  * Characters in and out of files: Framefork's own CSV and JSON formats (README, "Bring your
  * own game"). Pure code, for the server and the browser alike: no database, no routes.
+ *
+ * Server: `readCharacterFile(file)` (a form's File: size checked before reading), or
+ * `parseCharacterFile(name, bytes)`. A browser streaming a large CSV with progress:
+ *
+ *   const head = new Uint8Array(await file.slice(0, 4096).arrayBuffer());
+ *   const problem = sizeProblem(file.size) ?? encodingProblem(head, true);
+ *   const reader = createCsvReader();
+ *   Papa.parse(file, { ...csvParseConfig(csvDelimiter(new TextDecoder().decode(head))),
+ *     step: (r) => reader.push(r), complete: () => show(reader.finish()) });
  */
 import { createCsvReader, exportCharacterCsv, exportEditionCsv, parseCharactersCsv } from "./csv";
 import { exportCharacterJson, exportEditionJson, parseCharactersJson } from "./json";
 import type { ParseResult } from "./problems";
-import { decodeText, sizeProblem } from "./text";
+import { decodeText, encodingProblem, sizeProblem } from "./text";
 
 export {
   CHARACTER_FORMAT,
@@ -41,7 +50,7 @@ export {
   type CsvStep,
 } from "./csv";
 export { MAX_JSON_DEPTH } from "./json";
-export { decodeText, sizeProblem };
+export { decodeText, encodingProblem, sizeProblem };
 export {
   createCsvReader,
   exportCharacterCsv,

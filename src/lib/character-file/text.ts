@@ -21,34 +21,34 @@ export function sizeProblem(size: number): FileProblem | null {
 export function decodeText(bytes: Uint8Array): { ok: true; text: string } | { ok: false; problem: FileProblem } {
   const tooBig = sizeProblem(bytes.length);
   if (tooBig) return { ok: false, problem: tooBig };
+  const wrong = encodingProblem(bytes);
+  if (wrong) return { ok: false, problem: wrong };
+  // TextDecoder drops a UTF-8 byte order mark itself (ignoreBOM is false by default).
+  const text = new TextDecoder("utf-8").decode(bytes);
+  if (text.trim() === "") return { ok: false, problem: { message: "the file is empty" } };
+  return { ok: true, text };
+}
+
+/**
+ * Why these bytes are not UTF-8 text, or null. With `partial`, the bytes are only the
+ * start of a file (a browser reads the first few kilobytes before streaming the rest to
+ * papaparse), so a character cut at the end is not an error.
+ */
+export function encodingProblem(bytes: Uint8Array, partial = false): FileProblem | null {
   const b0 = bytes[0];
   const b1 = bytes[1];
   if ((b0 === 0xff && b1 === 0xfe) || (b0 === 0xfe && b1 === 0xff) || looksUtf16(bytes)) {
-    return {
-      ok: false,
-      problem: { message: "the file is saved as UTF-16; save it again as UTF-8 text (CSV UTF-8, or plain JSON)" },
-    };
+    return { message: "the file is saved as UTF-16; save it again as UTF-8 text (CSV UTF-8, or plain JSON)" };
   }
   if (bytes.includes(0)) {
-    return {
-      ok: false,
-      problem: {
-        message: "this is not a text file; export the sheet as CSV (UTF-8) or the data as JSON and try again",
-      },
-    };
+    return { message: "this is not a text file; export the sheet as CSV (UTF-8) or the data as JSON and try again" };
   }
-  let text: string;
   try {
-    // TextDecoder drops a UTF-8 byte order mark itself (ignoreBOM is false by default).
-    text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
+    new TextDecoder("utf-8", { fatal: true }).decode(bytes, { stream: partial });
   } catch {
-    return {
-      ok: false,
-      problem: { message: "the file is not UTF-8 text (perhaps an older encoding); save it again as UTF-8" },
-    };
+    return { message: "the file is not UTF-8 text (perhaps an older encoding); save it again as UTF-8" };
   }
-  if (text.trim() === "") return { ok: false, problem: { message: "the file is empty" } };
-  return { ok: true, text };
+  return null;
 }
 
 /** UTF-16 without a byte order mark: ASCII text then has a NUL in every other byte. */

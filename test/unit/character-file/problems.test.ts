@@ -8,6 +8,7 @@ import {
   createCsvReader,
   csvDelimiter,
   csvParseConfig,
+  encodingProblem,
   formatProblem,
   parseCharacterFile,
   parseCharactersCsv,
@@ -341,6 +342,16 @@ describe("files that are not what they say", () => {
     ["an older encoding (Latin-1)", "not UTF-8 text", Uint8Array.from([...bytes("row,name\nmove,Caf"), 0xe9, 0x0a])],
   ])("%s: %s", (_, message, file) => {
     expect(texts(parseCharacterFile("pell.csv", file))).toEqual([expect.stringContaining(message)]);
+  });
+
+  test("the start of a file, as a browser reads it before streaming, is judged the same", () => {
+    const start = (b: Uint8Array) => encodingProblem(b.slice(0, 4096), true)?.message ?? null;
+    expect(start(Uint8Array.from([0xff, 0xfe, ...utf16le(csv().repeat(50))]))).toMatch(/UTF-16/);
+    expect(start(Uint8Array.from([0x89, 0x50, 0x4e, 0x47, 0, 0, 0, 13]))).toMatch(/not a text file/);
+    // A character cut by the 4 KB boundary is not an error in a file's start; in a whole file it is.
+    const cut = bytes(`${"a".repeat(4095)}é`).slice(0, 4096);
+    expect(start(cut)).toBeNull();
+    expect(encodingProblem(cut)?.message).toMatch(/not UTF-8/);
   });
 
   test("a file over the limit is refused by its size, before it is read", async () => {
