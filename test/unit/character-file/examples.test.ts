@@ -25,6 +25,15 @@ describe("the example character, Merrith", () => {
   const csv = read("merrith.csv");
   const json = read("merrith.json");
 
+  test("a file without a known extension is told apart by its content", () => {
+    const bytes = readFileSync(join(dir, "merrith.json"));
+    expect(parseCharacterFile("merrith", bytes)).toEqual(parseCharacterFile("merrith.JSON", bytes));
+    expect(parseCharacterFile("merrith", readFileSync(join(dir, "merrith.csv")))).toEqual({
+      ok: true,
+      characters: [csv],
+    });
+  });
+
   test("the CSV and the JSON file hold the same character", () => {
     expect(csv).toEqual(json);
   });
