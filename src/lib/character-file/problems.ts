@@ -119,11 +119,3 @@ export const coachErrorMap: z.core.$ZodErrorMap = (issue) => {
       return undefined;
   }
 };
-
-/** zod issues as problems, each with its path prefixed by `base` (e.g. `moves[3]`). */
-export function zodProblems(
-  error: z.ZodError,
-  where: (path: PropertyKey[]) => Omit<FileProblem, "message">,
-): FileProblem[] {
-  return error.issues.map((issue) => ({ ...where(issue.path), message: issue.message }));
-}
