@@ -31,6 +31,7 @@ import { compileGraph, type CompiledGraph, type ExploreOptions, type PathResult 
 import { createPathWalker, explorePaths, iteratePaths, type PathWalker } from "../../src/lib/engine/walk";
 import { bareWalk } from "./bare-walk";
 import { benchDiff, type DiffBench } from "./diff";
+import { benchImportParse } from "./character-file";
 import { generateGraph } from "./generate";
 import { peerPaths } from "./peer";
 
@@ -327,6 +328,7 @@ function main(): void {
       ),
       peak_mb_stream_1e6: Number(stream.peakMb.toFixed(2)),
       diff_300_ms: Number(diffMs.toFixed(1)),
+      import_parse_10k_s: Number((benchImportParse().ms / 1000).toFixed(4)),
     }),
   );
 }
