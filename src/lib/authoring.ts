@@ -66,7 +66,8 @@ export type NewCharacter = z.input<typeof newCharacterSchema>;
 export const newEditionSchema = z
   .object({
     name: editionNameSchema,
-    releasedOn: z.iso.date({ error: "Give the release date as YYYY-MM-DD." }).optional(),
+    // Empty (a date field left blank) means today.
+    releasedOn: z.iso.date({ error: "Give the release date as YYYY-MM-DD." }).or(z.literal("")).optional(),
     notes: summary,
   })
   .strict();

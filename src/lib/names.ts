@@ -61,6 +61,7 @@ export function nameSchema({
   return z
     .string({ error: missing })
     .trim()
+    .min(1, { error: missing })
     .min(min, { error: tooShort })
     .max(120, { error: tooLong })
     .superRefine((name, ctx) => {

@@ -79,6 +79,8 @@ describe("names people type", () => {
     expect(teamNameSchema.parse("👩‍💻 Night Crew")).toBe("👩‍💻 Night Crew");
     // The length rules stay as they were.
     expect(teamNameSchema.safeParse("x").error?.issues[0]?.message).toBe("A team name needs at least 2 characters.");
+    // An empty field asks for the name rather than counting characters.
+    expect(teamNameSchema.safeParse("  ").error?.issues[0]?.message).toBe("Give the team a name.");
     expect(displayNameSchema.safeParse("y".repeat(121)).error?.issues[0]?.message).toBe(
       "Use at most 120 characters for your name.",
     );

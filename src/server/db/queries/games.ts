@@ -20,6 +20,8 @@ export interface EditionSummary {
   slug: string;
   name: string;
   releasedOn: string;
+  /** A draft is still being edited (its team sees it); a published Edition never changes. */
+  status: "draft" | "published";
 }
 
 export interface CharacterSummary {
@@ -54,6 +56,11 @@ export async function listGames({ viewerId = null }: { viewerId?: string | null 
     .orderBy(asc(games.name));
 }
 
+/** A team's own games, by name. */
+export async function listTeamGames({ teamId }: { teamId: number }): Promise<GameSummary[]> {
+  return getDb().select(gameColumns).from(games).where(eq(games.teamId, teamId)).orderBy(asc(games.name));
+}
+
 export async function getGameBySlug({ slug }: { slug: string }): Promise<GameSummary | null> {
   const [row] = await getDb().select(gameColumns).from(games).where(eq(games.slug, slug)).limit(1);
   return row ?? null;
@@ -62,7 +69,13 @@ export async function getGameBySlug({ slug }: { slug: string }): Promise<GameSum
 /** Newest first: the first edition is the one views default to. */
 export async function listEditions({ gameId }: { gameId: number }): Promise<EditionSummary[]> {
   const rows = await getDb()
-    .select({ id: editions.id, slug: editions.slug, name: editions.name, releasedOn: editions.releasedOn })
+    .select({
+      id: editions.id,
+      slug: editions.slug,
+      name: editions.name,
+      releasedOn: editions.releasedOn,
+      status: editions.status,
+    })
     .from(editions)
     .where(eq(editions.gameId, gameId))
     .orderBy(desc(editions.releasedOn), desc(editions.id));

@@ -1,6 +1,9 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { Breadcrumb } from "@/components/ui/breadcrumb";
+import { GameAdmin } from "@/components/games/game-admin";
+import { auth } from "@/server/auth";
+import { atLeast, getRole } from "@/server/authz";
 import { listCharacters, listEditions } from "@/server/db/queries/games";
 import { loadGame } from "../data";
 
@@ -13,10 +16,13 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 
 export default async function GamePage({ params }: Props) {
   const game = await loadGame((await params).game);
-  const [characters, editions] = await Promise.all([
+  const user = await auth();
+  const [characters, editions, role] = await Promise.all([
     listCharacters({ gameId: game.id }),
     listEditions({ gameId: game.id }),
+    game.teamId !== null && user ? getRole({ teamId: game.teamId, userId: user.id }) : null,
   ]);
+  const edits = atLeast(role, "coach");
   return (
     <div className="space-y-6">
       <Breadcrumb trail={[{ href: "/games", label: "Games" }]} />
@@ -32,7 +38,9 @@ export default async function GamePage({ params }: Props) {
           Characters
         </h2>
         {characters.length === 0 ? (
-          <p className="text-ink-300">This game has no characters yet.</p>
+          <p className="text-ink-300">
+            This game has no characters yet.{edits && " Add the first one below, then bring its moves in from a file."}
+          </p>
         ) : (
           <ul className="grid gap-3 sm:grid-cols-3">
             {characters.map((c) => (
@@ -58,11 +66,22 @@ export default async function GamePage({ params }: Props) {
             <li key={e.id} className="flex gap-3">
               <span className="font-mono text-ink-400">{e.releasedOn}</span>
               <span>{e.name}</span>
+              {e.status === "draft" && (
+                <span className="rounded border border-accent-muted px-1 text-xs text-accent">draft</span>
+              )}
               {i === 0 && <span className="text-xs text-accent">newest</span>}
             </li>
           ))}
         </ul>
       </section>
+      {edits && (
+        <section aria-labelledby="edit-game" className="space-y-3 rounded-lg border border-ink-800 p-4">
+          <h2 id="edit-game" className="text-sm font-semibold tracking-wider text-ink-400 uppercase">
+            Edit this game
+          </h2>
+          <GameAdmin game={game.slug} editions={editions} />
+        </section>
+      )}
     </div>
   );
 }

@@ -1,5 +1,7 @@
 import type { Metadata } from "next";
 import { notFound, redirect } from "next/navigation";
+import Link from "next/link";
+import { NewGameForm } from "@/components/games/new-game-form";
 import { TeamAdmin } from "@/components/teams/team-admin";
 import { Breadcrumb } from "@/components/ui/breadcrumb";
 import { AppError } from "@/lib/errors";
@@ -7,6 +9,7 @@ import { auth } from "@/server/auth";
 import { atLeast } from "@/server/authz";
 import { listAudit } from "@/server/db/queries/audit";
 import { listPendingInvites } from "@/server/db/queries/invites";
+import { listTeamGames } from "@/server/db/queries/games";
 import { listTeamPermalinks } from "@/server/db/queries/permalinks";
 import { listMembers } from "@/server/db/queries/teams";
 import { loadTeamFor } from "@/server/teams";
@@ -27,16 +30,37 @@ export default async function TeamPage({ params }: Props) {
   if (!loaded) notFound();
   const { team, role } = loaded;
   const manages = atLeast(role, "coach");
-  const [members, invites, audit, permalinks] = await Promise.all([
+  const [members, invites, audit, permalinks, games] = await Promise.all([
     listMembers({ teamId: team.id }),
     manages ? listPendingInvites({ teamId: team.id }) : Promise.resolve([]),
     manages ? listAudit({ teamId: team.id }) : Promise.resolve([]),
     listTeamPermalinks({ teamId: team.id }),
+    listTeamGames({ teamId: team.id }),
   ]);
   return (
     <div className="space-y-4">
       <Breadcrumb trail={[{ href: "/teams", label: "Teams" }]} />
       <TeamAdmin team={team} me={{ id: user.id, role }} initial={{ members, invites, audit, permalinks }} />
+      <section aria-labelledby="team-games" className="space-y-3">
+        <h2 id="team-games" className="text-lg font-semibold">
+          The team&apos;s games
+        </h2>
+        {games.length === 0 ? (
+          <p className="text-ink-300">
+            No games of the team&apos;s own yet.
+            {manages ? " Start one below to bring in the frame data of the game you play." : ""}
+          </p>
+        ) : (
+          <ul className="space-y-1">
+            {games.map((g) => (
+              <li key={g.id}>
+                <Link href={`/games/${g.slug}`}>{g.name}</Link>
+              </li>
+            ))}
+          </ul>
+        )}
+        {manages && <NewGameForm team={team.slug} />}
+      </section>
     </div>
   );
 }
