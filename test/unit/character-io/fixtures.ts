@@ -1,0 +1,50 @@
+import { and, count, eq } from "drizzle-orm";
+import { getDb } from "@/server/db";
+import { createGame } from "@/server/db/queries/authoring";
+import { createTeam } from "@/server/db/queries/teams";
+import { auditLog, characters, edges, moves, stances } from "@/server/db/schema";
+import { makeUser } from "../teams/fixtures";
+
+/** A coach's team with a game of its own: its first Edition is a draft, and it has one character. */
+export async function teamWithDraft(character: { slug: string; name: string; summary: string | null }) {
+  const coach = await makeUser("coach");
+  const team = await createTeam({ name: `Import Crew ${coach.id.slice(0, 6)}`, ownerId: coach.id });
+  const { game, edition } = await createGame({
+    teamId: team.id,
+    actorId: coach.id,
+    input: { name: `Import Game ${coach.id.slice(0, 6)}`, edition: "1.0" },
+  });
+  const [made] = await getDb()
+    .insert(characters)
+    .values({ gameId: game.id, ...character })
+    .$returningId();
+  return { coach, team, game, edition, characterId: made!.id };
+}
+
+/** The rows a character has in an Edition, and the team's log: what an import may write. */
+export async function rowCounts({
+  editionId,
+  characterId,
+  teamId,
+}: {
+  editionId: number;
+  characterId: number;
+  teamId: number;
+}) {
+  const db = getDb();
+  const of = async (t: typeof stances | typeof moves | typeof edges) =>
+    Number(
+      (
+        await db
+          .select({ n: count() })
+          .from(t)
+          .where(and(eq(t.editionId, editionId), eq(t.characterId, characterId)))
+      )[0]?.n,
+    );
+  return {
+    stances: await of(stances),
+    moves: await of(moves),
+    edges: await of(edges),
+    audit: Number((await db.select({ n: count() }).from(auditLog).where(eq(auditLog.teamId, teamId)))[0]?.n),
+  };
+}
