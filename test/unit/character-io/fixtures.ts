@@ -1,6 +1,8 @@
 import { and, count, eq } from "drizzle-orm";
+import type { PortableCharacter, PortableMove } from "@/lib/character-file";
 import { getDb } from "@/server/db";
 import { createGame } from "@/server/db/queries/authoring";
+import { importCharacter } from "@/server/db/queries/character-io";
 import { createTeam } from "@/server/db/queries/teams";
 import { auditLog, characters, edges, moves, stances } from "@/server/db/schema";
 import { makeUser } from "../teams/fixtures";
@@ -48,3 +50,37 @@ export async function rowCounts({
     audit: Number((await db.select({ n: count() }).from(auditLog).where(eq(auditLog.teamId, teamId)))[0]?.n),
   };
 }
+
+export type Target = Awaited<ReturnType<typeof teamWithDraft>>;
+
+/** Imports a character into the target's draft as its coach; `apply: false` for a preview. */
+export function importInto(t: Target, character: PortableCharacter, apply = true) {
+  return importCharacter({
+    teamId: t.team.id,
+    gameId: t.game.id,
+    editionId: t.edition.id,
+    characterId: t.characterId,
+    actorId: t.coach.id,
+    character,
+    apply,
+  });
+}
+
+/** A move with plain numbers, and these fields. */
+export const move = (key: string, fields: Partial<PortableMove> = {}): PortableMove => ({
+  key,
+  input: key,
+  name: `Move ${key}`,
+  level: "mid",
+  damage: 12,
+  startup: 14,
+  onBlock: -4,
+  onHit: 3,
+  onCounterHit: 5,
+  range: null,
+  tags: [],
+  notes: null,
+  fromPosture: "standing",
+  stance: null,
+  ...fields,
+});

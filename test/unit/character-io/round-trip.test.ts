@@ -7,9 +7,9 @@ import {
   type PortableCharacter,
 } from "@/lib/character-file";
 import { closeDb } from "@/server/db";
-import { importCharacter, loadPortableCharacter } from "@/server/db/queries/character-io";
+import { loadPortableCharacter } from "@/server/db/queries/character-io";
 import { characterArb } from "../character-file/arbitraries";
-import { teamWithDraft } from "./fixtures";
+import { importInto, teamWithDraft } from "./fixtures";
 
 // Random valid characters (the file layer's generator: formula starts, quotes, line breaks in
 // notes, characters outside ASCII) written as CSV and as JSON, read again, imported into an
@@ -31,15 +31,7 @@ describe("a character through a file and the database", () => {
       const file = parsed(`fighter.${format}`, text);
       const t = await teamWithDraft(c.character);
       const scope = { editionId: t.edition.id, characterId: t.characterId };
-      const run = () =>
-        importCharacter({
-          teamId: t.team.id,
-          gameId: t.game.id,
-          ...scope,
-          actorId: t.coach.id,
-          character: file,
-          apply: true,
-        });
+      const run = () => importInto(t, file);
       const result = await run();
       expect(result.ok ? result.counts.moves.added : result.problems).toBe(c.moves.length);
       expect(await loadPortableCharacter(scope)).toEqual(c);

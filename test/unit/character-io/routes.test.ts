@@ -1,3 +1,4 @@
+import { fc } from "@fast-check/vitest";
 import Papa from "papaparse";
 import { afterAll, beforeEach, describe, expect, test, vi } from "vitest";
 import {
@@ -6,7 +7,6 @@ import {
   MAX_FILE_BYTES,
   parseCharacterFile,
   type PortableCharacter,
-  type PortableMove,
 } from "@/lib/character-file";
 import { GET as exportCharacter } from "@/app/api/games/[game]/editions/[edition]/characters/[character]/export/route";
 import { POST as importFile } from "@/app/api/games/[game]/editions/[edition]/characters/[character]/import/route";
@@ -16,7 +16,7 @@ import { listAudit } from "@/server/db/queries/audit";
 import { publishEdition } from "@/server/db/queries/authoring";
 import { loadPortableCharacter } from "@/server/db/queries/character-io";
 import { setSession } from "../authz/session-mock";
-import { rowCounts, teamWithDraft } from "./fixtures";
+import { move, rowCounts, teamWithDraft, type Target } from "./fixtures";
 
 // The import and export routes against the test MariaDB: a bad file is answered with every
 // problem (line numbers or JSON paths) and writes nothing; a preview writes nothing; a published
@@ -26,23 +26,6 @@ vi.mock("@/server/auth", () => import("../authz/session-mock"));
 afterAll(closeDb);
 
 const SLUG = "ona-vell";
-const move = (key: string, fields: Partial<PortableMove> = {}): PortableMove => ({
-  key,
-  input: key,
-  name: `Move ${key}`,
-  level: "mid",
-  damage: 12,
-  startup: 14,
-  onBlock: -4,
-  onHit: 3,
-  onCounterHit: 5,
-  range: null,
-  tags: [],
-  notes: null,
-  fromPosture: "standing",
-  stance: null,
-  ...fields,
-});
 const ONA: PortableCharacter = {
   character: { slug: SLUG, name: "Ona Vell", summary: null },
   stances: [{ key: "low-guard", name: "Low Guard", abbreviation: "LG", notes: null }],
@@ -63,7 +46,7 @@ const ONA: PortableCharacter = {
   ],
 };
 
-let t: Awaited<ReturnType<typeof teamWithDraft>>;
+let t: Target;
 beforeEach(async () => {
   t = await teamWithDraft(ONA.character);
   setSession({ id: t.coach.id, email: `${t.coach.id}@example.test`, name: "Coach" });
@@ -235,6 +218,32 @@ describe("import", () => {
     expect(res.status).toBe(413);
     expect(((await res.json()) as Answer).error?.message).toMatch(/larger than 10 MB/);
     expect(await rowCounts(scope())).toEqual(before);
+  });
+
+  test("arbitrary files (broken lines of a real one, any text, any bytes) never answer 500, and a refusal writes nothing", async () => {
+    const cut = fc
+      .tuple(fc.nat({ max: lines.length }), fc.nat({ max: lines.length }), fc.string({ maxLength: 12 }))
+      .map(([a, b, junk]) => [...lines.slice(0, a), junk, ...lines.slice(b)].join("\r\n"));
+    const content = fc.oneof(
+      cut,
+      fc.string({ maxLength: 200 }),
+      fc.string({ unit: "binary", maxLength: 200 }),
+      fc.uint8Array({ maxLength: 200 }),
+    );
+    await fc.assert(
+      fc.asyncProperty(
+        content,
+        fc.constantFrom("ona.csv", "ona.json", "ona", ""),
+        fc.boolean(),
+        async (c, name, preview) => {
+          const before = await rowCounts(scope());
+          const res = await upload(name, c, preview ? "?preview=1" : "");
+          expect(res.status, await res.clone().text()).toBeLessThan(500);
+          if (res.status >= 400 || preview) expect(await rowCounts(scope())).toEqual(before);
+        },
+      ),
+      { numRuns: 60, seed: 20_261_202 },
+    );
   });
 
   test("a body that is not a form upload is refused with 415", async () => {

@@ -179,7 +179,7 @@ export interface ImportPreview {
   stances: ImportSection;
   moves: ImportSection;
   edges: ImportSection;
-  /** Moves that keep their data but move to another place in the move list. */
+  /** Unchanged moves whose place number in the list is written anew (a move added or moved above them shifts them). */
   reordered: number;
   /** Fields of the character the file gives differently; they belong to the game and stay as they are. */
   kept: FieldChange[];
