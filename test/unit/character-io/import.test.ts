@@ -1,11 +1,11 @@
-import { and, asc, eq } from "drizzle-orm";
+import { and, asc, eq, sql } from "drizzle-orm";
 import { afterAll, describe, expect, test } from "vitest";
 import type { PortableCharacter, PortableMove } from "@/lib/character-file";
 import { closeDb, getDb } from "@/server/db";
 import { loadPortableCharacter } from "@/server/db/queries/character-io";
 import { getCharacterGraph } from "@/server/db/queries/moves";
 import { moves } from "@/server/db/schema";
-import { importInto, move, teamWithDraft } from "./fixtures";
+import { importInto, move, rowCounts, teamWithDraft } from "./fixtures";
 
 // importCharacter against the test MariaDB: rows are matched by key, so an unchanged row keeps
 // its id and version, a changed one keeps its id and gets version + 1, and a new place in the
@@ -88,5 +88,45 @@ describe("importCharacter", () => {
     expect(roots).toEqual(["1"]);
     expect(graph.edges).toEqual([{ ...file.edges[0], id: "1>1,1" }]);
     expect(graph.nodes.map((n) => n.id)).toEqual(["1", "1,1"]);
+  });
+});
+
+describe("all or nothing", () => {
+  test("a write the database refuses halfway (an edge, after the moves went in) leaves the draft as it was", async () => {
+    const t = await teamWithDraft(base([]).character);
+    const scope = { editionId: t.edition.id, characterId: t.characterId, teamId: t.team.id };
+    await importInto(t, base([move("1")]));
+    const before = await rowCounts(scope);
+    // A trigger of this test's own refuses one edge key no other test writes.
+    const probe = `probe-${t.characterId}`;
+    await getDb().execute(
+      sql.raw(`create trigger \`edges_refuse_${t.characterId}\` before insert on edges for each row
+        if NEW.\`key\` = '1>${probe}' then signal sqlstate '45000' set message_text = 'refused by the test'; end if`),
+    );
+    try {
+      const file: PortableCharacter = {
+        ...base([move("1", { damage: 30 }), move("2"), move(probe, { startup: null })]),
+        edges: [
+          {
+            kind: "follow",
+            from: "1",
+            to: probe,
+            input: ",9",
+            gapOnBlock: 1,
+            comboOnHit: false,
+            comboOnCounterHit: false,
+          },
+        ],
+      };
+      const failure = await importInto(t, file).then(
+        () => null,
+        (error: unknown) => error as { cause?: { message?: string } },
+      );
+      expect(failure?.cause?.message).toMatch(/refused by the test/);
+    } finally {
+      await getDb().execute(sql.raw(`drop trigger \`edges_refuse_${t.characterId}\``));
+    }
+    expect(await rowCounts(scope)).toEqual(before);
+    expect(await loadPortableCharacter(scope)).toEqual(base([move("1")]));
   });
 });
