@@ -1,4 +1,5 @@
 import { formatProblem, MAX_FILE_BYTES, parseCharacterFile, sizeProblem, type FileProblem } from "@/lib/character-file";
+import { AppError } from "@/lib/errors";
 import { requireUser } from "@/server/auth";
 import { importCharacter } from "@/server/db/queries/character-io";
 import { characterOf, editionOf, loadGameForEdit } from "@/server/games-access";
@@ -44,8 +45,7 @@ export const POST = handle(async (request: Request, ctx: Ctx) => {
   const character = await characterOf(game.id, params.character);
 
   const file = await readUpload(request, { field: "file", maxBytes: MAX_FILE_BYTES, tooLargeMessage: TOO_LARGE });
-  const tooBig = sizeProblem(file.size);
-  if (tooBig) return Response.json({ error: { code: "payload_too_large", message: TOO_LARGE } }, { status: 413 });
+  if (sizeProblem(file.size)) throw new AppError("payload_too_large", TOO_LARGE);
   const parsed = parseCharacterFile(file.name, new Uint8Array(await file.arrayBuffer()));
   if (!parsed.ok) return refused(parsed.problems);
   const mine = parsed.characters.find((c) => c.character.slug === character.slug) ?? parsed.characters[0]!;
