@@ -24,6 +24,10 @@
  *
  * What changed: diffGraphs between two Editions of a generated ~300-move character, the
  * second a balance patch of the first (diff.ts, patch.ts); printed as diff_300_ms.
+ *
+ * Character files: a generated 10,000-row CSV parsed (character-file.ts, import_parse_10k_s),
+ * and imported end to end into a draft on the benches' own MariaDB (character-import.ts,
+ * import_10k_s and import_10k_peak_mb).
  */
 import { execFileSync } from "node:child_process";
 import { fileURLToPath } from "node:url";
@@ -32,6 +36,7 @@ import { createPathWalker, explorePaths, iteratePaths, type PathWalker } from ".
 import { bareWalk } from "./bare-walk";
 import { benchDiff, type DiffBench } from "./diff";
 import { benchImportParse } from "./character-file";
+import { benchImportDb } from "./character-import";
 import { generateGraph } from "./generate";
 import { peerPaths } from "./peer";
 
@@ -317,6 +322,8 @@ function main(): void {
       `${diff.pathsBefore} and ${diff.pathsAfter} paths, ${diff.listed} listed; median ${diffMs.toFixed(1)} ms over ${diff.times.length} runs`,
   );
 
+  const parse = benchImportParse();
+  const imported = benchImportDb();
   const big = 1e6;
   const stream = pick("cyclic", big, "stream");
   console.log(
@@ -328,7 +335,9 @@ function main(): void {
       ),
       peak_mb_stream_1e6: Number(stream.peakMb.toFixed(2)),
       diff_300_ms: Number(diffMs.toFixed(1)),
-      import_parse_10k_s: Number((benchImportParse().ms / 1000).toFixed(4)),
+      import_parse_10k_s: Number((parse.ms / 1000).toFixed(4)),
+      import_10k_s: Number((median(imported.times) / 1000).toFixed(3)),
+      import_10k_peak_mb: Number(imported.peakMb.toFixed(1)),
     }),
   );
 }

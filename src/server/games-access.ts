@@ -1,7 +1,7 @@
 import "server-only";
 import { AppError } from "@/lib/errors";
 import type { Role } from "@/lib/roles";
-import type { SessionUser } from "./auth";
+import { auth, type SessionUser } from "./auth";
 import { atLeast, getRole } from "./authz";
 import {
   getCharacterBySlug,
@@ -51,6 +51,17 @@ export async function loadGameForEdit({
   if (!atLeast(role, "coach"))
     throw new AppError("forbidden", `Changing a game's frame data needs the coach role or higher; you are a ${role}.`);
   return { game: { ...game, teamId: game.teamId }, role };
+}
+
+/**
+ * Loads a game for reading: the public demo game for everyone, a team's game for its members
+ * (any role). Anyone else, signed in or not, gets the answer a game that does not exist gets.
+ */
+export async function loadGameForRead({ slug }: { slug: string }): Promise<GameSummary> {
+  const game = await getGameBySlug({ slug });
+  const readable = game !== null && (await canReadGame({ game, user: game.teamId === null ? null : await auth() }));
+  if (!readable) throw new AppError("not_found", "No such game.");
+  return game;
 }
 
 /** A character of the game, by slug; another game's character is not found. */

@@ -1,5 +1,5 @@
 import "server-only";
-import type { z } from "zod";
+import { z } from "zod";
 import { env } from "@/env";
 import { AppError, type ErrorIssue } from "@/lib/errors";
 import { isPublishedEditionWrite, publishedEdition } from "@/server/db/published";
@@ -28,25 +28,7 @@ export async function readJson<S extends z.ZodType>(
   if (!/^application\/(.+\+)?json\b/i.test(type)) {
     throw new AppError("unsupported_media_type", "Send the body as JSON (Content-Type: application/json).");
   }
-  const declared = Number(request.headers.get("content-length") ?? 0);
-  if (declared > maxBytes) throw tooLarge(maxBytes);
-
-  const reader = request.body?.getReader();
-  const chunks: Uint8Array[] = [];
-  let size = 0;
-  if (reader) {
-    for (;;) {
-      const { done, value } = await reader.read();
-      if (done) break;
-      size += value.byteLength;
-      if (size > maxBytes) {
-        await reader.cancel();
-        throw tooLarge(maxBytes);
-      }
-      chunks.push(value);
-    }
-  }
-  const text = new TextDecoder().decode(Buffer.concat(chunks));
+  const text = new TextDecoder().decode(await readBody(request, maxBytes, () => tooLarge(maxBytes)));
   let json: unknown;
   try {
     json = JSON.parse(text);
@@ -72,6 +54,31 @@ export function parseWith<S extends z.ZodType>(
     );
   }
   return parsed.data;
+}
+
+/**
+ * The body's bytes, refused with `tooLarge()` past `maxBytes`: at once when Content-Length says
+ * so, else counted while reading, so a lying or missing Content-Length does not help.
+ */
+async function readBody(request: Request, maxBytes: number, tooLarge: () => AppError): Promise<Buffer> {
+  const declared = Number(request.headers.get("content-length") ?? 0);
+  if (declared > maxBytes) throw tooLarge();
+  const reader = request.body?.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  if (reader) {
+    for (;;) {
+      const { done, value } = await reader.read();
+      if (done) break;
+      size += value.byteLength;
+      if (size > maxBytes) {
+        await reader.cancel();
+        throw tooLarge();
+      }
+      chunks.push(value);
+    }
+  }
+  return Buffer.concat(chunks);
 }
 
 function tooLarge(maxBytes: number) {
@@ -131,4 +138,78 @@ export function handle<Args extends unknown[]>(fn: (...args: Args) => Promise<Re
       return Response.json(internal.toResponseBody(), { status: 500 });
     }
   };
+}
+
+/**
+ * Reads one file from a `multipart/form-data` body: 415 unless the body is a form, 413 once the
+ * body passes `maxBytes` plus room for the form's own lines (counted while reading, so neither a
+ * lying Content-Length nor a chunked body makes the server hold more), 400 without the field.
+ * The file's own size is the caller's to check against its limit.
+ */
+export async function readUpload(
+  request: Request,
+  { field, maxBytes, tooLargeMessage }: { field: string; maxBytes: number; tooLargeMessage: string },
+): Promise<File> {
+  const type = request.headers.get("content-type") ?? "";
+  if (!/^multipart\/form-data\b/i.test(type)) {
+    throw new AppError(
+      "unsupported_media_type",
+      `Send the file as a form upload (Content-Type: multipart/form-data) in a field named “${field}”.`,
+    );
+  }
+  const body = await readBody(
+    request,
+    maxBytes + FORM_OVERHEAD_BYTES,
+    () => new AppError("payload_too_large", tooLargeMessage),
+  );
+  let form: FormData;
+  try {
+    form = await new Response(new Uint8Array(body), { headers: { "content-type": type } }).formData();
+  } catch {
+    throw new AppError("bad_request", "The body is not a readable form upload.");
+  }
+  const files = form.getAll(field);
+  const file = files[0];
+  if (files.length !== 1 || typeof file === "string" || file === undefined) {
+    throw new AppError("bad_request", `Send exactly one file, in a form field named “${field}”.`);
+  }
+  return file;
+}
+
+/** A form's boundaries, headers and file name around the file itself. */
+const FORM_OVERHEAD_BYTES = 16 * 1024;
+
+const exportQuerySchema = z.strictObject({
+  format: z.enum(["csv", "json"], "format is csv or json").optional(),
+});
+
+/** A download's format from the query: `?format=csv` (the default) or `?format=json`; 400 for anything else. */
+export function exportFormat(request: Request): "csv" | "json" {
+  return parseWith(exportQuerySchema, Object.fromEntries(new URL(request.url).searchParams), "query").format ?? "csv";
+}
+
+/**
+ * A file to download: its content type, `attachment` with a file name, and caching that keeps a
+ * team's data out of shared caches (`private, no-store`); the public demo may be cached a minute.
+ */
+export function fileResponse({
+  text,
+  format,
+  name,
+  isPublic,
+}: {
+  text: string;
+  format: "csv" | "json";
+  /** Without extension; only letters, digits and dashes (slugs). */
+  name: string;
+  isPublic: boolean;
+}): Response {
+  return new Response(text, {
+    headers: {
+      "content-type": format === "csv" ? "text/csv; charset=utf-8" : "application/json; charset=utf-8",
+      "content-disposition": `attachment; filename="${name}.${format}"`,
+      "cache-control": isPublic ? "public, max-age=60" : "private, no-store",
+      "x-content-type-options": "nosniff",
+    },
+  });
 }

@@ -44,6 +44,8 @@ function describe(e: AuditEntryDto): string {
       return `added the character “${d.name ?? ""}”`;
     case "stance.created":
       return `added the stance “${d.key ?? ""}”`;
+    case "character.imported":
+      return `imported a file into “${d.character ?? ""}” (${d.edition ?? ""}): moves ${d.moves_added ?? 0} added, ${d.moves_changed ?? 0} changed, ${d.moves_removed ?? 0} removed`;
     case "edition.started":
       return `started the Edition “${d.name ?? ""}”${d.from ? ` from ${d.from}` : ""}`;
     case "edition.published":

@@ -11,7 +11,7 @@ import { makeUser } from "../teams/fixtures";
 import { inlineServerActions, missingRows, routeHandlers, routeUrl, serverActions } from "./inventory";
 import { tableChecksums, runOnPrivateDatabase } from "./private-database";
 import { setSession } from "./session-mock";
-import { VIEW, world } from "./world";
+import { characterForm, VIEW, world } from "./world";
 
 // The cross-team matrix: the owner of team B sends team A's ids in every path parameter, query
 // field and body field of every route, and each answer must be the one an id that does not
@@ -93,6 +93,8 @@ interface Call {
   params?: Record<string, string>;
   query?: Record<string, string>;
   body?: Record<string, unknown>;
+  /** A file upload (multipart/form-data) for the character with this slug. */
+  file?: string;
 }
 interface RouteRow {
   /** A call team B's owner may make in their own team, which succeeds; each id below replaces one of its values. */
@@ -179,6 +181,22 @@ const ROUTES: Record<string, Row> = {
     }),
     ids: [GAME, EDITION, CHARACTER],
   },
+  "POST /api/games/[game]/editions/[edition]/characters/[character]/import": {
+    own: (w) => ({
+      params: { game: w.b.game.slug, edition: w.b.edition, character: "b-fighter" },
+      query: { preview: "1" },
+      file: "b-fighter",
+    }),
+    ids: [GAME, EDITION, CHARACTER],
+  },
+  "GET /api/games/[game]/editions/[edition]/characters/[character]/export": {
+    own: (w) => ({ params: { game: w.b.game.slug, edition: w.b.edition, character: "b-fighter" } }),
+    ids: [GAME, EDITION, CHARACTER],
+  },
+  "GET /api/games/[game]/editions/[edition]/export": {
+    own: (w) => ({ params: { game: w.b.game.slug, edition: w.b.edition }, query: { format: "json" } }),
+    ids: [GAME, EDITION],
+  },
   "DELETE /api/permalinks/[slug]": {
     own: (w) => ({ params: { slug: w.b.link.slug } }),
     ids: [{ in: "path", name: "slug", teamA: (w) => w.shared.slug, none: () => randomBytes(18).toString("base64url") }],
@@ -252,6 +270,7 @@ async function send(key: string, call: Call) {
     ...(call.body === undefined
       ? {}
       : { body: JSON.stringify(call.body), headers: { "content-type": "application/json" } }),
+    ...(call.file === undefined ? {} : { body: characterForm(call.file) }),
   });
   const res = await handler(request, { params: Promise.resolve(call.params ?? {}) });
   return { status: res.status, text: await res.text() };

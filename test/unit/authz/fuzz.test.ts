@@ -188,6 +188,13 @@ const ROUTES: Record<string, FuzzRow | { overHttp: string }> = {
   "POST /api/games/[game]/characters": { good: () => ({ name: "Fuzz Fighter", summary: "x" }) },
   "POST /api/games/[game]/editions": { good: () => ({ name: "0.2", releasedOn: "2026-12-01", notes: "x" }) },
   "POST /api/games/[game]/editions/[edition]/publish": {},
+  // Takes a form upload: the fuzzer's JSON and other bodies are refused (415) before anything is read.
+  "POST /api/games/[game]/editions/[edition]/characters/[character]/import": {
+    good: () => ({ file: "row,key\n" }),
+    query: ["preview"],
+  },
+  "GET /api/games/[game]/editions/[edition]/characters/[character]/export": { query: ["format"] },
+  "GET /api/games/[game]/editions/[edition]/export": { query: ["format"] },
   "POST /api/games/[game]/editions/[edition]/characters/[character]/stances": {
     good: () => ({ key: "guard", name: "Low Guard", abbreviation: "LG", notes: "x" }),
   },

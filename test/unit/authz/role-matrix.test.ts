@@ -5,7 +5,7 @@ import { routeHandlers, routeUrl, serverActions, type Action } from "./inventory
 import { nextAddress } from "./headers-mock";
 import { setSession } from "./session-mock";
 import { closeDb } from "@/server/db";
-import { draftOf, VIEW, world, type World } from "./world";
+import { characterForm, draftOf, VIEW, world, type World } from "./world";
 import { ONE_MOVE_PATHS_REQUEST } from "../../fixtures/paths-request";
 
 // Who is signed in for the call under test. Route handlers read the session only through
@@ -32,7 +32,8 @@ interface Case {
   expect: Expected;
 }
 
-type Call = { params?: Record<string, string>; body?: unknown; query?: string };
+/** `form` is sent as multipart/form-data (a file upload), `body` as JSON. */
+type Call = { params?: Record<string, string>; body?: unknown; form?: FormData; query?: string };
 
 const all = (status: number): Expected => ({
   anonymous: status,
@@ -182,6 +183,69 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
       expect: atLeastCoach(201),
     },
   ],
+  "POST /api/games/[game]/editions/[edition]/characters/[character]/import": [
+    {
+      what: "preview a character file against a draft",
+      call: async (w) => ({
+        params: { game: w.teamGame.slug, edition: await draftOf(w), character: "sparring-dummy" },
+        query: "?preview=1",
+        form: characterForm("sparring-dummy"),
+      }),
+      expect: atLeastCoach(200),
+    },
+    {
+      what: "import a character file into a draft",
+      call: async (w) => ({
+        params: { game: w.teamGame.slug, edition: await draftOf(w), character: "sparring-dummy" },
+        form: characterForm("sparring-dummy"),
+      }),
+      expect: atLeastCoach(200),
+    },
+    {
+      what: "import into the published Edition",
+      call: (w) => ({
+        params: { game: w.teamGame.slug, edition: "0-1", character: "sparring-dummy" },
+        form: characterForm("sparring-dummy"),
+      }),
+      expect: atLeastCoach(409),
+    },
+    {
+      what: "import into the demo game (read-only)",
+      call: () => ({
+        params: { game: "vesper-circuit", edition: "1-1", character: "tarrow" },
+        form: characterForm("tarrow", "Tarrow"),
+      }),
+      expect: { ...all(403), anonymous: 401 },
+    },
+  ],
+  "GET /api/games/[game]/editions/[edition]/characters/[character]/export": [
+    // Signed out, a team's game is as unknown as to an outsider.
+    {
+      what: "download a character of the team's game",
+      call: (w) => ({
+        params: { game: w.teamGame.slug, edition: "0-1", character: "sparring-dummy" },
+        query: "?format=json",
+      }),
+      expect: { ...members(200), anonymous: 404 },
+    },
+    {
+      what: "download a character of the demo game",
+      call: () => ({ params: { game: "vesper-circuit", edition: "1-1", character: "tarrow" } }),
+      expect: all(200),
+    },
+  ],
+  "GET /api/games/[game]/editions/[edition]/export": [
+    {
+      what: "download an Edition of the team's game",
+      call: (w) => ({ params: { game: w.teamGame.slug, edition: "0-1" } }),
+      expect: { ...members(200), anonymous: 404 },
+    },
+    {
+      what: "download an Edition of the demo game",
+      call: () => ({ params: { game: "vesper-circuit", edition: "1-1" }, query: "?format=json" }),
+      expect: all(200),
+    },
+  ],
   "POST /api/permalinks": [
     {
       what: "share a view with the team",
@@ -298,7 +362,7 @@ describe("role matrix", () => {
     for (const actor of ACTORS) {
       // A fresh world per caller: a change one caller makes must not decide the next one's answer.
       const w = await world();
-      const { params = {}, body, query = "" } = await c.call(w);
+      const { params = {}, body, form, query = "" } = await c.call(w);
       setSession(userOf(w, actor));
       // Each call from its own address, like the actions above: no route's per-address limit decides a row.
       const from = { "x-forwarded-for": nextAddress() };
@@ -306,6 +370,7 @@ describe("role matrix", () => {
         method,
         headers: body === undefined ? from : { ...from, "content-type": "application/json" },
         ...(body === undefined ? {} : { body: JSON.stringify(body) }),
+        ...(form === undefined ? {} : { body: form }),
       });
       const res = await handler!(request, { params: Promise.resolve(params) });
       got[actor] = res.status;

@@ -1,3 +1,4 @@
+import { exportCharacterCsv } from "@/lib/character-file";
 import type { Role } from "@/lib/roles";
 import { getDb } from "@/server/db";
 import { startEdition } from "@/server/db/queries/authoring";
@@ -98,4 +99,34 @@ export async function draftOf(w: World): Promise<string> {
     input: { name: `Draft ${Math.random().toString(36).slice(2, 8)}` },
   });
   return draft.slug;
+}
+
+/** A character file (CSV) of one move for the character with this slug, as an upload's form. */
+export function characterForm(slug: string, name = "Sparring Dummy"): FormData {
+  const csv = exportCharacterCsv({
+    character: { slug, name, summary: null },
+    stances: [],
+    moves: [
+      {
+        key: "1",
+        input: "1",
+        name: "Jab",
+        level: "high",
+        damage: 5,
+        startup: 10,
+        onBlock: 1,
+        onHit: 8,
+        onCounterHit: 8,
+        range: null,
+        tags: [],
+        notes: null,
+        fromPosture: "standing",
+        stance: null,
+      },
+    ],
+    edges: [],
+  });
+  const form = new FormData();
+  form.set("file", new File([csv], `${slug}.csv`, { type: "text/csv" }));
+  return form;
 }

@@ -20,6 +20,7 @@ export type AuditAction =
   | "game.created"
   | "character.created"
   | "stance.created"
+  | "character.imported"
   | "edition.started"
   | "edition.published";
 

@@ -1,44 +1,14 @@
 import "server-only";
-import { and, asc, eq } from "drizzle-orm";
-import type { GraphEdge, MoveGraph } from "@/lib/engine";
+import { and, eq } from "drizzle-orm";
+import { stanceNodeId, toMoveGraph } from "@/lib/character-file";
+import type { MoveGraph } from "@/lib/engine";
 import type { Starter } from "@/lib/explorer";
 import { getDb } from "../index";
-import { edges, moves, stances } from "../schema";
+import { moves } from "../schema";
+import { loadCharacterRows, portableRows } from "./character-io";
 import type { CancelEntry, MoveEntry, MoveList } from "@/lib/dto";
 
 type Scope = { characterId: number; editionId: number };
-
-/** The rows of one character in one edition: stances, moves in list order, edges. */
-async function loadRows({ characterId, editionId }: Scope) {
-  const db = getDb();
-  const [stanceRows, moveRows, edgeRows] = await Promise.all([
-    db
-      .select({
-        id: stances.id,
-        key: stances.key,
-        name: stances.name,
-        abbreviation: stances.abbreviation,
-        notes: stances.notes,
-      })
-      .from(stances)
-      .where(and(eq(stances.characterId, characterId), eq(stances.editionId, editionId)))
-      .orderBy(asc(stances.id)),
-    db
-      .select()
-      .from(moves)
-      .where(and(eq(moves.characterId, characterId), eq(moves.editionId, editionId)))
-      .orderBy(asc(moves.sort), asc(moves.id)),
-    db
-      .select()
-      .from(edges)
-      .where(and(eq(edges.characterId, characterId), eq(edges.editionId, editionId)))
-      .orderBy(asc(edges.id)),
-  ]);
-  return { stanceRows, moveRows, edgeRows };
-}
-
-/** Node id of a stance in the engine's graph; moves use their key as it is. */
-export const stanceNodeId = (key: string) => `stance:${key}`;
 
 /**
  * One character's frame data in one edition as the engine's graph. Node and
@@ -48,62 +18,19 @@ export const stanceNodeId = (key: string) => `stance:${key}`;
 export async function getCharacterGraph(
   scope: Scope,
 ): Promise<{ graph: MoveGraph; roots: string[]; starters: Starter[] }> {
-  const { stanceRows, moveRows, edgeRows } = await loadRows(scope);
-  const moveKey = new Map(moveRows.map((m) => [m.id, m.key]));
+  const rows = await loadCharacterRows(getDb(), scope);
+  const { stanceRows, moveRows } = rows;
   const stanceKey = new Map(stanceRows.map((s) => [s.id, stanceNodeId(s.key)]));
-  const end = (moveId: number | null, stanceId: number | null) =>
-    (moveId !== null ? moveKey.get(moveId) : stanceId !== null ? stanceKey.get(stanceId) : undefined) ?? "";
-
-  const graphEdges: GraphEdge[] = edgeRows.map((e) => {
-    const base = {
-      id: e.key,
-      from: end(e.fromMoveId, e.fromStanceId),
-      to: end(e.toMoveId, e.toStanceId),
-      input: e.input,
-    };
-    switch (e.kind) {
-      case "follow":
-        return {
-          ...base,
-          kind: "follow",
-          gapOnBlock: e.gapOnBlock ?? 0,
-          comboOnHit: e.comboOnHit ?? false,
-          comboOnCounterHit: e.comboOnCounterHit ?? false,
-        };
-      case "cancel":
-        return {
-          ...base,
-          kind: "cancel",
-          onBlock: e.onBlock ?? 0,
-          onHit: e.onHit ?? 0,
-          onCounterHit: e.onCounterHit ?? 0,
-          autoGuard: e.autoGuard ?? [],
-        };
-      case "enter":
-        return { ...base, kind: "enter" };
-    }
+  const items = portableRows(rows);
+  const mapped = toMoveGraph({
+    character: { slug: "", name: "", summary: null },
+    stances: items.stances.map((s) => s.item),
+    moves: items.moves.map((m) => m.item),
+    edges: items.edges.map((e) => e.item),
   });
-  const graph: MoveGraph = {
-    nodes: [
-      ...moveRows.map((m) => ({
-        id: m.key,
-        kind: "move" as const,
-        input: m.input,
-        name: m.name,
-        level: m.level,
-        damage: m.damage,
-        ...(m.startup === null ? {} : { startup: m.startup }),
-        onBlock: m.onBlock,
-        onHit: m.onHit,
-        onCounterHit: m.onCounterHit,
-        ...(m.range === null ? {} : { range: m.range }),
-        tags: m.tags,
-        ...(m.notes === null ? {} : { notes: m.notes }),
-      })),
-      ...stanceRows.map((s) => ({ id: stanceNodeId(s.key), kind: "stance" as const, name: s.name })),
-    ],
-    edges: graphEdges,
-  };
+  // The file layer's mapping, with each edge's id its row's stored key.
+  const graphEdges = mapped.edges.map((e, i) => ({ ...e, id: items.edges[i]!.key }));
+  const graph: MoveGraph = { nodes: mapped.nodes, edges: graphEdges };
   const reached = new Set(graphEdges.filter((e) => e.kind === "follow").map((e) => e.to));
   const rootRows = moveRows.filter((m) => !reached.has(m.key));
   const starters: Starter[] = rootRows
@@ -122,7 +49,16 @@ export async function getCharacterGraph(
 
 /** A character's frame data in one edition, in move-list order. */
 export async function getMoveList(scope: Scope): Promise<MoveList> {
-  const { stanceRows, moveRows, edgeRows } = await loadRows(scope);
+  const rows = await loadCharacterRows(getDb(), scope);
+  const { moveRows, edgeRows } = rows;
+  const moveItems = portableRows(rows).moves;
+  const stanceRows = rows.stanceRows.map(({ id, key, name, abbreviation, notes }) => ({
+    id,
+    key,
+    name,
+    abbreviation,
+    notes,
+  }));
   const stanceById = new Map(stanceRows.map((s) => [s.id, s]));
   const incoming = new Map<number, MoveEntry["via"]>();
   const cancels: CancelEntry[] = [];
@@ -167,24 +103,16 @@ export async function getMoveList(scope: Scope): Promise<MoveList> {
 
   return {
     stances: stanceRows,
-    moves: moveRows.map((m) => ({
-      id: m.id,
-      key: m.key,
-      input: m.input,
-      name: m.name,
-      level: m.level,
-      damage: m.damage,
-      startup: m.startup,
-      onBlock: m.onBlock,
-      onHit: m.onHit,
-      onCounterHit: m.onCounterHit,
-      range: m.range,
-      tags: m.tags,
-      notes: m.notes,
-      stance: m.stanceId === null ? null : (stanceById.get(m.stanceId) ?? null),
-      via: incoming.get(m.id) ?? null,
-      depth: depthOf(m.id),
-    })),
+    moves: moveRows.map((m, i) => {
+      const { fromPosture: _posture, stance: _stanceKey, ...fields } = moveItems[i]!.item;
+      return {
+        id: m.id,
+        ...fields,
+        stance: m.stanceId === null ? null : (stanceById.get(m.stanceId) ?? null),
+        via: incoming.get(m.id) ?? null,
+        depth: depthOf(m.id),
+      };
+    }),
     cancels,
   };
 }
