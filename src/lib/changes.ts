@@ -1,5 +1,6 @@
 import {
   explorePathsLimited,
+  formatOutcome,
   type BlockClass,
   type ExploreOptions,
   type GraphDiff,
@@ -200,4 +201,62 @@ export function changedPathRows(
       changed: COMPARED.filter((f) => p.changes.some((c) => c.field === f)),
     };
   });
+}
+
+/** How the page names a field of a move, stance or link. */
+export const FIELD_LABEL: Readonly<Record<string, string>> = {
+  input: "input",
+  name: "name",
+  level: "hit level",
+  damage: "damage",
+  startup: "startup",
+  onBlock: "on block",
+  onHit: "on hit",
+  onCounterHit: "on counter hit",
+  range: "range",
+  tags: "tags",
+  notes: "notes",
+  kind: "kind",
+  from: "from",
+  to: "to",
+  gapOnBlock: "gap on block",
+  comboOnHit: "combos on hit",
+  comboOnCounterHit: "combos on counter hit",
+  autoGuard: "auto-guard",
+  blockClass: "block class",
+  naturalCombo: "natural combo",
+  jails: "jails",
+};
+
+const OUTCOME_FIELDS = new Set(["onBlock", "onHit", "onCounterHit"]);
+
+/** A field's value in words: outcomes as the move list writes them, flags as yes/no, lists joined. */
+export function formatFieldValue(field: string, value: unknown): string {
+  if (value === null || value === undefined) return "—";
+  if (OUTCOME_FIELDS.has(field) && (typeof value === "number" || typeof value === "object"))
+    return formatOutcome(value as PathResult["onBlock"]);
+  if (typeof value === "boolean") return value ? "yes" : "no";
+  if (Array.isArray(value)) return value.length === 0 ? "none" : value.map(String).join(", ");
+  if (typeof value === "string") return value === "" ? "(empty)" : value;
+  if (typeof value === "number") return String(value);
+  return JSON.stringify(value);
+}
+
+/** The Editions a comparison may use, newest first, with the one asked for or the default on each side. */
+export function pickEditions<E extends { slug: string }>(
+  editions: readonly E[],
+  wanted: { from?: string; to?: string },
+): { from: E | null; to: E | null; unknown: string[] } {
+  const unknown: string[] = [];
+  const find = (slug: string | undefined) => {
+    if (slug === undefined) return undefined;
+    const found = editions.find((e) => e.slug === slug);
+    if (!found) unknown.push(slug);
+    return found;
+  };
+  const to = find(wanted.to) ?? editions[0] ?? null;
+  // By default, the Edition just before `to`: what that patch changed.
+  const toIndex = to === null ? -1 : editions.indexOf(to);
+  const from = find(wanted.from) ?? editions[toIndex + 1] ?? (toIndex > 0 ? editions[0] : undefined) ?? null;
+  return { from, to, unknown };
 }

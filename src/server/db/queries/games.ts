@@ -20,6 +20,8 @@ export interface EditionSummary {
   slug: string;
   name: string;
   releasedOn: string;
+  /** A draft is still being edited; a published Edition is frozen for good. */
+  status: "draft" | "published";
 }
 
 export interface CharacterSummary {
@@ -62,7 +64,13 @@ export async function getGameBySlug({ slug }: { slug: string }): Promise<GameSum
 /** Newest first: the first edition is the one views default to. */
 export async function listEditions({ gameId }: { gameId: number }): Promise<EditionSummary[]> {
   const rows = await getDb()
-    .select({ id: editions.id, slug: editions.slug, name: editions.name, releasedOn: editions.releasedOn })
+    .select({
+      id: editions.id,
+      slug: editions.slug,
+      name: editions.name,
+      releasedOn: editions.releasedOn,
+      status: editions.status,
+    })
     .from(editions)
     .where(eq(editions.gameId, gameId))
     .orderBy(desc(editions.releasedOn), desc(editions.id));
