@@ -45,7 +45,7 @@ export interface ChangeSummary {
   paths: { added: number; removed: number; changed: number };
   /** Endings whose block class got worse / better for the attacker, or moved to or from a state. */
   endings: { worse: number; better: number; other: number; shifts: ClassShift[] };
-  onHitChanged: number;
+  hitOutcomesChanged: number;
   naturalCombos: { lost: number; gained: number };
   jails: { lost: number; gained: number };
 }
@@ -70,7 +70,7 @@ export function summariseChanges(diff: GraphDiff, before: MoveGraph, after: Move
     links: { added: diff.edges.added.length, removed: diff.edges.removed.length, changed: diff.edges.changed.length },
     paths: { added: 0, removed: 0, changed: 0 },
     endings: { worse: 0, better: 0, other: 0, shifts: [] },
-    onHitChanged: 0,
+    hitOutcomesChanged: 0,
     naturalCombos: { lost: 0, gained: 0 },
     jails: { lost: 0, gained: 0 },
   };
@@ -89,7 +89,7 @@ export function summariseChanges(diff: GraphDiff, before: MoveGraph, after: Move
         const shift = shifts.get(key);
         if (shift) shift.count += 1;
         else shifts.set(key, { from, to, count: 1 });
-      } else if (change.field === "onHit") summary.onHitChanged += 1;
+      } else if (change.field === "onHit") summary.hitOutcomesChanged += 1;
       else if (change.field === "naturalCombo") summary.naturalCombos[change.after === true ? "gained" : "lost"] += 1;
       else if (change.field === "jails") summary.jails[change.after === true ? "gained" : "lost"] += 1;
     }
@@ -119,7 +119,7 @@ export function summaryPhrases(s: ChangeSummary): string[] {
       `${plural(shift.count, `ending that was ${shift.from} is`, `endings that were ${shift.from} are`)} now ${shift.to}`,
     );
   }
-  if (s.onHitChanged > 0) out.push(`${plural(s.onHitChanged, "path", "paths")} with a new outcome on hit`);
+  if (s.hitOutcomesChanged > 0) out.push(`${plural(s.hitOutcomesChanged, "path", "paths")} with a new outcome on hit`);
   if (s.naturalCombos.lost > 0) out.push(`${plural(s.naturalCombos.lost, "natural combo", "natural combos")} lost`);
   if (s.naturalCombos.gained > 0)
     out.push(`${plural(s.naturalCombos.gained, "natural combo", "natural combos")} gained`);
