@@ -9,9 +9,7 @@ import { signUpAs } from "./pages/team-pages";
 
 const velka = "/games/vesper-circuit/velka";
 
-async function pathRows(page: Page) {
-  return page.getByTestId("changed-paths").locator("tbody tr");
-}
+const pathRows = (page: Page) => page.getByTestId("changed-paths").locator("tbody tr");
 
 test("a player reads what 1-1 changed for Velka, sorts and filters the paths, and opens one in the Explorer", async ({
   page,
@@ -29,6 +27,11 @@ test("a player reads what 1-1 changed for Velka, sorts and filters the paths, an
   await expect(summary).toContainText(/natural combos? gained/);
   await expect(summary).toContainText(/now jails?/);
 
+  // On a phone the table scrolls in its own box; the page itself never scrolls sideways.
+  expect(await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)).toBe(
+    0,
+  );
+
   // The link itself, field by field.
   const link = page.getByTestId("changes-link").locator("li").first();
   await expect(link).toContainText("4,4");
@@ -36,7 +39,7 @@ test("a player reads what 1-1 changed for Velka, sorts and filters the paths, an
   await expect(link.locator('[data-field="gapOnBlock"]')).toContainText("0");
   await expect(link.locator('[data-field="comboOnHit"]')).toContainText(/no\s*→?\s*becomes\s*yes|no.*yes/);
 
-  const rows = await pathRows(page);
+  const rows = pathRows(page);
   const count = await rows.count();
   expect(count).toBeGreaterThan(1);
   const inputs = () => rows.locator('td[data-field="input"]').allInnerTexts();

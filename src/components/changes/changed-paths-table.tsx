@@ -260,7 +260,7 @@ export function ChangedPathsTable({
           Clear filters
         </button>
       </FilterForm>
-      <div className="overflow-x-auto rounded-lg border border-ink-800 bg-ink-900">
+      <div className="relative overflow-x-auto rounded-lg border border-ink-800 bg-ink-900">
         {shownRows.length === 0 ? (
           <NoRows message="No changed path matches these filters." onClear={clear} />
         ) : (
