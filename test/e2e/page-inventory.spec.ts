@@ -122,6 +122,26 @@ const PAGES: Record<string, Target[]> = {
     // A key with a broken escape (%E0 alone): "not found", not an error page.
     { what: "a move whose address is broken", path: "/games/vesper-circuit/tarrow/explore/%25E0", expect: all(404) },
   ],
+  "(app)/games/[game]/[character]/changes/page.tsx": [
+    {
+      // Team A's game has one Edition, a draft: its members read "nothing to compare" and the name.
+      what: "what changed for team A's character",
+      path: `${privateCharacter}/changes`,
+      expect: membersOnly(),
+      membersSee: ["character"],
+    },
+    { what: "what changed for a public character", path: "/games/vesper-circuit/tarrow/changes", expect: all(200) },
+    {
+      what: "what changed between Editions that do not exist",
+      path: "/games/vesper-circuit/tarrow/changes?from=no-such&to=%25E0&page=x",
+      expect: all(200),
+    },
+    {
+      what: "what changed for a character that does not exist",
+      path: "/games/vesper-circuit/nobody/changes",
+      expect: all(404),
+    },
+  ],
   "(app)/teams/page.tsx": [
     // The outsider's list has their own team only.
     { what: "my teams", path: "/teams", expect: signedIn, membersSee: ["team"] },

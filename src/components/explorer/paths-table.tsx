@@ -4,15 +4,15 @@ import { useVirtualizer, type Virtualizer } from "@tanstack/react-virtual";
 import { memo, useEffect, useMemo, useRef, useState, type JSX, type KeyboardEvent } from "react";
 import {
   createColumnHelper,
-  createSortedRowModel,
-  rowSortingFeature,
-  tableFeatures,
   useTable,
   FlexRender,
   type Row,
   type SortFn,
   type SortingState,
 } from "@tanstack/react-table";
+import { FilterForm, NoRows, ShownCount } from "@/components/ui/filter-form";
+import { SortableHeading } from "@/components/ui/sort-button";
+import { sortingFeatures } from "@/components/ui/sorting-features";
 import { BLOCK_CLASS_STYLE, type BlockRules } from "@/components/ui/block-class";
 import { Frames } from "@/components/ui/frames";
 import { LevelBadge } from "@/components/ui/level-badge";
@@ -46,7 +46,7 @@ const ROW_HEIGHT = 29;
 /** Rows drawn beyond each edge of the box, so a quick scroll does not show blanks. */
 const OVERSCAN = 8;
 
-const features = tableFeatures({ rowSortingFeature, sortedRowModel: createSortedRowModel() });
+const features = sortingFeatures;
 type PathRowModel = Row<typeof features, PathResult>;
 type Features = typeof features;
 const col = createColumnHelper<Features, PathResult>();
@@ -193,9 +193,6 @@ const HEADER_HINT: Partial<Record<string, string>> = {
   gaps: "Steps on block where the defender is free before the next hit",
 };
 
-const ARIA_SORT = { asc: "ascending", desc: "descending" } as const;
-const ARROW = { asc: "▲", desc: "▼" } as const;
-
 const classOption = (cls: BlockClass) => (cls === "state" ? "state (no number)" : BLOCK_CLASS_WORD[cls]);
 
 const control = "rounded border border-ink-700 bg-ink-900 px-1.5 py-0.5 text-ink-100";
@@ -280,17 +277,10 @@ export const PathsTable = memo(function PathsTable(props: {
         <h2 id="paths-table-title" className="text-xs tracking-wider text-ink-400 uppercase">
           All paths from this root
         </h2>
-        <p className="text-xs text-ink-400" aria-live="polite" data-testid="paths-count">
-          <span className="font-mono text-ink-200">{data.length}</span> of{" "}
-          <span className="font-mono text-ink-200">{paths.length}</span> paths
-        </p>
+        <ShownCount shown={data.length} of={paths.length} testId="paths-count"></ShownCount>
       </div>
 
-      <form
-        aria-label="Filter paths"
-        className="flex flex-wrap items-center gap-x-4 gap-y-2 text-sm"
-        onSubmit={(e) => e.preventDefault()}
-      >
+      <FilterForm label="Filter paths">
         <label className="flex items-center gap-2">
           <span className="text-ink-400">Ending class</span>
           <select
@@ -359,7 +349,7 @@ export const PathsTable = memo(function PathsTable(props: {
         >
           Clear filters
         </button>
-      </form>
+      </FilterForm>
 
       {selectedKey !== null && selectedIndex < 0 && data.length > 0 && (
         <p className="text-xs text-ink-400">The selected path is filtered out of this list.</p>
@@ -370,18 +360,10 @@ export const PathsTable = memo(function PathsTable(props: {
         className="max-h-96 overflow-auto rounded-lg border border-ink-800 bg-ink-900 [contain:content]"
       >
         {rows.length === 0 ? (
-          <div className="flex flex-col items-start gap-2 p-4 text-sm text-ink-300" role="status">
-            <p>{filtered ? "No path matches these filters" : "No paths from this root"}</p>
-            {filtered && (
-              <button
-                type="button"
-                onClick={clear}
-                className="rounded border border-accent-muted px-2 py-0.5 text-xs text-accent hover:border-accent"
-              >
-                Clear filters
-              </button>
-            )}
-          </div>
+          <NoRows
+            message={filtered ? "No path matches these filters" : "No paths from this root"}
+            onClear={filtered ? clear : undefined}
+          />
         ) : (
           <table
             className="min-w-full border-separate border-spacing-0 text-sm"
@@ -395,34 +377,18 @@ export const PathsTable = memo(function PathsTable(props: {
                     const id = header.column.id;
                     // The class word sits under the "On block" heading, which spans both cells.
                     if (id === "blockClass") return null;
-                    const sorted = header.column.getIsSorted();
-                    const canSort = header.column.getCanSort();
                     const base =
                       "sticky top-0 whitespace-nowrap border-b border-ink-700 bg-ink-900 px-2 py-1.5 text-left text-xs font-medium text-ink-400";
                     return (
-                      <th
+                      <SortableHeading
                         key={header.id}
-                        scope="col"
+                        column={header.column}
                         colSpan={id === "onBlock" ? 2 : undefined}
-                        aria-sort={canSort ? (sorted ? ARIA_SORT[sorted] : "none") : undefined}
                         title={HEADER_HINT[id]}
                         className={`${base} ${id === "input" ? "left-0 z-20" : "z-10"}`}
                       >
-                        {canSort ? (
-                          <button
-                            type="button"
-                            onClick={header.column.getToggleSortingHandler()}
-                            className={`inline-flex items-center gap-1 rounded hover:text-ink-100 focus-visible:outline focus-visible:outline-1 focus-visible:outline-accent ${sorted ? "text-ink-100" : ""}`}
-                          >
-                            <table.FlexRender header={header} />
-                            <span aria-hidden="true" className={sorted ? "text-accent" : "text-ink-600"}>
-                              {sorted ? ARROW[sorted] : "↕"}
-                            </span>
-                          </button>
-                        ) : (
-                          <table.FlexRender header={header} />
-                        )}
-                      </th>
+                        <table.FlexRender header={header} />
+                      </SortableHeading>
                     );
                   })}
                 </tr>

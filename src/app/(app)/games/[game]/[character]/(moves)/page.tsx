@@ -58,6 +58,17 @@ export default async function CharacterPage({ params, searchParams }: Props) {
           ))}
         </nav>
       </header>
+      {editions.length > 1 && (
+        <p className="text-sm">
+          <Link
+            href={`/games/${game.slug}/${character.slug}/changes${
+              editions.indexOf(edition) < editions.length - 1 ? `?to=${edition.slug}` : ""
+            }`}
+          >
+            What changed for {character.name} in {edition.name} →
+          </Link>
+        </p>
+      )}
       {unknownEdition && (
         <p role="status" className="rounded border border-block-punishable/50 px-3 py-2 text-sm text-block-punishable">
           No Edition named “{String(wanted)}”: showing {edition.name}, the newest.
