@@ -24,7 +24,8 @@ export interface ErrorIssue {
 }
 
 export interface ErrorBody {
-  error: { code: ErrorCode; message: string; issues?: ErrorIssue[] };
+  /** `current`: on a save based on an old version, the row as it is now, to show beside the editor's. */
+  error: { code: ErrorCode; message: string; issues?: ErrorIssue[]; current?: unknown };
 }
 
 export class AppError extends Error {
@@ -57,6 +58,23 @@ export class AppError extends Error {
     }
     const code = (Object.entries(ERROR_STATUS).find(([, s]) => s === status)?.[0] ?? "internal") as ErrorCode;
     return new AppError(code, `The server answered ${status}.`);
+  }
+}
+
+/**
+ * A save based on a version that is no longer the row's (someone saved in between): 409, with the
+ * row as it is now, so the editor can show theirs and the other's side by side and choose.
+ */
+export class VersionConflict extends AppError {
+  constructor(
+    message: string,
+    readonly current: unknown,
+  ) {
+    super("conflict", message);
+  }
+
+  override toResponseBody(): ErrorBody {
+    return { error: { code: this.code, message: this.message, current: this.current } };
   }
 }
 

@@ -48,6 +48,8 @@ function describe(e: AuditEntryDto): string {
       return `imported a file into “${d.character ?? ""}” (${d.edition ?? ""}): moves ${d.moves_added ?? 0} added, ${d.moves_changed ?? 0} changed, ${d.moves_removed ?? 0} removed`;
     case "edition.started":
       return `started the Edition “${d.name ?? ""}”${d.from ? ` from ${d.from}` : ""}`;
+    case "move.changed":
+      return `changed ${d.fields ?? "a move"} of the move ${d.move ?? ""}`;
     case "edition.published":
       return `published the Edition “${d.name ?? ""}”`;
     default:

@@ -9,6 +9,7 @@ import { POST as createTeam } from "@/app/api/teams/route";
 import { POST as createGame } from "@/app/api/teams/[team]/games/route";
 import { POST as createCharacter } from "@/app/api/games/[game]/characters/route";
 import { POST as startEdition } from "@/app/api/games/[game]/editions/route";
+import { PATCH as saveMove } from "@/app/api/games/[game]/editions/[edition]/characters/[character]/moves/[move]/route";
 import { setSession } from "./session-mock";
 import { closeDb, getDb } from "@/server/db";
 import { listMembers, listMyTeams } from "@/server/db/queries/teams";
@@ -124,6 +125,13 @@ const ROUTES: BodyRoute[] = [
     good: () => ({ name: "0.2", releasedOn: "2026-12-01" }),
     text: ["name", "releasedOn"],
     stored: storedOfGames,
+  },
+  {
+    name: "PATCH /api/games/[game]/editions/[edition]/characters/[character]/moves/[move]",
+    handler: saveMove as Handler,
+    params: (w) => ({ game: w.teamGame.slug, edition: "0-1", character: "sparring-dummy", move: "1" }),
+    good: () => ({ version: 1, changes: { damage: 12 } }),
+    text: [],
   },
 ];
 

@@ -6,12 +6,12 @@ import { createCharacter, createGame, publishEdition } from "@/server/db/queries
 import { createPermalink } from "@/server/db/queries/permalinks";
 import { createTeam } from "@/server/db/queries/teams";
 import { getDb } from "@/server/db";
-import { memberships } from "@/server/db/schema";
+import { memberships, moves } from "@/server/db/schema";
 import { makeUser } from "../teams/fixtures";
 import { inlineServerActions, missingRows, routeHandlers, routeUrl, serverActions } from "./inventory";
 import { tableChecksums, runOnPrivateDatabase } from "./private-database";
 import { setSession } from "./session-mock";
-import { characterForm, VIEW, world } from "./world";
+import { characterForm, oneMove, VIEW, world } from "./world";
 
 // The cross-team matrix: the owner of team B sends team A's ids in every path parameter, query
 // field and body field of every route, and each answer must be the one an id that does not
@@ -60,7 +60,10 @@ async function crossWorld() {
   // Edition is published, so the next one can be started.
   const asB = { teamId: b.id, actorId: w.people.outsider.id };
   const bGame = await createGame({ ...asB, input: { name: `B Game ${b.slug.slice(-6)}` } });
-  await createCharacter({ ...asB, gameId: bGame.game.id, input: { name: "B Fighter" } });
+  const bFighter = await createCharacter({ ...asB, gameId: bGame.game.id, input: { name: "B Fighter" } });
+  await getDb()
+    .insert(moves)
+    .values(oneMove(bGame.edition.id, bFighter.id, "b1"));
   const bDone = await createGame({ ...asB, input: { name: `B Done ${b.slug.slice(-6)}` } });
   await publishEdition({ ...asB, gameId: bDone.game.id, editionId: bDone.edition.id });
   return {
@@ -113,6 +116,7 @@ const noSlug = () => `none-${randomBytes(4).toString("hex")}`;
 const GAME: IdField = { in: "path", name: "game", teamA: (w) => w.teamGame.slug, none: noSlug };
 // Team A's Edition and character, named by their slugs, which B's game does not have.
 const EDITION: IdField = { in: "path", name: "edition", teamA: () => "0-1", none: () => "9-9" };
+const MOVE: IdField = { in: "path", name: "move", teamA: () => "1", none: () => "no-such-move" };
 const CHARACTER: IdField = { in: "path", name: "character", teamA: () => "sparring-dummy", none: noSlug };
 const teamRoute = (own: (w: CrossWorld) => Call = (w) => ({ params: { team: w.b.team.slug } })): RouteRow => ({
   own,
@@ -196,6 +200,13 @@ const ROUTES: Record<string, Row> = {
   "GET /api/games/[game]/editions/[edition]/export": {
     own: (w) => ({ params: { game: w.b.game.slug, edition: w.b.edition }, query: { format: "json" } }),
     ids: [GAME, EDITION],
+  },
+  "PATCH /api/games/[game]/editions/[edition]/characters/[character]/moves/[move]": {
+    own: (w) => ({
+      params: { game: w.b.game.slug, edition: w.b.edition, character: "b-fighter", move: "b1" },
+      body: { version: 1, changes: { damage: 14 } },
+    }),
+    ids: [GAME, EDITION, CHARACTER, MOVE],
   },
   "DELETE /api/permalinks/[slug]": {
     own: (w) => ({ params: { slug: w.b.link.slug } }),

@@ -84,6 +84,7 @@ const REFS = {
   teamGameSlug: () => w.teamGame.slug,
   teamEdition: () => "0-1",
   teamCharacterSlug: () => "sparring-dummy",
+  teamMoveKey: () => "1",
   demoCharacterId: () => w.demoCharacterId,
   edition: () => "1-1",
   role: () => "viewer",
@@ -129,6 +130,7 @@ const PARAM_REFS: Record<string, Ref["ref"][]> = {
   game: ["teamGameSlug"],
   edition: ["teamEdition", "edition"],
   character: ["teamCharacterSlug"],
+  move: ["teamMoveKey"],
 };
 const param = (name: string): fc.Arbitrary<Text> =>
   PARAM_REFS[name]
@@ -188,6 +190,9 @@ const ROUTES: Record<string, FuzzRow | { overHttp: string }> = {
   "POST /api/games/[game]/characters": { good: () => ({ name: "Fuzz Fighter", summary: "x" }) },
   "POST /api/games/[game]/editions": { good: () => ({ name: "0.2", releasedOn: "2026-12-01", notes: "x" }) },
   "POST /api/games/[game]/editions/[edition]/publish": {},
+  "PATCH /api/games/[game]/editions/[edition]/characters/[character]/moves/[move]": {
+    good: () => ({ version: 1, changes: { damage: 12, onBlock: -4, name: "Poke", tags: ["poke"] } }),
+  },
   // Takes a form upload: the fuzzer's JSON and other bodies are refused (415) before anything is read.
   "POST /api/games/[game]/editions/[edition]/characters/[character]/import": {
     good: () => ({ file: "row,key\n" }),

@@ -246,6 +246,16 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
       expect: all(200),
     },
   ],
+  "PATCH /api/games/[game]/editions/[edition]/characters/[character]/moves/[move]": [
+    {
+      what: "save a move in a draft",
+      call: async (w) => ({
+        params: { game: w.teamGame.slug, edition: await draftOf(w), character: "sparring-dummy", move: "1" },
+        body: { version: 1, changes: { onBlock: -6 } },
+      }),
+      expect: atLeastCoach(200),
+    },
+  ],
   "POST /api/permalinks": [
     {
       what: "share a view with the team",

@@ -1,3 +1,4 @@
+import { eq } from "drizzle-orm";
 import { exportCharacterCsv } from "@/lib/character-file";
 import type { Role } from "@/lib/roles";
 import { getDb } from "@/server/db";
@@ -6,7 +7,7 @@ import { getCharacterBySlug, getGameBySlug } from "@/server/db/queries/games";
 import { createInvite } from "@/server/db/queries/invites";
 import { createPermalink } from "@/server/db/queries/permalinks";
 import { createTeam } from "@/server/db/queries/teams";
-import { characters, editions, games, memberships } from "@/server/db/schema";
+import { characters, editions, games, memberships, moves } from "@/server/db/schema";
 import { makeUser } from "../teams/fixtures";
 
 export const VIEW = {
@@ -15,6 +16,24 @@ export const VIEW = {
   options: { maxDepth: 8, maxStanceVisits: 1, fastest: 10 },
   opponent: null,
 };
+
+/** A move row to write into a draft Edition: a mid poke, -2 on block. */
+export function oneMove(editionId: number, characterId: number, key: string) {
+  return {
+    editionId,
+    characterId,
+    key,
+    input: key,
+    name: `Poke ${key}`,
+    level: "mid" as const,
+    damage: 10,
+    startup: 12,
+    onBlock: -2,
+    onHit: 3,
+    onCounterHit: 5,
+    tags: [],
+  };
+}
 
 /** One team with a member of each role, another team owned by the outsider, and what the routes act on. */
 export async function world() {
@@ -44,26 +63,26 @@ export async function world() {
     email: `invitee-${people.owner.id.slice(0, 8)}@example.test`,
     role: "player",
   });
-  // A game of the team's own, with one character and one published Edition.
+  // A game of the team's own, with one character and one published Edition holding one move.
+  const db = getDb();
   const teamGameSlug = `team-game-${people.owner.id.slice(0, 8)}`;
-  const [game] = await getDb()
+  const [game] = await db
     .insert(games)
     .values({ slug: teamGameSlug, name: "Team Game", teamId: team.id })
     .$returningId();
-  await getDb()
+  const [edition] = await db
     .insert(editions)
-    .values({
-      gameId: game!.id,
-      slug: "0-1",
-      name: "0.1",
-      releasedOn: new Date("2026-10-01"),
-      status: "published",
-      publishedAt: new Date("2026-10-01"),
-    });
-  const [character] = await getDb()
+    .values({ gameId: game!.id, slug: "0-1", name: "0.1", releasedOn: new Date("2026-10-01") })
+    .$returningId();
+  const [character] = await db
     .insert(characters)
     .values({ gameId: game!.id, slug: "sparring-dummy", name: "Sparring Dummy" })
     .$returningId();
+  await db.insert(moves).values(oneMove(edition!.id, character!.id, "1"));
+  await db
+    .update(editions)
+    .set({ status: "published", publishedAt: new Date("2026-10-01") })
+    .where(eq(editions.id, edition!.id));
   // A link the player shared from the public demo game.
   const demo = await getGameBySlug({ slug: "vesper-circuit" });
   const tarrow = demo && (await getCharacterBySlug({ gameId: demo.id, slug: "tarrow" }));

@@ -22,7 +22,8 @@ export type AuditAction =
   | "stance.created"
   | "character.imported"
   | "edition.started"
-  | "edition.published";
+  | "edition.published"
+  | "move.changed";
 
 /** Records who did what in a team. Call it with the transaction that makes the change. */
 export async function recordAudit(
