@@ -6,7 +6,7 @@ import { getDb } from "../index";
 import { moves, stances } from "../schema";
 import { lockDraft } from "./authoring";
 import { recordAudit } from "./audit";
-import { fieldChanges } from "./character-io";
+import { fieldChanges, portableRows } from "./character-io";
 
 /** What a coach may change on a move in one save: any of its fields but its key and stance. */
 export const moveChangesSchema = portableMoveSchema.in.omit({ key: true, stance: true }).partial().strict();
@@ -73,30 +73,9 @@ export async function saveMove({
   });
 }
 
-/** A move row as the editor sees it: its fields as a file carries them, and its version. */
+/** A move row as the editor sees it: its fields as a file carries them (the one mapping, portableRows), and its version. */
 async function editable(tx: Parameters<typeof lockDraft>[0], row: typeof moves.$inferSelect): Promise<EditableMove> {
-  const [stance] =
-    row.stanceId === null
-      ? []
-      : await tx.select({ key: stances.key }).from(stances).where(eq(stances.id, row.stanceId));
-  return {
-    key: row.key,
-    version: row.version,
-    move: {
-      key: row.key,
-      input: row.input,
-      name: row.name,
-      level: row.level,
-      damage: row.damage,
-      startup: row.startup,
-      onBlock: row.onBlock,
-      onHit: row.onHit,
-      onCounterHit: row.onCounterHit,
-      range: row.range,
-      tags: row.tags,
-      notes: row.notes,
-      fromPosture: row.fromPosture,
-      stance: stance?.key ?? null,
-    },
-  };
+  const stanceRows = row.stanceId === null ? [] : await tx.select().from(stances).where(eq(stances.id, row.stanceId));
+  const [move] = portableRows({ stanceRows, moveRows: [row], edgeRows: [] }).moves;
+  return { key: row.key, version: row.version, move: move!.item };
 }
