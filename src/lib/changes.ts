@@ -1,4 +1,5 @@
 import {
+  blockClassTrend,
   explorePathsLimited,
   formatOutcome,
   type BlockClass,
@@ -13,23 +14,6 @@ import {
  * The "What changed" page's words about a diff (DESIGN.md, "Editions over time"): counts of
  * what moved between two Editions of one character, and the sentence that says them.
  */
-
-/** Block classes from best to worst for the attacker; `state` has no rank (a knockdown is not "safer" than -5). */
-const RANK: Partial<Record<BlockClass, number>> = {
-  plus: 0,
-  even: 1,
-  safe: 2,
-  punishable: 3,
-  "launch-punishable": 4,
-};
-
-/** -1: the new class is better for the attacker, 1: worse, 0: neither is a number's class. */
-export function blockClassTrend(before: BlockClass, after: BlockClass): -1 | 0 | 1 {
-  const a = RANK[before];
-  const b = RANK[after];
-  if (a === undefined || b === undefined || a === b) return 0;
-  return b > a ? 1 : -1;
-}
 
 export interface ClassShift {
   from: BlockClass;

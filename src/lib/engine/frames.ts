@@ -38,6 +38,23 @@ export function classifyBlock(
   return classifyFrames(outcomeFrames(onBlock), fastest, launchAt);
 }
 
+/** Block classes from best to worst for the attacker; `state` has no rank (a knockdown is not "safer" than -5). */
+const BLOCK_CLASS_RANK: Partial<Record<BlockClass, number>> = {
+  plus: 0,
+  even: 1,
+  safe: 2,
+  punishable: 3,
+  "launch-punishable": 4,
+};
+
+/** -1: the new class is better for the attacker, 1: worse, 0: neither is a number's class. */
+export function blockClassTrend(before: BlockClass, after: BlockClass): -1 | 0 | 1 {
+  const a = BLOCK_CLASS_RANK[before];
+  const b = BLOCK_CLASS_RANK[after];
+  if (a === undefined || b === undefined || a === b) return 0;
+  return b > a ? 1 : -1;
+}
+
 /**
  * Frames a stance cancel saves on block: the cancel's advantage minus the advantage of
  * stopping at the hit it ends (`cancel.onBlock - lastMove.onBlock`). Null unless both are

@@ -9,6 +9,7 @@ export { diffGraphs } from "./diff";
 export { compileGraph, type CompiledGraph, EngineInputError } from "./compile";
 export {
   classifyBlock,
+  blockClassTrend,
   classifyFrames,
   followUp,
   framesSaved,

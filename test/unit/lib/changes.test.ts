@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { blockClassTrend, changedPathRows, summariseChanges, summaryPhrases } from "../../../src/lib/changes";
+import { changedPathRows, summariseChanges, summaryPhrases } from "../../../src/lib/changes";
+import { blockClassTrend } from "../../../src/lib/engine";
 import { diffGraphs, type MoveGraph } from "../../../src/lib/engine";
 import { cancel, follow, move, stance } from "../engine/fixtures";
 
