@@ -1,4 +1,5 @@
 import "server-only";
+import type { EditScope } from "@/server/db/queries/character-edits";
 import { AppError } from "@/lib/errors";
 import type { Role } from "@/lib/roles";
 import { auth, type SessionUser } from "./auth";
@@ -76,4 +77,15 @@ export async function editionOf(gameId: number, slug: string): Promise<{ id: num
   const edition = (await listEditions({ gameId })).find((e) => e.slug === slug);
   if (!edition) throw new AppError("not_found", "No such Edition of this game.");
   return edition;
+}
+
+/** The character of an Edition a request names, loaded for a change (`loadGameForEdit`'s checks first). */
+export async function characterForEdit(
+  params: { game: string; edition: string; character: string },
+  user: SessionUser,
+): Promise<EditScope> {
+  const { game } = await loadGameForEdit({ slug: params.game, user });
+  const edition = await editionOf(game.id, params.edition);
+  const character = await characterOf(game.id, params.character);
+  return { teamId: game.teamId, gameId: game.id, editionId: edition.id, characterId: character.id, actorId: user.id };
 }

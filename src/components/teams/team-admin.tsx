@@ -50,6 +50,16 @@ function describe(e: AuditEntryDto): string {
       return `started the Edition “${d.name ?? ""}”${d.from ? ` from ${d.from}` : ""}`;
     case "move.changed":
       return `changed ${d.fields ?? "a move"} of the move ${d.move ?? ""}`;
+    case "move.added":
+      return `added the move ${d.move ?? ""}${d.from ? ` after ${d.from}` : ""}`;
+    case "move.deleted":
+      return `deleted the move ${d.move ?? ""}${Number(d.moves_with_it ?? 0) > 0 ? ` and ${d.moves_with_it} move(s) reached only through it` : ""}`;
+    case "edge.added":
+      return `added a ${d.kind ?? ""} link from ${d.from ?? ""} to ${d.to ?? ""}`;
+    case "edge.changed":
+      return `changed ${d.fields ?? "a link"} of the link ${d.edge ?? ""}`;
+    case "edge.deleted":
+      return `deleted the link ${d.edge ?? ""}`;
     case "edition.published":
       return `published the Edition “${d.name ?? ""}”`;
     default:

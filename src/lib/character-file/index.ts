@@ -27,7 +27,11 @@ export {
   orderEdges,
   stanceNodeId,
   toMoveGraph,
+  keySchema,
+  portableCancelSchema,
   portableEdgeSchema,
+  portableEnterSchema,
+  portableFollowSchema,
   portableMoveSchema,
   portableStanceSchema,
   characterInfoSchema,
@@ -50,6 +54,7 @@ export {
   type CsvStep,
 } from "./csv";
 export { MAX_JSON_DEPTH } from "./json";
+export { validateCharacter } from "./validate";
 export { decodeText, encodingProblem, sizeProblem };
 export {
   createCsvReader,

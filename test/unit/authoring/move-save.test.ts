@@ -3,46 +3,33 @@ import { afterAll, beforeAll, describe, expect, test, vi } from "vitest";
 import { PATCH } from "@/app/api/games/[game]/editions/[edition]/characters/[character]/moves/[move]/route";
 import { closeDb, getDb } from "@/server/db";
 import { listAudit } from "@/server/db/queries/audit";
-import { createCharacter, createGame, publishEdition } from "@/server/db/queries/authoring";
-import { createTeam } from "@/server/db/queries/teams";
-import { memberships, moves, teams } from "@/server/db/schema";
+import { publishEdition } from "@/server/db/queries/authoring";
+import { moves } from "@/server/db/schema";
 import { asUser } from "../teams/parallel-session";
+import { twoCoachesAndADraft, type TwoCoaches } from "./two-coaches";
 import { oneMove } from "../authz/world";
-import { makeUser } from "../teams/fixtures";
 
 // Two coaches edit one move of a draft: the save based on the version both read wins once; the
 // other gets 409 with the winner's values, and nothing of the winner's is lost.
 
 vi.mock("@/server/auth", () => import("../teams/parallel-session"));
 
-const ctx = {
-  teamId: 0,
-  game: { id: 0, slug: "" },
-  edition: { id: 0, slug: "" },
-  characterId: 0,
-  coaches: [] as { id: string; email: string; name: string }[],
-};
+let ctx: TwoCoaches;
 
 beforeAll(async () => {
-  const coaches = [await makeUser("coach-a"), await makeUser("coach-b")];
-  const team = await createTeam({ name: "Two Editors", ownerId: coaches[0]!.id });
-  await getDb().insert(memberships).values({ teamId: team.id, userId: coaches[1]!.id, role: "coach" });
-  const made = await createGame({ teamId: team.id, actorId: coaches[0]!.id, input: { name: "Race Game" } });
-  const character = await createCharacter({
-    teamId: team.id,
-    gameId: made.game.id,
-    actorId: coaches[0]!.id,
-    input: { name: "Vell" },
+  ctx = await twoCoachesAndADraft({
+    team: "Two Editors",
+    game: "Race Game",
+    character: "Vell",
+    users: ["coach-a", "coach-b"],
   });
   await getDb()
     .insert(moves)
-    .values(oneMove(made.edition.id, character.id, "2"));
-  Object.assign(ctx, { teamId: team.id, game: made.game, edition: made.edition, characterId: character.id, coaches });
+    .values(oneMove(ctx.edition.id, ctx.characterId, "2"));
 });
 
 afterAll(async () => {
-  const db = getDb();
-  await db.delete(teams).where(eq(teams.id, ctx.teamId));
+  await ctx.remove();
   await closeDb();
 });
 

@@ -10,11 +10,14 @@ import { POST as createGame } from "@/app/api/teams/[team]/games/route";
 import { POST as createCharacter } from "@/app/api/games/[game]/characters/route";
 import { POST as startEdition } from "@/app/api/games/[game]/editions/route";
 import { PATCH as saveMove } from "@/app/api/games/[game]/editions/[edition]/characters/[character]/moves/[move]/route";
+import { POST as addMove } from "@/app/api/games/[game]/editions/[edition]/characters/[character]/moves/route";
+import { POST as addEdge } from "@/app/api/games/[game]/editions/[edition]/characters/[character]/edges/route";
+import { PATCH as saveEdge } from "@/app/api/games/[game]/editions/[edition]/characters/[character]/edges/[edge]/route";
 import { setSession } from "./session-mock";
 import { closeDb, getDb } from "@/server/db";
 import { listMembers, listMyTeams } from "@/server/db/queries/teams";
 import { auditLog, characters, editions, games, invites, permalinks, users } from "@/server/db/schema";
-import { VIEW, world, type World } from "./world";
+import { VIEW, world, type World, newLink, newFollowUp } from "./world";
 
 vi.mock("@/server/auth", () => import("./session-mock"));
 vi.mock("@/server/mail", async (original) => ({
@@ -131,6 +134,27 @@ const ROUTES: BodyRoute[] = [
     handler: saveMove as Handler,
     params: (w) => ({ game: w.teamGame.slug, edition: "0-1", character: "sparring-dummy", move: "1" }),
     good: () => ({ version: 1, changes: { damage: 12 } }),
+    text: [],
+  },
+  {
+    name: "POST /api/games/[game]/editions/[edition]/characters/[character]/moves",
+    handler: addMove as Handler,
+    params: (w) => ({ game: w.teamGame.slug, edition: "0-1", character: "sparring-dummy" }),
+    good: newFollowUp,
+    text: [],
+  },
+  {
+    name: "POST /api/games/[game]/editions/[edition]/characters/[character]/edges",
+    handler: addEdge as Handler,
+    params: (w) => ({ game: w.teamGame.slug, edition: "0-1", character: "sparring-dummy" }),
+    good: newLink,
+    text: [],
+  },
+  {
+    name: "PATCH /api/games/[game]/editions/[edition]/characters/[character]/edges/[edge]",
+    handler: saveEdge as Handler,
+    params: (w) => ({ game: w.teamGame.slug, edition: "0-1", character: "sparring-dummy", edge: "1>1,1" }),
+    good: () => ({ version: 1, changes: { gapOnBlock: 3 } }),
     text: [],
   },
 ];

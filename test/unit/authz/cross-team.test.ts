@@ -4,6 +4,7 @@ import type { SessionUser } from "@/server/auth";
 import { createInvite } from "@/server/db/queries/invites";
 import { createCharacter, createGame, publishEdition } from "@/server/db/queries/authoring";
 import { createPermalink } from "@/server/db/queries/permalinks";
+import { importCharacter, loadPortableCharacter } from "@/server/db/queries/character-io";
 import { createTeam } from "@/server/db/queries/teams";
 import { getDb } from "@/server/db";
 import { memberships, moves } from "@/server/db/schema";
@@ -63,7 +64,20 @@ async function crossWorld() {
   const bFighter = await createCharacter({ ...asB, gameId: bGame.game.id, input: { name: "B Fighter" } });
   await getDb()
     .insert(moves)
-    .values(oneMove(bGame.edition.id, bFighter.id, "b1"));
+    .values(["b1", "b2", "b3"].map((key) => oneMove(bGame.edition.id, bFighter.id, key)));
+  await importCharacter({
+    ...asB,
+    gameId: bGame.game.id,
+    editionId: bGame.edition.id,
+    characterId: bFighter.id,
+    apply: true,
+    character: {
+      ...(await loadPortableCharacter({ editionId: bGame.edition.id, characterId: bFighter.id }))!,
+      edges: [
+        { kind: "follow", from: "b1", to: "b3", input: ",3", gapOnBlock: 1, comboOnHit: true, comboOnCounterHit: true },
+      ],
+    },
+  });
   const bDone = await createGame({ ...asB, input: { name: `B Done ${b.slug.slice(-6)}` } });
   await publishEdition({ ...asB, gameId: bDone.game.id, editionId: bDone.edition.id });
   return {
@@ -117,6 +131,7 @@ const GAME: IdField = { in: "path", name: "game", teamA: (w) => w.teamGame.slug,
 // Team A's Edition and character, named by their slugs, which B's game does not have.
 const EDITION: IdField = { in: "path", name: "edition", teamA: () => "0-1", none: () => "9-9" };
 const MOVE: IdField = { in: "path", name: "move", teamA: () => "1", none: () => "no-such-move" };
+const EDGE: IdField = { in: "path", name: "edge", teamA: () => "1>1,1", none: () => "no>such-link" };
 const CHARACTER: IdField = { in: "path", name: "character", teamA: () => "sparring-dummy", none: noSlug };
 const teamRoute = (own: (w: CrossWorld) => Call = (w) => ({ params: { team: w.b.team.slug } })): RouteRow => ({
   own,
@@ -207,6 +222,68 @@ const ROUTES: Record<string, Row> = {
       body: { version: 1, changes: { damage: 14 } },
     }),
     ids: [GAME, EDITION, CHARACTER, MOVE],
+  },
+  "GET /api/games/[game]/editions/[edition]/characters/[character]/moves/[move]": {
+    own: (w) => ({ params: { game: w.b.game.slug, edition: w.b.edition, character: "b-fighter", move: "b1" } }),
+    ids: [GAME, EDITION, CHARACTER, MOVE],
+  },
+  "DELETE /api/games/[game]/editions/[edition]/characters/[character]/moves/[move]": {
+    own: (w) => ({
+      params: { game: w.b.game.slug, edition: w.b.edition, character: "b-fighter", move: "b2" },
+      query: { version: "1" },
+    }),
+    ids: [GAME, EDITION, CHARACTER, MOVE],
+  },
+  "POST /api/games/[game]/editions/[edition]/characters/[character]/moves": {
+    own: (w) => ({
+      params: { game: w.b.game.slug, edition: w.b.edition, character: "b-fighter" },
+      body: {
+        move: { input: "b9", name: "B Nine", level: "low", damage: 7, onBlock: -13, onHit: -2, onCounterHit: 1 },
+        via: { kind: "follow", from: "b1", input: ",9", gapOnBlock: 8, comboOnHit: false, comboOnCounterHit: false },
+      },
+    }),
+    ids: [GAME, EDITION, CHARACTER, { in: "body", name: "via.from", teamA: () => "1", none: () => "no-such-move" }],
+  },
+  "POST /api/games/[game]/editions/[edition]/characters/[character]/edges": {
+    own: (w) => ({
+      params: { game: w.b.game.slug, edition: w.b.edition, character: "b-fighter" },
+      body: {
+        edge: {
+          kind: "follow",
+          from: "b1",
+          to: "b2",
+          input: ",2",
+          gapOnBlock: 4,
+          comboOnHit: true,
+          comboOnCounterHit: true,
+        },
+      },
+    }),
+    ids: [
+      GAME,
+      EDITION,
+      CHARACTER,
+      { in: "body", name: "edge.from", teamA: () => "1", none: () => "no-such-move" },
+      { in: "body", name: "edge.to", teamA: () => "2", none: () => "no-such-move" },
+    ],
+  },
+  "GET /api/games/[game]/editions/[edition]/characters/[character]/edges/[edge]": {
+    own: (w) => ({ params: { game: w.b.game.slug, edition: w.b.edition, character: "b-fighter", edge: "b1>b3" } }),
+    ids: [GAME, EDITION, CHARACTER, EDGE],
+  },
+  "PATCH /api/games/[game]/editions/[edition]/characters/[character]/edges/[edge]": {
+    own: (w) => ({
+      params: { game: w.b.game.slug, edition: w.b.edition, character: "b-fighter", edge: "b1>b3" },
+      body: { version: 1, changes: { gapOnBlock: 9 } },
+    }),
+    ids: [GAME, EDITION, CHARACTER, EDGE],
+  },
+  "DELETE /api/games/[game]/editions/[edition]/characters/[character]/edges/[edge]": {
+    own: (w) => ({
+      params: { game: w.b.game.slug, edition: w.b.edition, character: "b-fighter", edge: "b1>b3" },
+      query: { version: "1" },
+    }),
+    ids: [GAME, EDITION, CHARACTER, EDGE],
   },
   "DELETE /api/permalinks/[slug]": {
     own: (w) => ({ params: { slug: w.b.link.slug } }),

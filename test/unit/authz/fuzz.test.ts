@@ -4,7 +4,7 @@ import type { SessionUser } from "@/server/auth";
 import { missingRows, pathParams, routeHandlers, routeUrl, serverActions, type Action } from "./inventory";
 import { tableChecksums, runOnPrivateDatabase } from "./private-database";
 import { setSession } from "./session-mock";
-import { VIEW, world, type World } from "./world";
+import { VIEW, world, type World, newLink, newFollowUp } from "./world";
 import { ONE_MOVE_PATHS_REQUEST } from "../../fixtures/paths-request";
 import { runAfterAnswer } from "../auth/request-mock";
 
@@ -85,6 +85,7 @@ const REFS = {
   teamEdition: () => "0-1",
   teamCharacterSlug: () => "sparring-dummy",
   teamMoveKey: () => "1",
+  teamEdgeKey: () => "1>1,1",
   demoCharacterId: () => w.demoCharacterId,
   edition: () => "1-1",
   role: () => "viewer",
@@ -131,6 +132,7 @@ const PARAM_REFS: Record<string, Ref["ref"][]> = {
   edition: ["teamEdition", "edition"],
   character: ["teamCharacterSlug"],
   move: ["teamMoveKey"],
+  edge: ["teamEdgeKey"],
 };
 const param = (name: string): fc.Arbitrary<Text> =>
   PARAM_REFS[name]
@@ -193,6 +195,19 @@ const ROUTES: Record<string, FuzzRow | { overHttp: string }> = {
   "PATCH /api/games/[game]/editions/[edition]/characters/[character]/moves/[move]": {
     good: () => ({ version: 1, changes: { damage: 12, onBlock: -4, name: "Poke", tags: ["poke"] } }),
   },
+  "GET /api/games/[game]/editions/[edition]/characters/[character]/moves/[move]": {},
+  "DELETE /api/games/[game]/editions/[edition]/characters/[character]/moves/[move]": { query: ["version"] },
+  "POST /api/games/[game]/editions/[edition]/characters/[character]/moves": {
+    good: newFollowUp,
+  },
+  "POST /api/games/[game]/editions/[edition]/characters/[character]/edges": {
+    good: newLink,
+  },
+  "GET /api/games/[game]/editions/[edition]/characters/[character]/edges/[edge]": {},
+  "PATCH /api/games/[game]/editions/[edition]/characters/[character]/edges/[edge]": {
+    good: () => ({ version: 1, changes: { gapOnBlock: 3, input: ",1" } }),
+  },
+  "DELETE /api/games/[game]/editions/[edition]/characters/[character]/edges/[edge]": { query: ["version"] },
   // Takes a form upload: the fuzzer's JSON and other bodies are refused (415) before anything is read.
   "POST /api/games/[game]/editions/[edition]/characters/[character]/import": {
     good: () => ({ file: "row,key\n" }),

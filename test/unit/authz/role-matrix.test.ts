@@ -5,7 +5,7 @@ import { routeHandlers, routeUrl, serverActions, type Action } from "./inventory
 import { nextAddress } from "./headers-mock";
 import { setSession } from "./session-mock";
 import { closeDb } from "@/server/db";
-import { characterForm, draftOf, VIEW, world, type World } from "./world";
+import { characterForm, draftOf, VIEW, world, type World, newLink } from "./world";
 import { ONE_MOVE_PATHS_REQUEST } from "../../fixtures/paths-request";
 
 // Who is signed in for the call under test. Route handlers read the session only through
@@ -254,6 +254,77 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
         body: { version: 1, changes: { onBlock: -6 } },
       }),
       expect: atLeastCoach(200),
+    },
+  ],
+  "GET /api/games/[game]/editions/[edition]/characters/[character]/moves/[move]": [
+    {
+      what: "open a move of a draft to edit it",
+      call: async (w) => ({
+        params: { game: w.teamGame.slug, edition: await draftOf(w), character: "sparring-dummy", move: "1" },
+      }),
+      expect: atLeastCoach(200),
+    },
+  ],
+  "DELETE /api/games/[game]/editions/[edition]/characters/[character]/moves/[move]": [
+    {
+      what: "delete a move of a draft with its follow-up",
+      call: async (w) => ({
+        params: { game: w.teamGame.slug, edition: await draftOf(w), character: "sparring-dummy", move: "1" },
+        query: "?version=1",
+      }),
+      expect: atLeastCoach(200),
+    },
+  ],
+  "POST /api/games/[game]/editions/[edition]/characters/[character]/moves": [
+    {
+      what: "add a follow-up in a draft",
+      call: async (w) => ({
+        params: { game: w.teamGame.slug, edition: await draftOf(w), character: "sparring-dummy" },
+        body: {
+          move: { input: "1,1,1", name: "Third Poke", level: "mid", damage: 8, onBlock: -9, onHit: 2, onCounterHit: 2 },
+          via: { kind: "follow", from: "1,1", input: ",1", gapOnBlock: 3, comboOnHit: true, comboOnCounterHit: true },
+        },
+      }),
+      expect: atLeastCoach(201),
+    },
+  ],
+  "POST /api/games/[game]/editions/[edition]/characters/[character]/edges": [
+    {
+      what: "link two moves of a draft",
+      call: async (w) => ({
+        params: { game: w.teamGame.slug, edition: await draftOf(w), character: "sparring-dummy" },
+        body: newLink(),
+      }),
+      expect: atLeastCoach(201),
+    },
+  ],
+  "GET /api/games/[game]/editions/[edition]/characters/[character]/edges/[edge]": [
+    {
+      what: "open a link of a draft to edit it",
+      call: async (w) => ({
+        params: { game: w.teamGame.slug, edition: await draftOf(w), character: "sparring-dummy", edge: "1>1,1" },
+      }),
+      expect: atLeastCoach(200),
+    },
+  ],
+  "PATCH /api/games/[game]/editions/[edition]/characters/[character]/edges/[edge]": [
+    {
+      what: "save a link in a draft",
+      call: async (w) => ({
+        params: { game: w.teamGame.slug, edition: await draftOf(w), character: "sparring-dummy", edge: "1>1,1" },
+        body: { version: 1, changes: { gapOnBlock: 6 } },
+      }),
+      expect: atLeastCoach(200),
+    },
+  ],
+  "DELETE /api/games/[game]/editions/[edition]/characters/[character]/edges/[edge]": [
+    {
+      what: "delete a link of a draft",
+      call: async (w) => ({
+        params: { game: w.teamGame.slug, edition: await draftOf(w), character: "sparring-dummy", edge: "1>1,1" },
+        query: "?version=1",
+      }),
+      expect: atLeastCoach(204),
     },
   ],
   "POST /api/permalinks": [

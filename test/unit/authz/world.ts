@@ -7,7 +7,7 @@ import { getCharacterBySlug, getGameBySlug } from "@/server/db/queries/games";
 import { createInvite } from "@/server/db/queries/invites";
 import { createPermalink } from "@/server/db/queries/permalinks";
 import { createTeam } from "@/server/db/queries/teams";
-import { characters, editions, games, memberships, moves } from "@/server/db/schema";
+import { characters, edges, editions, games, memberships, moves } from "@/server/db/schema";
 import { makeUser } from "../teams/fixtures";
 
 export const VIEW = {
@@ -78,7 +78,26 @@ export async function world() {
     .insert(characters)
     .values({ gameId: game!.id, slug: "sparring-dummy", name: "Sparring Dummy" })
     .$returningId();
-  await db.insert(moves).values(oneMove(edition!.id, character!.id, "1"));
+  await db.insert(moves).values(["1", "1,1", "2"].map((key) => oneMove(edition!.id, character!.id, key)));
+  // "1,1" follows "1"; "2" stands alone, so a link to it can be added.
+  const moveId = new Map(
+    (await db.select({ id: moves.id, key: moves.key }).from(moves).where(eq(moves.editionId, edition!.id))).map((m) => [
+      m.key,
+      m.id,
+    ]),
+  );
+  await db.insert(edges).values({
+    editionId: edition!.id,
+    characterId: character!.id,
+    key: "1>1,1",
+    kind: "follow",
+    fromMoveId: moveId.get("1")!,
+    toMoveId: moveId.get("1,1")!,
+    input: ",1",
+    gapOnBlock: 2,
+    comboOnHit: true,
+    comboOnCounterHit: false,
+  });
   await db
     .update(editions)
     .set({ status: "published", publishedAt: new Date("2026-10-01") })
@@ -149,3 +168,14 @@ export function characterForm(slug: string, name = "Sparring Dummy"): FormData {
   form.set("file", new File([csv], `${slug}.csv`, { type: "text/csv" }));
   return form;
 }
+
+/** A body that links two moves of the team game's character ("1" to "2", which nothing leads into yet). */
+export const newLink = () => ({
+  edge: { kind: "follow", from: "1", to: "2", input: ",2", gapOnBlock: 5, comboOnHit: false, comboOnCounterHit: false },
+});
+
+/** A body that adds a follow-up of "1" to the team game's character. */
+export const newFollowUp = () => ({
+  move: { input: "3", name: "Late Poke", level: "mid", damage: 9, onBlock: -3, onHit: 2, onCounterHit: 4, tags: ["x"] },
+  via: { kind: "follow", from: "1", input: ",3", gapOnBlock: 2, comboOnHit: true, comboOnCounterHit: false },
+});

@@ -23,7 +23,12 @@ export type AuditAction =
   | "character.imported"
   | "edition.started"
   | "edition.published"
-  | "move.changed";
+  | "move.changed"
+  | "move.added"
+  | "move.deleted"
+  | "edge.added"
+  | "edge.changed"
+  | "edge.deleted";
 
 /** Records who did what in a team. Call it with the transaction that makes the change. */
 export async function recordAudit(

@@ -29,12 +29,12 @@ import { lockDraft } from "./authoring";
  */
 
 type Scope = { editionId: number; characterId: number };
-type Tx = Parameters<Parameters<ReturnType<typeof getDb>["transaction"]>[0]>[0];
+export type Tx = Parameters<Parameters<ReturnType<typeof getDb>["transaction"]>[0]>[0];
 
 /** Rows per INSERT: a 10,000-move character goes in a handful of statements, each well under the packet limit. */
 const BATCH = 1000;
 
-interface Rows {
+export interface Rows {
   stanceRows: (typeof stances.$inferSelect)[];
   moveRows: (typeof moves.$inferSelect)[];
   edgeRows: (typeof edges.$inferSelect)[];
@@ -233,7 +233,7 @@ const edgeItem = (e: PortableEdge) => ({ key: edgeKey(e), item: e });
  * and accents, as `utf8mb4_unicode_ci` does: `a` and `A`, `e` and `é`). Asked of MariaDB
  * itself in one query, so the answer is its own collation's.
  */
-async function collidingKeys(tx: Tx, what: string, keys: string[]): Promise<FileProblem[]> {
+export async function collidingKeys(tx: Tx, what: string, keys: string[]): Promise<FileProblem[]> {
   if (keys.length < 2) return [];
   const result = (await tx.execute(sql`
     select group_concat(k order by n separator '\u001f') as same
@@ -245,6 +245,46 @@ async function collidingKeys(tx: Tx, what: string, keys: string[]): Promise<File
       message: `the ${what} keys ${same.map((k) => `"${k}"`).join(" and ")} differ only in case or accents, which Framefork counts as the same key; give them keys that differ in letters`,
     };
   });
+}
+
+/**
+ * What writing `file` over the character's rows would add, change (field by field) and remove, by
+ * key, and which unchanged moves change place in the list. Pure: the rows were read by the caller.
+ */
+export function compareCharacter(
+  rows: Rows,
+  file: PortableCharacter,
+  target: { slug: string; name: string; summary: string | null },
+): { preview: ImportPreview; reordered: { key: string; sort: number }[] } {
+  const have = portableRows(rows);
+  const preview: ImportPreview = {
+    character: target.slug,
+    stances: section(
+      have.stances.map((s) => ({ key: s.item.key, item: s.item })),
+      file.stances.map((s) => ({ key: s.key, item: s })),
+    ),
+    moves: section(
+      have.moves.map((m) => ({ key: m.item.key, item: m.item })),
+      file.moves.map((m) => ({ key: m.key, item: m })),
+    ),
+    edges: section(
+      have.edges.map((e) => ({ key: e.key, item: e.item })),
+      file.edges.map(edgeItem),
+    ),
+    reordered: 0,
+    kept: fieldChanges(
+      { name: target.name, summary: target.summary },
+      { name: file.character.name, summary: file.character.summary },
+    ),
+  };
+  const sortOf = new Map(rows.moveRows.map((m) => [m.key, m.sort]));
+  const changedMoves = new Set(preview.moves.changed.map((c) => c.key));
+  const reordered = file.moves.flatMap((m, sort) => {
+    const was = sortOf.get(m.key);
+    return was !== undefined && was !== sort && !changedMoves.has(m.key) ? [{ key: m.key, sort }] : [];
+  });
+  preview.reordered = reordered.length;
+  return { preview, reordered };
 }
 
 /**
@@ -299,34 +339,7 @@ export async function importCharacter({
     if (problems.length > 0) return { ok: false, problems };
 
     const rows = await loadCharacterRows(tx, { editionId, characterId });
-    const have = portableRows(rows);
-    const preview: ImportPreview = {
-      character: target.slug,
-      stances: section(
-        have.stances.map((s) => ({ key: s.item.key, item: s.item })),
-        file.stances.map((s) => ({ key: s.key, item: s })),
-      ),
-      moves: section(
-        have.moves.map((m) => ({ key: m.item.key, item: m.item })),
-        file.moves.map((m) => ({ key: m.key, item: m })),
-      ),
-      edges: section(
-        have.edges.map((e) => ({ key: e.key, item: e.item })),
-        file.edges.map(edgeItem),
-      ),
-      reordered: 0,
-      kept: fieldChanges(
-        { name: target.name, summary: target.summary },
-        { name: file.character.name, summary: file.character.summary },
-      ),
-    };
-    const sortOf = new Map(rows.moveRows.map((m) => [m.key, m.sort]));
-    const changedMoves = new Set(preview.moves.changed.map((c) => c.key));
-    const reordered = file.moves.flatMap((m, sort) => {
-      const was = sortOf.get(m.key);
-      return was !== undefined && was !== sort && !changedMoves.has(m.key) ? [{ key: m.key, sort }] : [];
-    });
-    preview.reordered = reordered.length;
+    const { preview, reordered } = compareCharacter(rows, file, target);
     const counts = Object.fromEntries(
       (["stances", "moves", "edges"] as const).map((part) => [
         part,
@@ -339,7 +352,7 @@ export async function importCharacter({
     ) as ImportCounts;
     if (!apply) return { ok: true, preview, counts, applied: false };
 
-    await write(tx, { editionId, characterId }, rows, file, preview, reordered);
+    await writeCharacter(tx, { editionId, characterId }, rows, file, preview, reordered);
     await recordAudit(tx, {
       teamId,
       actorId,
@@ -374,7 +387,7 @@ const fromNewRow = (cols: string[]) =>
  * each in batched upserts on their unique key. A changed row keeps its id and gets
  * `version + 1`; an unchanged one is not touched, except a move whose place in the list moved.
  */
-async function write(
+export async function writeCharacter(
   tx: Tx,
   scope: Scope,
   rows: Rows,

@@ -1,17 +1,14 @@
 import { z } from "zod";
 import { requireUser } from "@/server/auth";
+import { deleteMove, readMove } from "@/server/db/queries/character-edits";
 import { moveChangesSchema, saveMove } from "@/server/db/queries/move-edits";
-import { characterOf, editionOf, loadGameForEdit } from "@/server/games-access";
+import { characterForEdit } from "@/server/games-access";
 import { handle, parseWith, readJson } from "@/server/http";
-import { editionCharacterParamsSchema } from "../../../../../../../schema";
+import { moveParamsSchema, versionQuerySchema } from "../../../../../../../schema";
 
 export const dynamic = "force-dynamic";
 
 type Ctx = RouteContext<"/api/games/[game]/editions/[edition]/characters/[character]/moves/[move]">;
-
-const paramsSchema = editionCharacterParamsSchema.extend({
-  move: z.string().min(1, "Name the move by its key.").max(64, "A move's key is at most 64 characters."),
-});
 
 const saveSchema = z
   .object({
@@ -20,26 +17,34 @@ const saveSchema = z
   })
   .strict();
 
+/** The game, Edition and character a request names, for a coach or owner of the game's team. */
+async function target(ctx: Ctx) {
+  const params = parseWith(moveParamsSchema, await ctx.params, "path");
+  return { key: params.move, scope: await characterForEdit(params, await requireUser()) };
+}
+
+/** One move as an editor opens it: its fields, its version and what deleting it would take along. */
+export const GET = handle(async (_request: Request, ctx: Ctx) => {
+  const { key, scope } = await target(ctx);
+  return Response.json(await readMove(scope, key));
+});
+
 /**
  * Saves changes to one move of a draft Edition (coaches and owners), based on the version the
  * editor read: a save based on an older one answers 409 with the move as it is now.
  */
 export const PATCH = handle(async (request: Request, ctx: Ctx) => {
-  const params = parseWith(paramsSchema, await ctx.params, "path");
   const body = await readJson(request, saveSchema, { maxBytes: 16_000 });
-  const user = await requireUser();
-  const { game } = await loadGameForEdit({ slug: params.game, user });
-  const edition = await editionOf(game.id, params.edition);
-  const character = await characterOf(game.id, params.character);
-  const saved = await saveMove({
-    teamId: game.teamId,
-    gameId: game.id,
-    editionId: edition.id,
-    characterId: character.id,
-    key: params.move,
-    version: body.version,
-    changes: body.changes,
-    actorId: user.id,
-  });
-  return Response.json(saved);
+  const { key, scope } = await target(ctx);
+  return Response.json(await saveMove({ ...scope, key, version: body.version, changes: body.changes }));
+});
+
+/**
+ * Deletes a move of a draft Edition with every link into or out of it and the moves reached only
+ * through it (`?version=N`, the version the editor read); answers what went with it.
+ */
+export const DELETE = handle(async (request: Request, ctx: Ctx) => {
+  const { version } = parseWith(versionQuerySchema, Object.fromEntries(new URL(request.url).searchParams), "query");
+  const { key, scope } = await target(ctx);
+  return Response.json({ deleted: key, with: await deleteMove(scope, { key, version }) });
 });
