@@ -54,6 +54,9 @@ export class AppError extends Error {
   static fromResponseBody(body: unknown, status: number): AppError {
     const error = (body as Partial<ErrorBody> | null)?.error;
     if (error && typeof error.message === "string" && typeof error.code === "string" && error.code in ERROR_STATUS) {
+      // A save based on an old version: keep the row as it is now, for the side-by-side view.
+      if (error.code === "conflict" && error.current !== undefined)
+        return new VersionConflict(error.message, error.current);
       return new AppError(error.code, error.message, error.issues);
     }
     const code = (Object.entries(ERROR_STATUS).find(([, s]) => s === status)?.[0] ?? "internal") as ErrorCode;

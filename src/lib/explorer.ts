@@ -37,6 +37,7 @@ export interface EditionRef {
   slug: string;
   name: string;
   releasedOn: string;
+  status: "draft" | "published";
 }
 
 export const graphUrl = (characterId: number, edition: string) =>

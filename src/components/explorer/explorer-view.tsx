@@ -12,6 +12,7 @@ import { fetcher } from "@/lib/fetcher";
 import { explorerHref, explorerStateToView } from "@/lib/permalink";
 import { useAfterPaint } from "@/lib/after-paint";
 import { finishTimingAfterPaint, startTiming } from "@/lib/timing";
+import { DraftEditor } from "./draft-editor";
 import { FrameTimeline } from "./frame-timeline";
 import { Legend } from "./legend";
 import { OptionsBar } from "./options-bar";
@@ -30,11 +31,13 @@ export interface ExplorerViewProps {
   pinned?: boolean;
   /** The teams the signed-in user may share with; without it there is no Share button. */
   share?: { teams: ShareTeam[] };
+  /** Given to a coach or owner of the game's team: on a draft Edition, its edit controls show. */
+  editor?: { game: string; character: string };
 }
 
 const NO_PATHS: PathResult[] = [];
 
-export function ExplorerView({ characterId, root, pinned = false, share }: ExplorerViewProps) {
+export function ExplorerView({ characterId, root, pinned = false, share, editor }: ExplorerViewProps) {
   const edition = useExplorerStore((s) => s.edition);
   const { data, error, isLoading, mutate } = useSWR<GraphResponse, AppError>(graphUrl(characterId, edition), fetcher, {
     keepPreviousData: true,
@@ -178,6 +181,18 @@ export function ExplorerView({ characterId, root, pinned = false, share }: Explo
         {/* Beside the graph on a wide screen, as tall as it and scrolling on its own: a new
             selection then lays out this column alone, not the page. Below the graph on a phone. */}
         <div className="space-y-4 lg:h-[68vh] lg:overflow-y-auto lg:p-1 lg:[contain:strict]" data-testid="path-column">
+          {editor && !pinned && data.edition.status === "draft" && (
+            <DraftEditor
+              draft={{ ...editor, edition: data.edition.slug }}
+              graph={data.graph}
+              path={selected}
+              root={root}
+              onChanged={async (edges) => {
+                await mutate();
+                if (edges) select(edges.length === 0 ? null : edges.join("|"));
+              }}
+            />
+          )}
           {selected ? (
             <>
               <PathCard

@@ -101,3 +101,30 @@ export function TextInput<T extends FieldValues>({
     </Field>
   );
 }
+
+/** A form's submit button, with its busy label and the form's own error beside it. */
+export function FormEnd({
+  busy,
+  label,
+  error,
+  children,
+}: {
+  busy: boolean;
+  label: string;
+  error?: string;
+  children?: ReactNode;
+}) {
+  return (
+    <div className="flex flex-wrap items-center gap-3">
+      <button type="submit" disabled={busy} className={primaryButton}>
+        {busy ? "Saving…" : label}
+      </button>
+      {children}
+      {error && (
+        <p role="alert" className="text-sm text-ink-100">
+          {error}
+        </p>
+      )}
+    </div>
+  );
+}

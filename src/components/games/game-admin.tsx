@@ -5,7 +5,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { useForm } from "react-hook-form";
 import type { z } from "zod";
-import { primaryButton, showRefusal, TextInput } from "@/components/forms/fields";
+import { FormEnd, primaryButton, showRefusal, TextInput } from "@/components/forms/fields";
 import { newCharacterSchema, newEditionSchema } from "@/lib/authoring";
 import { AppError } from "@/lib/errors";
 import { sendJson } from "@/lib/fetcher";
@@ -139,20 +139,5 @@ function PublishDraft({ game, draft }: { game: string; draft: EditionRow }) {
         </p>
       )}
     </section>
-  );
-}
-
-function FormEnd({ busy, label, error }: { busy: boolean; label: string; error?: string }) {
-  return (
-    <div className="flex flex-wrap items-center gap-3">
-      <button type="submit" disabled={busy} className={primaryButton}>
-        {busy ? "Saving…" : label}
-      </button>
-      {error && (
-        <p role="alert" className="text-sm text-ink-100">
-          {error}
-        </p>
-      )}
-    </div>
   );
 }

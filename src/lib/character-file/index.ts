@@ -42,12 +42,14 @@ export {
   type PortableStance,
   type PortableOutcome,
 } from "./schema";
-export { formatProblem, MAX_PROBLEMS, type FileProblem, type ParseResult } from "./problems";
+export { coachErrorMap, formatProblem, MAX_PROBLEMS, type FileProblem, type ParseResult } from "./problems";
 export {
   CSV_COLUMNS,
   ROW_KINDS,
   csvDelimiter,
   csvParseConfig,
+  outcomeCell,
+  outcomeText,
   protectCell,
   unprotectCell,
   type CsvReader,

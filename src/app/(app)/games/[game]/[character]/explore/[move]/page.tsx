@@ -7,6 +7,7 @@ import { ExplorerStoreProvider } from "@/components/providers/explorer-store-pro
 import { graphUrl, parseExplorerSearch } from "@/lib/explorer";
 import { atLeast } from "@/lib/roles";
 import { auth } from "@/server/auth";
+import { getRole } from "@/server/authz";
 import { getExplorerData } from "@/server/db/queries/explorer";
 import { listMyTeams } from "@/server/db/queries/teams";
 import { loadCharacter } from "../../../../data";
@@ -35,6 +36,7 @@ export default async function ExplorePage({ params, searchParams }: Props) {
   const rootMove = graph.nodes.find((n) => n.id === root);
   // Signed in: a Share button, offering the teams where the user may make permalinks (player or higher).
   const user = await auth();
+  const role = user && game.teamId !== null ? await getRole({ teamId: game.teamId, userId: user.id }) : null;
   const shareTeams = user
     ? (await listMyTeams({ userId: user.id }))
         .filter((t) => atLeast(t.role, "player"))
@@ -69,7 +71,12 @@ export default async function ExplorePage({ params, searchParams }: Props) {
             },
           }}
         >
-          <ExplorerView characterId={character.id} root={root} share={shareTeams ? { teams: shareTeams } : undefined} />
+          <ExplorerView
+            characterId={character.id}
+            root={root}
+            share={shareTeams ? { teams: shareTeams } : undefined}
+            editor={atLeast(role, "coach") ? { game: game.slug, character: character.slug } : undefined}
+          />
         </ExplorerStoreProvider>
       </SWRConfig>
     </div>

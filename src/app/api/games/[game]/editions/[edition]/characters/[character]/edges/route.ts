@@ -20,9 +20,6 @@ export const POST = handle(async (request: Request, ctx: Ctx) => {
   const params = parseWith(editionCharacterParamsSchema, await ctx.params, "path");
   const body = await readJson(request, addSchema, { maxBytes: 16_000 });
   const scope = await characterForEdit(params, await requireUser());
-  const made = await addEdge(
-    scope,
-    { op: "add-edge", edge: body.edge },
-  );
+  const made = await addEdge(scope, { op: "add-edge", edge: body.edge });
   return Response.json(made, { status: 201 });
 });

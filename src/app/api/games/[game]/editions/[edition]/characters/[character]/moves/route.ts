@@ -20,9 +20,6 @@ export const POST = handle(async (request: Request, ctx: Ctx) => {
   const params = parseWith(editionCharacterParamsSchema, await ctx.params, "path");
   const body = await readJson(request, addSchema, { maxBytes: 16_000 });
   const scope = await characterForEdit(params, await requireUser());
-  const made = await addMove(
-    scope,
-    { op: "add-move", move: body.move, via: body.via },
-  );
+  const made = await addMove(scope, { op: "add-move", move: body.move, via: body.via });
   return Response.json(made, { status: 201 });
 });

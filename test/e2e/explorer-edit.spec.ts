@@ -1,0 +1,130 @@
+import { randomUUID } from "node:crypto";
+import { readFile } from "node:fs/promises";
+import { expect, test, type Page } from "@playwright/test";
+import { query } from "./db";
+import { ExplorerPage } from "./pages/explorer-page";
+import { signUpAs, TeamsPage } from "./pages/team-pages";
+
+// A coach changes a draft from the Explorer: a follow-up added from the keyboard, a number
+// changed, a save that someone else beat (both values shown, the coach chooses), a move deleted
+// with what goes with it; a player of the team sees the draft and no edit control.
+
+test.describe.configure({ timeout: 180_000 });
+
+test.beforeEach(async () => {
+  await query("delete from rate_limits");
+});
+
+const tag = () => randomUUID().slice(0, 6);
+
+/** A team game with Merrith (the example file) in its draft Edition; answers the addresses. */
+async function teamGameWithMerrith(page: Page) {
+  const teamName = `Quayside ${tag()}`;
+  await signUpAs(page, "Ines Varga", `coach-${tag()}@example.test`, "/teams");
+  await new TeamsPage(page).create(teamName);
+  const team = page.url().split("/teams/")[1]!;
+  const made = await page.request.post(`/api/teams/${team}/games`, { data: { name: `Lampwire ${tag()}` } });
+  expect(made.status()).toBe(201);
+  const { game, edition } = (await made.json()) as { game: { slug: string }; edition: { slug: string } };
+  expect((await page.request.post(`/api/games/${game.slug}/characters`, { data: { name: "Merrith" } })).status()).toBe(
+    201,
+  );
+  const csv = await readFile("public/examples/merrith.csv");
+  const imported = await page.request.post(
+    `/api/games/${game.slug}/editions/${edition.slug}/characters/merrith/import`,
+    { multipart: { file: { name: "merrith.csv", mimeType: "text/csv", buffer: csv } } },
+  );
+  expect(imported.status()).toBe(200);
+  return { teamName, game: game.slug, edition: edition.slug };
+}
+
+test("a coach adds a follow-up, changes a number, meets a conflict and deletes a move, all from the Explorer", async ({
+  page,
+  browser,
+}) => {
+  const t = await teamGameWithMerrith(page);
+  const explorer = new ExplorerPage(page);
+  await page.goto(`/games/${t.game}/merrith/explore/1?edition=${t.edition}`);
+  const editor = page.getByTestId("draft-editor");
+  await expect(editor).toContainText("Change this draft");
+
+  // Select the end of 1,2 and add a follow-up, from the keyboard.
+  await explorer.node("1,2").click();
+  await expect(editor).toContainText("1,2");
+  await page.keyboard.press("f");
+  const add = page.getByRole("form", { name: "A follow-up of 1,2" });
+  await add.getByLabel("Link input").fill(",1");
+  await add.getByLabel("Gap on block").fill("2");
+  await add.getByLabel("Input", { exact: true }).fill("1,2,1");
+  await add.getByLabel("Name", { exact: true }).fill("Spark Flurry");
+  await add.getByLabel("Damage").fill("8");
+  await add.getByLabel("On block", { exact: true }).fill("-3x");
+  await add.getByLabel("On hit", { exact: true }).fill("4");
+  await add.getByLabel("On counter hit", { exact: true }).fill("6");
+  await add.getByRole("button", { name: "Add move" }).click();
+  // A wrong value is named at its field, in words, and nothing is sent.
+  await expect(add.getByText(/must be a whole number/)).toBeVisible();
+  await add.getByLabel("On block", { exact: true }).fill("-3");
+  await add.getByLabel("On block", { exact: true }).press("Enter");
+  await expect(editor.getByRole("status")).toHaveText("Added 1,2,1.");
+  // The graph and the selected path recompute at once: the new hit is drawn and selected.
+  await expect(explorer.node("1,2,1")).toBeVisible();
+  await expect(explorer.pathMark("1,2,1")).toBeVisible();
+  await expect(explorer.field("onBlock")).toContainText("-3");
+
+  // Change its number: the path's outcome follows.
+  await page.keyboard.press("e");
+  const edit = page.getByRole("form", { name: "Edit 1,2,1" });
+  await edit.getByLabel("On block", { exact: true }).fill("+1");
+  await edit.getByRole("button", { name: "Save move" }).click();
+  await expect(editor.getByRole("status")).toHaveText("Saved 1,2,1.");
+  await expect(explorer.field("onBlock")).toContainText("+1");
+
+  // Someone else saves the same move while this coach is editing it: both values are shown.
+  await page.keyboard.press("e");
+  await edit.getByLabel("Damage").fill("11");
+  const base = `/api/games/${t.game}/editions/${t.edition}/characters/merrith/moves/${encodeURIComponent("1,2,1")}`;
+  const now = (await (await page.request.get(base)).json()) as { version: number };
+  expect((await page.request.patch(base, { data: { version: now.version, changes: { damage: 9 } } })).status()).toBe(
+    200,
+  );
+  await edit.getByRole("button", { name: "Save move" }).click();
+  const conflict = page.getByTestId("conflict");
+  await expect(conflict).toContainText("Someone saved 1,2,1 after you opened it");
+  await expect(conflict.getByRole("row", { name: /Damage/ })).toContainText(/9\s*11/);
+  await conflict.getByRole("button", { name: "Save mine over theirs" }).click();
+  await expect(editor.getByRole("status")).toHaveText("Saved 1,2,1.");
+  const [saved] = await query<{ damage: number }>(
+    "select m.damage from moves m join editions e on e.id = m.edition_id join games g on g.id = e.game_id where g.slug = ? and m.`key` = '1,2,1'",
+    [t.game],
+  );
+  expect(saved?.damage).toBe(11);
+
+  // Deleting 1,2 says what goes with it and asks first.
+  await explorer.node("1,2").click();
+  await page.keyboard.press("Delete");
+  const ask = page.getByRole("alertdialog", { name: "Delete 1,2?" });
+  await expect(ask.getByTestId("delete-dependents")).toContainText("move 1,2,1");
+  await expect(ask.getByTestId("delete-dependents")).toContainText("move 1,2,3");
+  await ask.getByRole("button", { name: "Keep it" }).click();
+  await expect(explorer.node("1,2")).toBeVisible();
+  await page.keyboard.press("Delete");
+  await ask.getByRole("button", { name: /^Delete 1,2 and \d+ more$/ }).click();
+  await expect(explorer.node("1,2")).toHaveCount(0);
+  await expect(explorer.node("1,2,3")).toHaveCount(0);
+
+  // A player of the team reads the draft and is offered no change.
+  const player = await (await browser.newContext()).newPage();
+  const playerEmail = `player-${tag()}@example.test`;
+  await signUpAs(player, "Bo Lindqvist", playerEmail, "/teams");
+  await query(
+    `insert into memberships (team_id, user_id, role)
+     select t.id, u.id, 'player' from teams t, users u where t.name = ? and u.email = ?`,
+    [t.teamName, playerEmail],
+  );
+  await player.goto(`/games/${t.game}/merrith/explore/1?edition=${t.edition}`);
+  await expect(new ExplorerPage(player).node("1")).toBeVisible();
+  await expect(player.getByTestId("draft-editor")).toHaveCount(0);
+  await player.keyboard.press("f");
+  await expect(player.getByRole("form", { name: /follow-up/ })).toHaveCount(0);
+});
