@@ -140,7 +140,6 @@ export function CharacterImport({ game, character, edition }: { game: string; ch
           isDragActive ? "border-accent bg-ink-850" : "border-ink-700 hover:border-ink-400"
         } ${busy ? "cursor-wait opacity-70" : ""}`}
       >
-        <input {...getInputProps({ "aria-label": "Character file (.csv or .json)" })} />
         <p className="font-medium text-ink-100">
           {isDragActive ? "Drop the file to check it" : "Drop a .csv or .json file here, or choose one"}
         </p>
@@ -148,6 +147,9 @@ export function CharacterImport({ game, character, edition }: { game: string; ch
           Up to {LIMIT_MB} MB, one character. Nothing is written until you have seen what changes and pressed Import.
         </p>
       </div>
+
+      {/* Outside the drop area: an input inside an element with the button role is a control nested in a control. */}
+      <input {...getInputProps({ "aria-label": "Character file (.csv or .json)" })} />
 
       <Progress stage={stage} editionName={edition.name} />
 
