@@ -152,7 +152,10 @@ test("a coach checks a file, sees what it changes, imports it into the draft; a 
   await playerPage.close();
 });
 
-test("a file over 10 MB is refused from its size, before it is read or sent", async ({ page, browser }) => {
+test("a file over 10 MB is refused from its size without being sent; a large one is read behind a progress bar", async ({
+  page,
+  browser,
+}) => {
   const playerPage = await (await browser.newContext()).newPage();
   const { gameSlug, moves } = await teamGame(page, playerPage);
   await playerPage.close();
@@ -173,6 +176,28 @@ test("a file over 10 MB is refused from its size, before it is read or sent", as
   await expect(importPage.progress).toHaveCount(0);
   expect(uploads).toEqual([]);
   expect(await moves()).toBe(0);
+
+  // A large file under the limit is read in chunks behind a progress bar, and a bad row at its end is found by its line.
+  await page.evaluate(() => {
+    const seen: string[] = [];
+    (window as unknown as { progressSeen: string[] }).progressSeen = seen;
+    new MutationObserver(() => {
+      const bar = document.querySelector('[role="progressbar"]');
+      const now = bar?.getAttribute("aria-valuenow");
+      if (now && seen.at(-1) !== now) seen.push(now);
+    }).observe(document.body, { subtree: true, childList: true, attributes: true });
+  });
+  const badRow = "move,zz,zz,Late Mistake,overhead,10,12,-3,6,6,,,standing,,,,,,,,,";
+  const large = `${example}${"\r\n".repeat(3_000_000)}${badRow}\r\n`;
+  await importPage.choose(csv(large));
+  await expect(importPage.problems).toHaveText([/^line 3000025, column level: unknown level "overhead"/], {
+    timeout: 30_000,
+  });
+  expect(lineOf(large, badRow)).toBe(3_000_025);
+  const seen = (await page.evaluate(() => (window as unknown as { progressSeen: string[] }).progressSeen)).map(Number);
+  expect(seen.some((v) => v > 0 && v < 100)).toBe(true);
+  expect(seen).toEqual([...seen].sort((a, b) => a - b));
+  expect(uploads).toEqual([]);
 
   // The next file is checked as usual.
   await importPage.choose(csv(example));
