@@ -12,6 +12,7 @@ import {
   importUrl,
   sendCharacterFile,
   showValue,
+  type UploadOutcome,
 } from "@/lib/character-import";
 import type { ImportAnswer, ImportCounts, ImportSection } from "@/lib/dto";
 
@@ -36,6 +37,18 @@ const ACCEPT = {
 const secondaryButton = "rounded border border-ink-700 px-3 py-1.5 text-sm text-ink-100 hover:border-ink-400";
 const LIMIT_MB = MAX_FILE_BYTES / (1024 * 1024);
 
+/** "merrith.csv has 2 problems: fix them in the file and choose it again." */
+function problemsIn(file: File, problems: FileProblem[]): string {
+  const n = problems.length;
+  return `${file.name} has ${n} problem${n === 1 ? "" : "s"}: fix ${n === 1 ? "it" : "them"} in the file and choose it again.`;
+}
+
+/** The server's refusal: its problems listed under our sentence, or its own words when it names none. */
+function refusedBy(file: File, sent: Extract<UploadOutcome, { ok: false }>): Stage {
+  const message = sent.problems.length > 0 ? `${problemsIn(file, sent.problems)} Nothing was imported.` : sent.message;
+  return { kind: "refused", file, local: false, message, problems: sent.problems };
+}
+
 /**
  * A character file into a draft Edition: checked in the browser first (size before reading,
  * CSV streamed with a progress bar), then sent to the server for a preview of every change,
@@ -57,24 +70,19 @@ export function CharacterImport({ game, character, edition }: { game: string; ch
       });
       if (!current()) return;
       if (!local.ok) {
-        const n = local.problems.length;
         setStage({
           kind: "refused",
           file,
           local: true,
           problems: local.problems,
-          message: `${file.name} has ${n} problem${n === 1 ? "" : "s"}. Fix ${n === 1 ? "it" : "them"} in the file and choose it again; nothing was sent or imported.`,
+          message: `${problemsIn(file, local.problems)} Nothing was sent or imported.`,
         });
         return;
       }
       setStage({ kind: "previewing", file });
       const sent = await sendCharacterFile(importUrl(game, edition.slug, character.slug, true), file);
       if (!current()) return;
-      setStage(
-        sent.ok
-          ? { kind: "preview", file, answer: sent.answer }
-          : { kind: "refused", file, local: false, message: sent.message, problems: sent.problems },
-      );
+      setStage(sent.ok ? { kind: "preview", file, answer: sent.answer } : refusedBy(file, sent));
     },
     [game, edition.slug, character.slug],
   );
@@ -84,11 +92,7 @@ export function CharacterImport({ game, character, edition }: { game: string; ch
     setStage({ kind: "importing", file, answer });
     const sent = await sendCharacterFile(importUrl(game, edition.slug, character.slug, false), file);
     if (attempt.current !== mine) return;
-    setStage(
-      sent.ok
-        ? { kind: "done", file, answer: sent.answer }
-        : { kind: "refused", file, local: false, message: sent.message, problems: sent.problems },
-    );
+    setStage(sent.ok ? { kind: "done", file, answer: sent.answer } : refusedBy(file, sent));
   };
 
   const onDrop = useCallback(
@@ -159,7 +163,12 @@ export function CharacterImport({ game, character, edition }: { game: string; ch
 
       {(stage.kind === "preview" || stage.kind === "importing") && (
         <section aria-labelledby="import-preview" className="space-y-4">
-          <h2 id="import-preview" ref={resultHeading} tabIndex={-1} className="text-lg font-semibold">
+          <h2
+            id="import-preview"
+            ref={resultHeading}
+            tabIndex={-1}
+            className="text-lg font-semibold focus-visible:outline-none"
+          >
             What importing {stage.file.name} into {edition.name} changes
           </h2>
           <Preview answer={stage.answer} />
@@ -189,7 +198,12 @@ export function CharacterImport({ game, character, edition }: { game: string; ch
 
       {stage.kind === "done" && (
         <section aria-labelledby="import-done" className="space-y-3 rounded-lg border border-block-plus/50 p-4">
-          <h2 id="import-done" ref={resultHeading} tabIndex={-1} className="text-lg font-semibold">
+          <h2
+            id="import-done"
+            ref={resultHeading}
+            tabIndex={-1}
+            className="text-lg font-semibold focus-visible:outline-none"
+          >
             Imported {stage.file.name} into {edition.name}
           </h2>
           <p role="status">{countsSentence(stage.answer.counts)}</p>
@@ -248,7 +262,7 @@ function Refusal({
       aria-labelledby="import-refused"
       className="space-y-3 rounded-lg border border-block-launch-punishable/60 p-4"
     >
-      <h2 id="import-refused" ref={heading} tabIndex={-1} className="text-lg font-semibold">
+      <h2 id="import-refused" ref={heading} tabIndex={-1} className="text-lg font-semibold focus-visible:outline-none">
         {stage.problems.length > 0 ? "Nothing was imported" : "That did not work"}
       </h2>
       <p role="alert" className="text-ink-100">
@@ -332,8 +346,8 @@ function Preview({ answer }: { answer: ImportAnswer }) {
       )}
       {preview.kept.length > 0 && (
         <p className="text-sm text-ink-300">
-          The file gives the character’s {preview.kept.map((k) => k.field).join(" and ")} differently; those belong to
-          the game and stay as they are.
+          The file gives the character’s {preview.kept.map((k) => k.field).join(" and ")} differently; the character’s
+          own details stay as they are.
         </p>
       )}
     </div>
