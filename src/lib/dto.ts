@@ -3,7 +3,7 @@
  * `src/server/db/queries/` return, route handlers answer with, and client
  * components render. Plain types only, so both sides may import them.
  */
-import type { Level, Outcome } from "@/lib/engine";
+import type { FieldChange, Level, Outcome } from "@/lib/engine";
 import type { GraphResponse } from "@/lib/explorer";
 import type { PermalinkView, PermalinkVisibility } from "@/lib/permalink";
 import type { Role } from "@/lib/roles";
@@ -157,4 +157,34 @@ export interface MoveList {
   stances: StanceEntry[];
   moves: MoveEntry[];
   cancels: CancelEntry[];
+}
+
+// Character files
+
+/** What an import adds, changes (field by field, as `diffGraphs` reports nodes and edges) and removes, by key. */
+export interface ImportSection {
+  added: string[];
+  changed: { key: string; changes: FieldChange[] }[];
+  removed: string[];
+}
+
+export interface ImportPreview {
+  character: string;
+  stances: ImportSection;
+  moves: ImportSection;
+  edges: ImportSection;
+  /** Unchanged moves whose place number in the list is written anew (a move added or moved above them shifts them). */
+  reordered: number;
+  /** Fields of the character the file gives differently; they belong to the game and stay as they are. */
+  kept: FieldChange[];
+}
+
+export type ImportCounts = Record<"stances" | "moves" | "edges", { added: number; changed: number; removed: number }>;
+
+/** The import route's answer to a file it could read: what it would write (`?preview=1`) or wrote. */
+export interface ImportAnswer {
+  preview: ImportPreview;
+  problems: [];
+  applied: boolean;
+  counts: ImportCounts;
 }

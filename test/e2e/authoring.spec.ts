@@ -45,7 +45,7 @@ test("a coach starts a game, adds a character, publishes the first Edition and s
   const character = page.getByRole("form", { name: "Add a character" });
   await character.getByLabel("Name").fill("Corin Ash");
   await character.getByRole("button", { name: "Add character" }).click();
-  await expect(page.getByRole("link", { name: "Corin Ash" })).toBeVisible();
+  await expect(page.getByRole("link", { name: "Corin Ash", exact: true })).toBeVisible();
 
   // Publishing asks first, then freezes the draft.
   await page.getByRole("button", { name: "Publish…" }).click();
@@ -79,7 +79,7 @@ test("a coach starts a game, adds a character, publishes the first Edition and s
   );
   await player.goto(gameUrl);
   await expect(player.getByRole("heading", { level: 1, name: gameName })).toBeVisible();
-  await expect(player.getByRole("link", { name: "Corin Ash" })).toBeVisible();
+  await expect(player.getByRole("link", { name: "Corin Ash", exact: true })).toBeVisible();
   await expect(player.getByRole("heading", { name: "Edit this game" })).toHaveCount(0);
   await expect(player.getByRole("button", { name: /Publish/ })).toHaveCount(0);
   await player.goto("/teams");

@@ -142,6 +142,27 @@ const PAGES: Record<string, Target[]> = {
       expect: all(404),
     },
   ],
+  "(app)/games/[game]/[character]/import/page.tsx": [
+    {
+      // Coaches and owners get the import; a viewer or player of the team reads why not.
+      what: "importing a file into team A's character",
+      path: `${privateCharacter}/import`,
+      expect: membersOnly(),
+      membersSee: ["character"],
+    },
+    {
+      what: "importing into team A's character, into an Edition that does not exist",
+      path: `${privateCharacter}/import?edition=%25E0`,
+      expect: membersOnly(),
+    },
+    // The demo game is read-only: signed in, the page says so.
+    { what: "importing into a public character", path: "/games/vesper-circuit/tarrow/import", expect: signedIn },
+    {
+      what: "importing into a character that does not exist",
+      path: "/games/vesper-circuit/nobody/import",
+      expect: all(404),
+    },
+  ],
   "(app)/teams/page.tsx": [
     // The outsider's list has their own team only.
     { what: "my teams", path: "/teams", expect: signedIn, membersSee: ["team"] },

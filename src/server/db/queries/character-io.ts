@@ -9,6 +9,7 @@ import {
   type PortableStance,
   edgeKey,
 } from "@/lib/character-file";
+import type { ImportCounts, ImportPreview, ImportSection } from "@/lib/dto";
 import type { FieldChange } from "@/lib/engine";
 import { AppError } from "@/lib/errors";
 import { getDb } from "../index";
@@ -167,25 +168,7 @@ export async function loadPortableEdition({
 // ---------------------------------------------------------------------------
 // Import
 
-/** What an import adds, changes (field by field, as `diffGraphs` reports nodes and edges) and removes, by key. */
-export interface ImportSection {
-  added: string[];
-  changed: { key: string; changes: FieldChange[] }[];
-  removed: string[];
-}
-
-export interface ImportPreview {
-  character: string;
-  stances: ImportSection;
-  moves: ImportSection;
-  edges: ImportSection;
-  /** Unchanged moves whose place number in the list is written anew (a move added or moved above them shifts them). */
-  reordered: number;
-  /** Fields of the character the file gives differently; they belong to the game and stay as they are. */
-  kept: FieldChange[];
-}
-
-export type ImportCounts = Record<"stances" | "moves" | "edges", { added: number; changed: number; removed: number }>;
+export type { ImportCounts, ImportPreview, ImportSection } from "@/lib/dto";
 
 export type ImportResult =
   { ok: true; preview: ImportPreview; counts: ImportCounts; applied: boolean } | { ok: false; problems: FileProblem[] };

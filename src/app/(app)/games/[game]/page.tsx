@@ -23,6 +23,7 @@ export default async function GamePage({ params }: Props) {
     game.teamId !== null && user ? getRole({ teamId: game.teamId, userId: user.id }) : null,
   ]);
   const edits = atLeast(role, "coach");
+  const draft = editions.find((e) => e.status === "draft");
   return (
     <div className="space-y-6">
       <Breadcrumb trail={[{ href: "/games", label: "Games" }]} />
@@ -80,6 +81,21 @@ export default async function GamePage({ params }: Props) {
             Edit this game
           </h2>
           <GameAdmin game={game.slug} editions={editions} />
+          {draft && characters.length > 0 && (
+            <nav aria-label="Import from a file" className="flex flex-wrap items-center gap-2 text-sm">
+              <span className="text-ink-400">Import frame data from a file into {draft.name}:</span>
+              {characters.map((c) => (
+                <Link
+                  key={c.id}
+                  href={`/games/${game.slug}/${c.slug}/import?edition=${draft.slug}`}
+                  aria-label={`Import ${c.name} into ${draft.name}`}
+                  className="rounded border border-ink-700 px-2 py-1 no-underline hover:border-accent-muted"
+                >
+                  {c.name}
+                </Link>
+              ))}
+            </nav>
+          )}
         </section>
       )}
     </div>

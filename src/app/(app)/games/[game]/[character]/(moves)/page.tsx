@@ -2,6 +2,8 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { Breadcrumb } from "@/components/ui/breadcrumb";
 import { MoveTable } from "@/components/moves/move-table";
+import { auth } from "@/server/auth";
+import { atLeast, getRole } from "@/server/authz";
 import { listEditions } from "@/server/db/queries/games";
 import { getMoveList } from "@/server/db/queries/moves";
 import { loadCharacter } from "../../../data";
@@ -25,6 +27,9 @@ export default async function CharacterPage({ params, searchParams }: Props) {
   }
   const list = await getMoveList({ characterId: character.id, editionId: edition.id });
   const unknownEdition = typeof wanted === "string" && wanted !== edition.slug;
+  const user = edition.status === "draft" && game.teamId !== null ? await auth() : null;
+  const role = user && game.teamId !== null ? await getRole({ teamId: game.teamId, userId: user.id }) : null;
+  const canImport = atLeast(role, "coach");
 
   return (
     <div className="space-y-6">
@@ -66,6 +71,13 @@ export default async function CharacterPage({ params, searchParams }: Props) {
             }`}
           >
             What changed for {character.name} in {edition.name} →
+          </Link>
+        </p>
+      )}
+      {canImport && (
+        <p className="text-sm">
+          <Link href={`/games/${game.slug}/${character.slug}/import?edition=${edition.slug}`}>
+            Import {character.name} from a file into {edition.name} →
           </Link>
         </p>
       )}
