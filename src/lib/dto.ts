@@ -111,6 +111,8 @@ export interface StanceEntry {
 
 export interface MoveEntry {
   id: number;
+  /** The row's version: a save based on it is refused once someone else has saved. */
+  version: number;
   key: string;
   input: string;
   name: string;

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { edgeChangesSchema, newMoveSchema } from "@/lib/character-edit";
 import {
+  coachErrorMap,
   outcomeCell,
   outcomeText,
   POSTURES,
@@ -27,6 +28,35 @@ function whole(text: string): number | string {
 
 const outcome = (text: string): PortableOutcome | string => outcomeCell(text.trim());
 
+/** The move's numbers a coach fixes in place in the move list, each read from text as the form reads it. */
+export const QUICK_FIELDS = {
+  damage: whole,
+  startup: (t: string) => (t.trim() === "" ? null : whole(t)),
+  onBlock: outcome,
+  onHit: outcome,
+  onCounterHit: outcome,
+} as const;
+export type QuickField = keyof typeof QUICK_FIELDS;
+
+/** One quick field's text as the value to save, or what is wrong with it in words. */
+export function readQuickField(
+  field: QuickField,
+  text: string,
+): { ok: true; value: unknown } | { ok: false; message: string } {
+  // Checked as a field of a move, so the words name what an outcome or a number may be.
+  const read = newMoveSchema
+    .pick({ [field]: true } as Record<QuickField, true>)
+    .safeParse({ [field]: QUICK_FIELDS[field](text) }, { error: coachErrorMap });
+  return read.success
+    ? { ok: true, value: (read.data as Record<string, unknown>)[field] }
+    : { ok: false, message: read.error.issues[0]?.message ?? "is not valid" };
+}
+
+/** A quick field's value as the cell shows it for editing. */
+export function quickFieldText(value: PortableOutcome | number | null): string {
+  return value === null ? "" : typeof value === "number" ? String(value) : String(outcomeText(value));
+}
+
 export const moveFormSchema = z
   .object({
     key: z.string(),
@@ -48,8 +78,8 @@ export const moveFormSchema = z
     input: f.input.trim(),
     name: f.name.trim(),
     level: f.level,
-    damage: whole(f.damage),
-    startup: f.startup.trim() === "" ? null : whole(f.startup),
+    damage: QUICK_FIELDS.damage(f.damage),
+    startup: QUICK_FIELDS.startup(f.startup),
     onBlock: outcome(f.onBlock),
     onHit: outcome(f.onHit),
     onCounterHit: outcome(f.onCounterHit),

@@ -1,7 +1,7 @@
 import { randomUUID } from "node:crypto";
 import { expect, test } from "@playwright/test";
 import { query } from "./db";
-import { signUpAs, TeamsPage } from "./pages/team-pages";
+import { joinAsPlayer, signUpAs, TeamsPage } from "./pages/team-pages";
 
 // A coach brings a game of the team's own in: starts it from the team page, adds a character,
 // publishes the first Edition and starts the next one as a draft; a player of the team reads
@@ -69,14 +69,7 @@ test("a coach starts a game, adds a character, publishes the first Edition and s
   ]);
 
   // A player of the team reads the game, drafts included, and is offered no change.
-  const player = await (await browser.newContext()).newPage();
-  const playerEmail = `player-${tag()}@example.test`;
-  await signUpAs(player, "Tam Okoro", playerEmail, "/teams");
-  await query(
-    `insert into memberships (team_id, user_id, role)
-     select t.id, u.id, 'player' from teams t, users u where t.name = ? and u.email = ?`,
-    [teamName, playerEmail],
-  );
+  const player = await joinAsPlayer(browser, teamName, "Tam Okoro");
   await player.goto(gameUrl);
   await expect(player.getByRole("heading", { level: 1, name: gameName })).toBeVisible();
   await expect(player.getByRole("link", { name: "Corin Ash", exact: true })).toBeVisible();

@@ -3,7 +3,7 @@ import { readFile } from "node:fs/promises";
 import { expect, test, type Page } from "@playwright/test";
 import { query } from "./db";
 import { ExplorerPage } from "./pages/explorer-page";
-import { signUpAs, TeamsPage } from "./pages/team-pages";
+import { joinAsPlayer, signUpAs, TeamsPage } from "./pages/team-pages";
 
 // A coach changes a draft from the Explorer: a follow-up added from the keyboard, a number
 // changed, a save that someone else beat (both values shown, the coach chooses), a move deleted
@@ -114,17 +114,42 @@ test("a coach adds a follow-up, changes a number, meets a conflict and deletes a
   await expect(explorer.node("1,2,3")).toHaveCount(0);
 
   // A player of the team reads the draft and is offered no change.
-  const player = await (await browser.newContext()).newPage();
-  const playerEmail = `player-${tag()}@example.test`;
-  await signUpAs(player, "Bo Lindqvist", playerEmail, "/teams");
-  await query(
-    `insert into memberships (team_id, user_id, role)
-     select t.id, u.id, 'player' from teams t, users u where t.name = ? and u.email = ?`,
-    [t.teamName, playerEmail],
-  );
+  const player = await joinAsPlayer(browser, t.teamName, "Bo Lindqvist");
   await player.goto(`/games/${t.game}/merrith/explore/1?edition=${t.edition}`);
   await expect(new ExplorerPage(player).node("1")).toBeVisible();
   await expect(player.getByTestId("draft-editor")).toHaveCount(0);
   await player.keyboard.press("f");
   await expect(player.getByRole("form", { name: /follow-up/ })).toHaveCount(0);
+});
+
+test("a coach fixes a number in place in the draft's move list; a save someone beat shows both values", async ({
+  page,
+}) => {
+  const t = await teamGameWithMerrith(page);
+  await page.goto(`/games/${t.game}/merrith?edition=${t.edition}`);
+  const row = page.locator('tr[data-move-key="2"]');
+  // From the keyboard: focus the cell's button, Enter opens it, Enter saves.
+  await row.getByRole("button", { name: "Change the on block of 2" }).focus();
+  await page.keyboard.press("Enter");
+  await row.getByLabel("The on block of 2").fill("-9z");
+  await page.keyboard.press("Enter");
+  await expect(row.getByRole("alert")).toContainText("on block must be");
+  await row.getByLabel("The on block of 2").fill("-9");
+  await page.keyboard.press("Enter");
+  await expect(row.locator('[data-field="onBlock"]')).toContainText("-9");
+  await expect(row.getByRole("button", { name: "Change the on block of 2" })).toBeVisible();
+
+  // The list was read at one version; someone saves the move; this coach's fix meets theirs.
+  const url = `/api/games/${t.game}/editions/${t.edition}/characters/merrith/moves/2`;
+  const now = (await (await page.request.get(url)).json()) as { version: number };
+  await row.getByRole("button", { name: "Change the damage of 2" }).click();
+  expect((await page.request.patch(url, { data: { version: now.version, changes: { damage: 14 } } })).status()).toBe(
+    200,
+  );
+  await row.getByLabel("The damage of 2").fill("12");
+  await page.keyboard.press("Enter");
+  const conflict = row.getByTestId("quick-fix-conflict");
+  await expect(conflict).toContainText("theirs 14, yours 12");
+  await conflict.getByRole("button", { name: "Save mine" }).click();
+  await expect(row.getByRole("button", { name: "Change the damage of 2" })).toContainText("12");
 });

@@ -1,8 +1,11 @@
 import Link from "next/link";
+import type { ReactNode } from "react";
 import type { CancelEntry, MoveEntry, MoveList } from "@/lib/dto";
 import { BlockClassTag, type BlockRules } from "@/components/ui/block-class";
 import { Frames } from "@/components/ui/frames";
 import { LevelBadge } from "@/components/ui/level-badge";
+import type { QuickField } from "@/lib/edit-forms";
+import { QuickFix } from "./quick-fix";
 import { explainFramesSaved, explainGap, explainOnBlock, framesSaved, framesSavedLabel, gapJails } from "@/lib/engine";
 
 interface Section {
@@ -91,11 +94,14 @@ export function MoveTable({
   list,
   rules,
   exploreHref,
+  moveUrl,
 }: {
   list: MoveList;
   rules: BlockRules;
   /** Where the Explorer opens a string that starts with this move. */
   exploreHref: (moveKey: string) => string;
+  /** For a coach on a draft: a move's address under the edit routes; its numbers are then fixed in place. */
+  moveUrl?: (moveKey: string) => string;
 }) {
   const cancelsFrom = new Map<number, CancelEntry[]>();
   for (const c of list.cancels) cancelsFrom.set(c.fromId, [...(cancelsFrom.get(c.fromId) ?? []), c]);
@@ -152,6 +158,7 @@ export function MoveTable({
                     cancels={cancelsFrom.get(m.id) ?? []}
                     rules={rules}
                     exploreHref={exploreHref}
+                    moveUrl={moveUrl}
                   />
                 ))}
               </tbody>
@@ -168,12 +175,23 @@ function MoveRows({
   cancels,
   rules,
   exploreHref,
+  moveUrl,
 }: {
   move: MoveEntry;
   cancels: CancelEntry[];
   rules: BlockRules;
   exploreHref: (moveKey: string) => string;
+  moveUrl?: (moveKey: string) => string;
 }) {
+  // A number as the list shows it; for a coach on a draft, a button that fixes it in place.
+  const fixable = (field: QuickField, shown: ReactNode) =>
+    moveUrl ? (
+      <QuickFix url={moveUrl(move.key)} moveKey={move.key} version={move.version} field={field} value={move[field]}>
+        {shown}
+      </QuickFix>
+    ) : (
+      shown
+    );
   const notes = [move.range, ...move.tags].filter(Boolean).join(" · ");
   return (
     <>
@@ -199,22 +217,24 @@ function MoveRows({
         <td className={td}>
           <LevelBadge level={move.level} />
         </td>
-        <td className={`${td} font-mono tabular-nums`}>{move.damage}</td>
-        <td className={`${td} font-mono tabular-nums`}>{move.startup ?? <span className="text-ink-600">—</span>}</td>
+        <td className={`${td} font-mono tabular-nums`}>{fixable("damage", move.damage)}</td>
+        <td className={`${td} font-mono tabular-nums`}>
+          {fixable("startup", move.startup ?? <span className="text-ink-600">—</span>)}
+        </td>
         <td className={td}>
           <GapCell move={move} />
         </td>
         <td className={td}>
           <span data-field="onBlock">
-            <Frames value={move.onBlock} title={explainOnBlock(move.onBlock, rules)} />
+            {fixable("onBlock", <Frames value={move.onBlock} title={explainOnBlock(move.onBlock, rules)} />)}
           </span>
           <BlockClassTag onBlock={move.onBlock} rules={rules} />
         </td>
         <td className={td} data-field="onHit">
-          <Frames value={move.onHit} />
+          {fixable("onHit", <Frames value={move.onHit} />)}
         </td>
         <td className={td} data-field="onCounterHit">
-          <Frames value={move.onCounterHit} />
+          {fixable("onCounterHit", <Frames value={move.onCounterHit} />)}
         </td>
         <td className={`${td} text-xs text-ink-400`}>{notes}</td>
       </tr>

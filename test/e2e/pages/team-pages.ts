@@ -1,4 +1,6 @@
-import { expect, type Locator, type Page } from "@playwright/test";
+import { randomUUID } from "node:crypto";
+import { expect, type Browser, type Locator, type Page } from "@playwright/test";
+import { query } from "../db";
 import { signUpAndConfirm } from "./auth-pages";
 
 export const PASSWORD = "frame-trap-drills";
@@ -6,6 +8,22 @@ export const PASSWORD = "frame-trap-drills";
 /** Signs a new person up through the form, confirms the address, and waits until the header shows them. */
 export async function signUpAs(page: Page, name: string, email: string, callbackUrl?: string) {
   await signUpAndConfirm(page, { name, email, password: PASSWORD }, callbackUrl);
+}
+
+/**
+ * A new person in their own browser context, signed up and put into the team as a player (as
+ * an accepted invite would): the page they read with.
+ */
+export async function joinAsPlayer(browser: Browser, teamName: string, name: string): Promise<Page> {
+  const page = await (await browser.newContext()).newPage();
+  const email = `player-${randomUUID().slice(0, 8)}@example.test`;
+  await signUpAs(page, name, email, "/teams");
+  await query(
+    `insert into memberships (team_id, user_id, role)
+     select t.id, u.id, 'player' from teams t, users u where t.name = ? and u.email = ?`,
+    [teamName, email],
+  );
+  return page;
 }
 
 /** /teams: the user's teams and "Start a team". */

@@ -1,5 +1,5 @@
 import { describe, expect, test } from "vitest";
-import { linkChanges, moveFormSchema, toLinkForm, toMoveForm } from "@/lib/edit-forms";
+import { linkChanges, moveFormSchema, readQuickField, toLinkForm, toMoveForm } from "@/lib/edit-forms";
 import { move } from "../character-io/fixtures";
 
 describe("the edit forms", () => {
@@ -49,5 +49,16 @@ describe("the edit forms", () => {
     const gap = linkChanges("follow", { ...toLinkForm(), input: ",2", gapOnBlock: "1.5" });
     expect(gap.success).toBe(false);
     expect(gap.error?.issues[0]?.path).toEqual(["gapOnBlock"]);
+  });
+});
+
+describe("fixing one number in place", () => {
+  test("reads the text as the form does and names what is wrong", () => {
+    expect(readQuickField("onBlock", " -9 ")).toEqual({ ok: true, value: -9 });
+    expect(readQuickField("onHit", "knockdown 2")).toEqual({ ok: true, value: { state: "knockdown", frames: 2 } });
+    expect(readQuickField("startup", "")).toEqual({ ok: true, value: null });
+    const wrong = readQuickField("onBlock", "-9z");
+    expect(wrong.ok).toBe(false);
+    expect(!wrong.ok && wrong.message).toMatch(/^must be a whole number/);
   });
 });

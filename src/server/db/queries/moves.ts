@@ -107,6 +107,7 @@ export async function getMoveList(scope: Scope): Promise<MoveList> {
       const { fromPosture: _posture, stance: _stanceKey, ...fields } = moveItems[i]!.item;
       return {
         id: m.id,
+        version: m.version,
         ...fields,
         stance: m.stanceId === null ? null : (stanceById.get(m.stanceId) ?? null),
         via: incoming.get(m.id) ?? null,

@@ -29,7 +29,8 @@ export default async function CharacterPage({ params, searchParams }: Props) {
   const unknownEdition = typeof wanted === "string" && wanted !== edition.slug;
   const user = edition.status === "draft" && game.teamId !== null ? await auth() : null;
   const role = user && game.teamId !== null ? await getRole({ teamId: game.teamId, userId: user.id }) : null;
-  const canImport = atLeast(role, "coach");
+  // A coach or owner on a draft: the import link, and numbers fixed in place in the list.
+  const edits = atLeast(role, "coach");
 
   return (
     <div className="space-y-6">
@@ -74,7 +75,7 @@ export default async function CharacterPage({ params, searchParams }: Props) {
           </Link>
         </p>
       )}
-      {canImport && (
+      {edits && (
         <p className="text-sm">
           <Link href={`/games/${game.slug}/${character.slug}/import?edition=${edition.slug}`}>
             Import {character.name} from a file into {edition.name} →
@@ -96,6 +97,12 @@ export default async function CharacterPage({ params, searchParams }: Props) {
           rules={{ fastest: game.fastest, launchAt: game.launchAt }}
           exploreHref={(key) =>
             `/games/${game.slug}/${character.slug}/explore/${encodeURIComponent(key)}?edition=${edition.slug}`
+          }
+          moveUrl={
+            edits
+              ? (key) =>
+                  `/api/games/${game.slug}/editions/${edition.slug}/characters/${character.slug}/moves/${encodeURIComponent(key)}`
+              : undefined
           }
         />
       )}
