@@ -377,6 +377,16 @@ export class PathWalker implements PathView {
     return this.g.edgeIds[this.edgeInto(i + 1)]!;
   }
 
+  /** The compiled index of the current path's node at position i: what `nodeIdAt` names. */
+  nodeIndexAt(i: number): number {
+    return this.nodeAt[i]!;
+  }
+
+  /** The compiled index of the current path's edge at position i: what `edgeIdAt` names. */
+  edgeIndexAt(i: number): number {
+    return this.edgeInto(i + 1);
+  }
+
   get nodes(): string[] {
     const out = new Array<string>(this.d + 1);
     for (let i = 0; i <= this.d; i++) out[i] = this.g.nodeIds[this.nodeAt[i]!]!;

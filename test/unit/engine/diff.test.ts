@@ -341,6 +341,43 @@ describe("what changed on random graphs", () => {
       expect(diffGraphs(a, b, o).paths).toEqual(naivePathDiff(a, b, o));
     },
   );
+  // With every edge's input one of two, most paths from a root share their input with others:
+  // those are listed by their edge ids, which is where grouping equal inputs could go wrong.
+  const twoInputs = (g: MoveGraph): MoveGraph => ({
+    nodes: g.nodes,
+    edges: g.edges.map((e) => ({
+      ...e,
+      input: [...e.id].reduce((sum, c) => sum + c.charCodeAt(0), 0) % 2 ? ",1" : "",
+    })),
+  });
+  test.prop([pairs], { numRuns: 300 })(
+    "when many paths share an input, the paths listed are those the plain comparison finds, in its order",
+    ([a, b, o]) => {
+      const [before, after] = [twoInputs(a), twoInputs(b)];
+      expect(diffGraphs(before, after, o).paths).toEqual(naivePathDiff(before, after, o));
+    },
+  );
+
+  // Edits of the endings alone (on block, on hit) leave every step clean: the paths that end on
+  // an edited move are compared, and the rest are known to be the same without comparing.
+  const endingEdits = graphs.chain((g) =>
+    fc.tuple(
+      fc.constant(g),
+      fc
+        .array(
+          fieldEditArb.map((e) => ({ ...e, node: true })),
+          { minLength: 1, maxLength: 3 },
+        )
+        .map((e) => applyFieldEdits(g, e, { ...READ_BY_PATHS, move: ["onBlock", "onHit"] }).graph),
+      optionsArb,
+    ),
+  );
+  test.prop([endingEdits], { numRuns: 300 })(
+    "after edits of moves' endings only, the paths listed are those the plain comparison finds",
+    ([a, b, o]) => {
+      expect(diffGraphs(a, b, o).paths).toEqual(naivePathDiff(a, b, o));
+    },
+  );
 });
 
 describe("the walk's skipExtensions", () => {
