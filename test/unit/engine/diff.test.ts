@@ -15,7 +15,7 @@ import {
 } from "../../../src/lib/engine";
 import { createPathWalker } from "../../../src/lib/engine/walk";
 import { cancel, enter, follow, move, stance } from "./fixtures";
-import { applyEdits, applyFieldEdits, editArb, fieldEditArb, READ_BY_PATHS } from "./graph-edits";
+import { applyFieldEdits, editedPairs, fieldEditArb, READ_BY_PATHS } from "./graph-edits";
 import { graphArb, optionsArb } from "./random-graphs";
 
 const NOTHING: GraphDiff = {
@@ -224,13 +224,7 @@ describe("what changed, worked by hand", () => {
 });
 
 const graphs = graphArb({ moves: 6, stances: 3, acyclic: false });
-const pairs = graphs.chain((g) =>
-  fc.tuple(
-    fc.constant(g),
-    fc.array(editArb, { maxLength: 6 }).map((edits) => applyEdits(g, edits)),
-    optionsArb,
-  ),
-);
+const pairs = editedPairs(graphs);
 
 const byCodeUnits = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
 const sorted = (ids: Iterable<string>) => [...ids].sort(byCodeUnits);
