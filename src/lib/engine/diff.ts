@@ -10,7 +10,7 @@ import type {
   PathChange,
   PathView,
 } from "./types";
-import { PathWalker, resolveOptions } from "./walk";
+import { PathWalker, resolveOptions, type PassOver } from "./walk";
 
 /**
  * What changed between two graphs of one character (DESIGN.md, "Editions over time"): nodes
@@ -25,14 +25,16 @@ export function diffGraphs(before: MoveGraph, after: MoveGraph, options?: Explor
   const order = edgeOrder(before, after);
   const was = new Side(before, order);
   const now = new Side(after, order);
-  const changes = new Changes(before, after, now.compiled, nodes, edges, resolved.maxDepth);
+  const where = new Where(before, after, nodes, edges);
+  const wasChanges = new Changes(was.compiled, where, resolved.maxDepth);
+  const nowChanges = new Changes(now.compiled, where, resolved.maxDepth);
   const paths: PathChange[] = [];
   const roots = [...new Set([...was.roots, ...now.roots])].sort(byCodeUnits);
   for (const root of roots) {
     const a = was.roots.has(root) ? new PathWalker(was.compiled, root, resolved) : null;
     const b = now.roots.has(root) ? new PathWalker(now.compiled, root, resolved) : null;
     // Roots come in order, so sorting each root's paths by input sorts the whole list.
-    for (const path of sortByInput(diffPathsFrom(root, a, b, was, now, changes))) paths.push(path);
+    for (const path of sortByInput(diffPathsFrom(root, a, b, was, now, wasChanges, nowChanges))) paths.push(path);
   }
   return { nodes, edges, paths };
 }
@@ -72,53 +74,56 @@ class Side {
  */
 const CARRIED_FIELDS: ReadonlySet<string> = new Set(["kind", "startup"]);
 
+/** Where the graphs differ, by id. */
+class Where {
+  /** Nodes changed in a field the steps after them read. */
+  readonly carried: ReadonlySet<string>;
+  /** Nodes changed in any field. */
+  readonly changedNodes: ReadonlySet<string>;
+  /** Edges added, removed or changed. */
+  readonly changedEdges: ReadonlySet<string>;
+  /** Per node, the fewest moves a path going on from it enters up to a change, in either graph (none: never). */
+  readonly movesToChange: ReadonlyMap<string, number>;
+
+  constructor(before: MoveGraph, after: MoveGraph, nodes: ItemsDiff, edges: ItemsDiff) {
+    this.carried = new Set(
+      nodes.changed.filter((c) => c.changes.some((f) => CARRIED_FIELDS.has(f.field))).map((c) => c.id),
+    );
+    this.changedNodes = new Set(nodes.changed.map((c) => c.id));
+    this.changedEdges = new Set([...edges.added, ...edges.removed, ...edges.changed.map((c) => c.id)]);
+    const ends = new Set([...nodes.added, ...nodes.removed, ...this.changedNodes]);
+    const fewest = movesToChange(before, ends, this.changedEdges);
+    for (const [id, moves] of movesToChange(after, ends, this.changedEdges)) {
+      fewest.set(id, Math.min(moves, fewest.get(id) ?? moves));
+    }
+    this.movesToChange = fewest;
+  }
+}
+
 /**
- * Where the graphs differ, kept to tell which paths must be compared one by one, as flags
- * by the after side's compiled indexes (the walk checks them at every step it takes). A path
- * that takes no changed edge and no node changed in a carried field is extended the same way
+ * Where the graphs differ, as flags by one side's compiled indexes (the walk checks them at
+ * every step it takes), to tell which paths must be compared one by one. A path that takes no
+ * changed edge and no node changed in a carried field (a clean path) is extended the same way
  * on both sides until an extension takes a changed edge or enters a changed node; when the
  * bounds let no extension get that far, every extension is the same on both sides.
  */
 class Changes {
-  /** Nodes changed in a field the steps after them read. */
   private readonly carried: Uint8Array;
-  /** Nodes changed in any field. */
   private readonly changedNode: Uint8Array;
-  /** Edges added or changed. */
   private readonly changedEdge: Uint8Array;
-  /** Per node, the fewest moves a path going on from it enters up to a change, in either graph (-1: never). */
+  /** -1: never. */
   private readonly movesToChange: Int32Array;
+  private readonly isMove: Uint8Array;
   private readonly maxDepth: number;
 
-  constructor(
-    before: MoveGraph,
-    after: MoveGraph,
-    walked: CompiledGraph,
-    nodes: ItemsDiff,
-    edges: ItemsDiff,
-    maxDepth: number,
-  ) {
+  constructor(walked: CompiledGraph, where: Where, maxDepth: number) {
     this.maxDepth = maxDepth;
-    const nodeFlags = (ids: Iterable<string>) => {
-      const flags = new Uint8Array(walked.nodeCount);
-      for (const id of ids) {
-        const i = walked.index.get(id);
-        if (i !== undefined) flags[i] = 1;
-      }
-      return flags;
-    };
-    this.carried = nodeFlags(
-      nodes.changed.filter((c) => c.changes.some((f) => CARRIED_FIELDS.has(f.field))).map((c) => c.id),
-    );
-    this.changedNode = nodeFlags(nodes.changed.map((c) => c.id));
-    const changedEdges = new Set([...edges.added, ...edges.removed, ...edges.changed.map((c) => c.id)]);
-    this.changedEdge = Uint8Array.from(walked.edgeIds, (id) => (changedEdges.has(id) ? 1 : 0));
-    const changedNodes = new Set([...nodes.added, ...nodes.removed, ...nodes.changed.map((c) => c.id)]);
-    const fewest = movesToChange(before, changedNodes, changedEdges);
-    for (const [id, moves] of movesToChange(after, changedNodes, changedEdges)) {
-      fewest.set(id, Math.min(moves, fewest.get(id) ?? moves));
-    }
-    this.movesToChange = Int32Array.from(walked.nodeIds, (id) => fewest.get(id) ?? -1);
+    const nodeFlags = (ids: ReadonlySet<string>) => Uint8Array.from(walked.nodeIds, (id) => (ids.has(id) ? 1 : 0));
+    this.carried = nodeFlags(where.carried);
+    this.changedNode = nodeFlags(where.changedNodes);
+    this.changedEdge = Uint8Array.from(walked.edgeIds, (id) => (where.changedEdges.has(id) ? 1 : 0));
+    this.movesToChange = Int32Array.from(walked.nodeIds, (id) => where.movesToChange.get(id) ?? -1);
+    this.isMove = walked.isMove;
   }
 
   /**
@@ -144,9 +149,26 @@ class Changes {
    * on both, given whether every step of the current path is clean (`cleanStep`).
    */
   sameBelow(path: PathWalker, clean: boolean): boolean {
-    if (!clean) return false;
-    const moves = this.movesToChange[path.nodeIndexAt(path.length - 1)]!;
-    return moves < 0 || path.hitCount + moves > this.maxDepth;
+    return clean && this.noChangeWithin(path.nodeIndexAt(path.length - 1), path.hitCount);
+  }
+
+  private noChangeWithin(node: number, hits: number): boolean {
+    const moves = this.movesToChange[node]!;
+    return moves < 0 || hits + moves > this.maxDepth;
+  }
+
+  /**
+   * The steps a walk may pass over, given `clean[d]` for each position d of its current path:
+   * from a clean path, an unchanged edge into an unchanged node below which no change is
+   * within reach leads to a path that is the same on both sides, as is every path extending
+   * it. Each side passes over the same steps, since a clean path is on both sides alike.
+   */
+  sameSteps(clean: readonly boolean[]): PassOver {
+    return (d, edge, to, hits) =>
+      clean[d] === true &&
+      this.changedEdge[edge] === 0 &&
+      this.changedNode[to] === 0 &&
+      this.noChangeWithin(to, hits + this.isMove[to]!);
   }
 }
 
@@ -196,39 +218,46 @@ function diffPathsFrom(
   after: PathWalker | null,
   was: Side,
   now: Side,
-  changes: Changes,
+  wasChanges: Changes,
+  nowChanges: Changes,
 ): PathChange[] {
   const out: PathChange[] = [];
-  // clean[i]: every step of the after walk's current path up to position i is clean. The
-  // walk's next path shares all positions but its last with a path it stood on before, so
-  // each step of the walk fills in one slot.
-  const clean: boolean[] = [];
-  const advanceAfter = (): boolean => {
-    if (after === null || !after.advance()) return false;
-    const i = after.length - 1;
-    clean[i] = (i === 0 || clean[i - 1] === true) && changes.cleanStep(after, i);
+  // clean[i]: every step of the walk's current path up to position i is clean. The walk's
+  // next path shares all positions but its last with a path it stood on before, so each step
+  // of the walk fills in one slot.
+  const cleanBefore: boolean[] = [];
+  const cleanAfter: boolean[] = [];
+  const advance = (walk: PathWalker | null, changes: Changes, clean: boolean[]): boolean => {
+    if (walk === null || !walk.advance()) return false;
+    const i = walk.length - 1;
+    clean[i] = (i === 0 || clean[i - 1] === true) && changes.cleanStep(walk, i);
     return true;
   };
-  let a = before?.advance() === true;
-  let b = advanceAfter();
+  if (before !== null && after !== null) {
+    // A root on one side only lists every path from it: nothing is passed over.
+    before.passOver(wasChanges.sameSteps(cleanBefore));
+    after.passOver(nowChanges.sameSteps(cleanAfter));
+  }
+  let a = advance(before, wasChanges, cleanBefore);
+  let b = advance(after, nowChanges, cleanAfter);
   while (a || b) {
     const order = !a ? 1 : !b ? -1 : comparePaths(before!, was.rank, after!, now.rank);
     if (order < 0) {
       out.push(pathChange(root, before!, "removed"));
-      a = before!.advance();
+      a = advance(before, wasChanges, cleanBefore);
     } else if (order > 0) {
       out.push(pathChange(root, after!, "added"));
-      b = advanceAfter();
+      b = advance(after, nowChanges, cleanAfter);
     } else {
-      const cleanPath = clean[after!.length - 1] === true;
-      const changed = changes.sameHere(after!, cleanPath) ? null : pathFieldChanges(before!, after!);
+      const clean = cleanAfter[after!.length - 1] === true;
+      const changed = nowChanges.sameHere(after!, clean) ? null : pathFieldChanges(before!, after!);
       if (changed !== null) out.push(pathChange(root, after!, "changed", changed));
-      if (changes.sameBelow(after!, cleanPath)) {
+      if (nowChanges.sameBelow(after!, clean)) {
         before!.skipExtensions();
         after!.skipExtensions();
       }
-      a = before!.advance();
-      b = advanceAfter();
+      a = advance(before, wasChanges, cleanBefore);
+      b = advance(after, nowChanges, cleanAfter);
     }
   }
   return out;

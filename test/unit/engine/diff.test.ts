@@ -3,6 +3,7 @@ import microdiff from "microdiff";
 import { isDeepStrictEqual } from "node:util";
 import { describe, expect } from "vitest";
 import {
+  compileGraph,
   diffGraphs,
   EngineInputError,
   explorePaths,
@@ -396,6 +397,32 @@ describe("the walk's skipExtensions", () => {
       }
       const expected = explorePaths(g, root, o)
         .filter((p) => !p.nodes.slice(0, -1).includes(at))
+        .map((p) => p.edges.join(" "));
+      expect(kept).toEqual(expected);
+    },
+  );
+});
+
+describe("the walk's passOver", () => {
+  const withNode = graphs.chain((g) =>
+    fc.tuple(
+      fc.constant(g),
+      fc.constantFrom(...g.nodes.filter((n) => n.kind === "move").map((n) => n.id)),
+      fc.constantFrom(...g.nodes.map((n) => n.id)),
+      optionsArb,
+    ),
+  );
+
+  test.prop([withNode], { numRuns: 200 })(
+    "leaves out exactly the paths that step into the nodes it passes over",
+    ([g, root, at, o]) => {
+      const compiled = compileGraph(g);
+      const walker = createPathWalker(compiled, root, o);
+      walker.passOver((_d, _edge, to) => to === compiled.index.get(at));
+      const kept: string[] = [];
+      while (walker.advance()) kept.push(walker.edges.join(" "));
+      const expected = explorePaths(g, root, o)
+        .filter((p) => !p.nodes.slice(1).includes(at))
         .map((p) => p.edges.join(" "));
       expect(kept).toEqual(expected);
     },
