@@ -375,16 +375,17 @@ describe("what changed on random graphs", () => {
   );
 });
 
-describe("the walk's skipExtensions", () => {
-  const withRoot = graphs.chain((g) =>
-    fc.tuple(
-      fc.constant(g),
-      fc.constantFrom(...g.nodes.filter((n) => n.kind === "move").map((n) => n.id)),
-      fc.constantFrom(...g.nodes.map((n) => n.id)),
-      optionsArb,
-    ),
-  );
+/** A graph, a root move, any node of it, and options. */
+const withRoot = graphs.chain((g) =>
+  fc.tuple(
+    fc.constant(g),
+    fc.constantFrom(...g.nodes.filter((n) => n.kind === "move").map((n) => n.id)),
+    fc.constantFrom(...g.nodes.map((n) => n.id)),
+    optionsArb,
+  ),
+);
 
+describe("the walk's skipExtensions", () => {
   test.prop([withRoot], { numRuns: 200 })(
     "leaves out exactly the paths that extend a path where it was called",
     ([g, root, at, o]) => {
@@ -404,16 +405,7 @@ describe("the walk's skipExtensions", () => {
 });
 
 describe("the walk's passOver", () => {
-  const withNode = graphs.chain((g) =>
-    fc.tuple(
-      fc.constant(g),
-      fc.constantFrom(...g.nodes.filter((n) => n.kind === "move").map((n) => n.id)),
-      fc.constantFrom(...g.nodes.map((n) => n.id)),
-      optionsArb,
-    ),
-  );
-
-  test.prop([withNode], { numRuns: 200 })(
+  test.prop([withRoot], { numRuns: 200 })(
     "leaves out exactly the paths that step into the nodes it passes over",
     ([g, root, at, o]) => {
       const compiled = compileGraph(g);
