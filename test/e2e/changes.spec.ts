@@ -239,7 +239,7 @@ test.describe("a patch that changes hundreds of paths", () => {
   });
 
   test("sorting and filtering reach every page, and the address keeps the view", async ({ browser }) => {
-    test.setTimeout(90_000);
+    test.setTimeout(150_000);
     const page = await (await browser.newContext()).newPage();
     await signUpAs(page, member.name, member.email);
     const [team] = await query<{ id: number }>("select id from teams where slug = ?", [`pages-team-${tag}`]);
