@@ -1,13 +1,17 @@
+import { z } from "zod";
 import {
   blockClassTrend,
-  explorePathsLimited,
+  compareOutcome,
+  compileGraph,
   formatOutcome,
+  iteratePaths,
   type BlockClass,
   type ExploreOptions,
   type GraphDiff,
   type MoveGraph,
   type PathChange,
   type PathResult,
+  type PathView,
 } from "./engine";
 
 /**
@@ -136,55 +140,219 @@ export interface ChangedPathRow {
 
 const COMPARED = ["blockClass", "onHit", "naturalCombo", "jails"] as const;
 
-const sideOf = (p: PathResult): PathSide => ({
+const sideOf = (p: PathView): PathSide => ({
   blockClass: p.blockClass,
   onHit: p.onHit,
   naturalCombo: p.naturalCombo,
   jails: p.jails,
 });
 
+interface Wanted {
+  /** The listed path that ends here, if one does. */
+  path: PathChange | null;
+  /** The next steps, by edge id, that lead to a listed path. */
+  next: Map<string, Wanted>;
+}
+
+/**
+ * The four fields of each listed path on one side, read by walking from each root only as far
+ * as the listed paths go (a trie of their edge ids): a path that leads to none is not gone
+ * past. At most `budget.left` paths are walked on this side; past it a path stays unknown.
+ */
+function sidesOf(paths: readonly PathChange[], graph: MoveGraph, options: ExploreOptions, budget: { left: number }) {
+  const found = new Map<PathChange, PathSide>();
+  const moves = new Set(graph.nodes.filter((n) => n.kind === "move").map((n) => n.id));
+  const tries = new Map<string, Wanted>();
+  const step = (from: Wanted, edge: string): Wanted => {
+    let next = from.next.get(edge);
+    if (next === undefined) from.next.set(edge, (next = { path: null, next: new Map() }));
+    return next;
+  };
+  for (const p of paths) {
+    if (!moves.has(p.root)) continue;
+    let at = tries.get(p.root) ?? { path: null, next: new Map<string, Wanted>() };
+    tries.set(p.root, at);
+    for (const edge of p.edges) at = step(at, edge);
+    at.path = p;
+  }
+  const compiled = compileGraph(graph);
+  for (const [root, trie] of tries) {
+    // here[i]: the trie node of the walk's path up to position i (undefined: no listed path goes that way).
+    const here: (Wanted | undefined)[] = [];
+    for (const walk of iteratePaths(compiled, root, options)) {
+      if (budget.left-- <= 0) return found;
+      const i = walk.length - 1;
+      const at = (here[i] = i === 0 ? trie : here[i - 1]?.next.get(walk.edgeIdAt(i - 1)));
+      if (at?.path) found.set(at.path, sideOf(walk));
+      if (at === undefined || at.next.size === 0) walk.skipExtensions();
+    }
+  }
+  return found;
+}
+
 /**
  * The diff's paths as table rows, with both sides' four fields. The diff lists only what
- * differs, so each root with listed paths is explored again on each side to fill in the rest;
- * past `budget` paths explored in all, a row keeps what the diff says and the rest stays unknown.
+ * differs, so each side is walked again up to the listed paths to fill in the rest; past
+ * `budget` paths walked on a side, a row keeps what the diff says and the rest stays unknown.
  */
 export function changedPathRows(
   diff: GraphDiff,
   before: MoveGraph,
   after: MoveGraph,
   options: ExploreOptions,
-  budget = 50_000,
+  budget = 3_000_000,
 ): ChangedPathRow[] {
-  const roots = [...new Set(diff.paths.map((p) => p.root))];
-  let left = budget;
-  const explore = (graph: MoveGraph) => {
-    const found = new Map<string, PathSide>();
-    const moves = new Set(graph.nodes.filter((n) => n.kind === "move").map((n) => n.id));
-    for (const root of roots) {
-      if (!moves.has(root) || left <= 0) continue;
-      const { paths } = explorePathsLimited(graph, root, left, options);
-      left -= paths.length;
-      for (const p of paths) found.set(`${root}\u0000${p.edges.join("|")}`, sideOf(p));
-    }
-    return found;
-  };
-  const was = explore(before);
-  const now = explore(after);
+  const was = sidesOf(
+    diff.paths.filter((p) => p.status !== "added"),
+    before,
+    options,
+    { left: budget },
+  );
+  const now = sidesOf(
+    diff.paths.filter((p) => p.status !== "removed"),
+    after,
+    options,
+    { left: budget },
+  );
   return diff.paths.map((p) => {
-    const path = p.edges.join("|");
-    const key = `${p.root}\u0000${path}`;
     const fromDiff = (side: "before" | "after"): PathSide =>
       Object.fromEntries(p.changes.map((c) => [c.field, c[side]])) as PathSide;
     return {
       root: p.root,
-      path,
+      path: p.edges.join("|"),
       input: p.input,
       status: p.status,
-      before: p.status === "added" ? null : (was.get(key) ?? fromDiff("before")),
-      after: p.status === "removed" ? null : (now.get(key) ?? fromDiff("after")),
+      before: p.status === "added" ? null : (was.get(p) ?? fromDiff("before")),
+      after: p.status === "removed" ? null : (now.get(p) ?? fromDiff("after")),
       changed: COMPARED.filter((f) => p.changes.some((c) => c.field === f)),
     };
   });
+}
+
+/** What the paths table can be narrowed to: a field that changed, or a path on one side only. */
+export const CHANGE_FILTERS = [
+  "any",
+  "blockClass",
+  "onHit",
+  "naturalCombo",
+  "jails",
+  "oneSide",
+  "added",
+  "removed",
+] as const;
+export type ChangeFilter = (typeof CHANGE_FILTERS)[number];
+/** The columns the paths table sorts by. */
+export const SORT_COLUMNS = ["input", "status", "blockClass", "onHit", "naturalCombo", "jails"] as const;
+export type SortColumn = (typeof SORT_COLUMNS)[number];
+
+/** Which changed paths the table shows, in what order, and which page of them: all of it in the address. */
+export interface ChangedPathsView {
+  change: ChangeFilter;
+  /** Text the path's input contains (any case); empty: any. */
+  q: string;
+  /** null: the diff's order (root, then input). */
+  sort: SortColumn | null;
+  dir: "asc" | "desc";
+  page: number;
+}
+
+/** The view from an address's search parameters; anything unreadable falls back to its default. */
+export const changedPathsViewSchema = z.object({
+  change: z.enum(CHANGE_FILTERS).catch("any").default("any"),
+  q: z.string().max(100).catch("").default(""),
+  sort: z.enum(SORT_COLUMNS).nullable().catch(null).default(null),
+  dir: z.enum(["asc", "desc"]).catch("asc").default("asc"),
+  page: z.coerce.number().int().min(1).max(100_000).catch(1).default(1),
+});
+
+export const DEFAULT_VIEW: ChangedPathsView = { change: "any", q: "", sort: null, dir: "asc", page: 1 };
+
+/** The search parameters of a view, defaults left out, after the Editions compared. */
+export function changesSearch(editions: { from: string; to: string }, view: ChangedPathsView): string {
+  const params = new URLSearchParams({ from: editions.from, to: editions.to });
+  if (view.change !== "any") params.set("change", view.change);
+  if (view.q !== "") params.set("q", view.q);
+  if (view.sort !== null) params.set("sort", view.sort);
+  if (view.sort !== null && view.dir !== "asc") params.set("dir", view.dir);
+  if (view.page > 1) params.set("page", String(view.page));
+  return `?${params.toString()}`;
+}
+
+const matchesChange: Record<ChangeFilter, (r: ChangedPathRow) => boolean> = {
+  any: () => true,
+  blockClass: (r) => r.changed.includes("blockClass"),
+  onHit: (r) => r.changed.includes("onHit"),
+  naturalCombo: (r) => r.changed.includes("naturalCombo"),
+  jails: (r) => r.changed.includes("jails"),
+  oneSide: (r) => r.status !== "changed",
+  added: (r) => r.status === "added",
+  removed: (r) => r.status === "removed",
+};
+
+/** The side a row is sorted by: the new one, or the old one for a path that is gone. */
+export const currentSide = (r: ChangedPathRow): PathSide => r.after ?? r.before ?? {};
+
+/** Best ending first; a state after every number. */
+const CLASS_ORDER: Record<BlockClass, number> = {
+  plus: 0,
+  even: 1,
+  safe: 2,
+  punishable: 3,
+  "launch-punishable": 4,
+  state: 5,
+};
+const STATUS_ORDER = { changed: 0, added: 1, removed: 2 } as const;
+const byCodeUnits = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
+const byFlag = (a: boolean, b: boolean) => Number(a) - Number(b);
+
+/**
+ * Per column: the value a row is sorted by (undefined: unknown, past the walk's budget) and
+ * how two values compare, ascending. Flags go "no" before "yes"; on hit, as the engine orders outcomes.
+ */
+const SORTS: { [C in SortColumn]: { value: (r: ChangedPathRow) => unknown; compare: (a: never, b: never) => number } } =
+  {
+    input: { value: (r) => r.input, compare: byCodeUnits },
+    status: { value: (r) => STATUS_ORDER[r.status], compare: (a: number, b: number) => a - b },
+    blockClass: {
+      value: (r) => currentSide(r).blockClass,
+      compare: (a: BlockClass, b: BlockClass) => CLASS_ORDER[a] - CLASS_ORDER[b],
+    },
+    onHit: { value: (r) => currentSide(r).onHit, compare: compareOutcome },
+    naturalCombo: { value: (r) => currentSide(r).naturalCombo, compare: byFlag },
+    jails: { value: (r) => currentSide(r).jails, compare: byFlag },
+  };
+
+/**
+ * One page of the changed paths under a view: filtered and sorted over every changed path, not
+ * only those of one page, then cut into pages of `perPage`. Ties keep the diff's order (root,
+ * then input), and rows whose value is unknown come last either way.
+ */
+export function viewChangedPaths(
+  rows: readonly ChangedPathRow[],
+  view: ChangedPathsView,
+  perPage: number,
+): { rows: ChangedPathRow[]; matching: number; page: number; pageCount: number } {
+  const needle = view.q.trim().toLowerCase();
+  const keep = matchesChange[view.change];
+  let found = rows.filter((r) => keep(r) && (needle === "" || r.input.toLowerCase().includes(needle)));
+  if (view.sort !== null) {
+    const { value, compare } = SORTS[view.sort] as {
+      value: (r: ChangedPathRow) => unknown;
+      compare: (a: unknown, b: unknown) => number;
+    };
+    const sign = view.dir === "desc" ? -1 : 1;
+    const keyed = found.map((row) => ({ row, value: value(row) }));
+    // Array sort is stable: equal values keep the diff's order.
+    keyed.sort((a, b) =>
+      a.value === undefined || b.value === undefined
+        ? Number(a.value === undefined) - Number(b.value === undefined)
+        : sign * compare(a.value, b.value),
+    );
+    found = keyed.map((k) => k.row);
+  }
+  const pageCount = Math.max(1, Math.ceil(found.length / perPage));
+  const page = Math.min(view.page, pageCount);
+  return { rows: found.slice((page - 1) * perPage, page * perPage), matching: found.length, page, pageCount };
 }
 
 /** How the page names a field of a move, stance or link. */

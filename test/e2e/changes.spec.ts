@@ -44,28 +44,38 @@ test("a player reads what 1-1 changed for Velka, sorts and filters the paths, an
   expect(count).toBeGreaterThan(1);
   const inputs = () => rows.locator('td[data-field="input"]').allInnerTexts();
   const initial = await inputs();
-  // Sorting by input, then the other way round.
+  // Sorting by input, then the other way round: the server sorts, and the address keeps it.
   const sortInput = page.getByRole("button", { name: /^Input/ });
+  const inputHeading = page.getByRole("columnheader", { name: /Input/ });
   await sortInput.click();
+  await expect(inputHeading).toHaveAttribute("aria-sort", "ascending");
+  await expect(page).toHaveURL(/sort=input/);
   const asc = await inputs();
   await sortInput.click();
+  await expect(inputHeading).toHaveAttribute("aria-sort", "descending");
+  await expect(page).toHaveURL(/sort=input&dir=desc/);
   const desc = await inputs();
   expect(desc).toEqual([...asc].reverse());
   expect([...asc].sort()).toEqual([...initial].sort());
-  await expect(page.getByRole("columnheader", { name: /Input/ })).toHaveAttribute("aria-sort", "descending");
 
   // Filtering by text: only 4,4 itself.
-  await page.getByRole("searchbox", { name: "Input contains" }).fill("4,4~");
+  const search = page.getByRole("searchbox", { name: "Input contains" });
+  await search.fill("4,4~");
+  await expect(page).toHaveURL(/q=4%2C4%7E|q=4%2C4~/);
+  await expect(rows.first()).toBeVisible();
   for (const text of await inputs()) expect(text).toContain("4,4~");
-  await page.getByRole("searchbox", { name: "Input contains" }).fill("");
-  // Filtering by status: nothing was added for Velka.
-  await page.getByRole("combobox", { name: "Status" }).selectOption("added");
+  await search.fill("");
+  await expect(page).not.toHaveURL(/q=/);
+  await expect(rows).toHaveCount(count);
+  // Filtering by kind of change: nothing was added for Velka.
+  await page.getByRole("combobox", { name: "Change" }).selectOption("added");
   await expect(page.getByText("No changed path matches these filters.")).toBeVisible();
   await page.getByRole("button", { name: "Clear filters" }).first().click();
   await expect(rows).toHaveCount(count);
 
   // The row for 4,4 opens that path in the Explorer, in 1-1.
-  await page.getByRole("searchbox", { name: "Input contains" }).fill("4,4");
+  await search.fill("4,4");
+  await expect(page).toHaveURL(/q=4%2C4(&|$)/);
   const row = rows.filter({ has: page.locator('td[data-field="input"]', { hasText: /^4,4$/ }) });
   await expect(row.locator('td[data-field="naturalCombo"]')).toContainText(/no.*yes/);
   await row.getByRole("link", { name: "4,4", exact: true }).click();
@@ -150,5 +160,138 @@ test.describe("a team's game", () => {
       const unknown = await visitor.goto(`/games/no-such-game-${tag}/cartographer/changes`);
       expect(unknown?.status()).toBe(404);
     }
+  });
+});
+
+test.describe("a patch that changes hundreds of paths", () => {
+  // A string 1 with 24 follow-ups, each with the same 24 follow-ups: 600 paths from 1. In 0.2
+  // every first follow-up stops combo-ing on hit (each path loses its natural combo), and the
+  // follow-up ,7 ends at -13 instead of -5 (24 paths now punishable). 600 changed paths: two pages.
+  const tag = randomUUID().slice(0, 8);
+  const game = `pages-game-${tag}`;
+  const member = { name: `Pager ${tag}`, email: `changes-pager-${tag}@example.test` };
+  const address = `/games/${game}/abacus/changes`;
+
+  test.beforeAll(async () => {
+    await query("delete from rate_limits");
+    await query("insert into teams (slug, name) values (?, ?)", [`pages-team-${tag}`, `Pages team ${tag}`]);
+    const [team] = await query<{ id: number }>("select id from teams where slug = ?", [`pages-team-${tag}`]);
+    await query("insert into games (slug, name, team_id) values (?, ?, ?)", [game, `Pages ${tag}`, team!.id]);
+    const [g] = await query<{ id: number }>("select id from games where slug = ?", [game]);
+    await query("insert into characters (game_id, slug, name) values (?, 'abacus', 'Abacus')", [g!.id]);
+    const [c] = await query<{ id: number }>("select id from characters where game_id = ?", [g!.id]);
+    for (const slug of ["0-1", "0-2"]) {
+      const patched = slug === "0-2";
+      await query("insert into editions (game_id, slug, name, released_on) values (?, ?, ?, ?)", [
+        g!.id,
+        slug,
+        slug.replace("-", "."),
+        patched ? "2026-10-01" : "2026-09-01",
+      ]);
+      const [e] = await query<{ id: number }>("select id from editions where game_id = ? and slug = ?", [g!.id, slug]);
+      const move = (key: string, input: string, onBlock: number) => [
+        e!.id,
+        c!.id,
+        key,
+        input,
+        "mid",
+        10,
+        12,
+        String(onBlock),
+        "3",
+        "5",
+        "[]",
+      ];
+      const moveRows = [move("1", "1", -5)];
+      for (let i = 1; i <= 24; i++)
+        moveRows.push(move(`a${i}`, `1,${i}`, -5), move(`b${i}`, `${i}`, i === 7 && patched ? -13 : -5));
+      await query(
+        "insert into moves (edition_id, character_id, `key`, input, name, level, damage, startup, on_block, on_hit, on_counter_hit, tags) values " +
+          moveRows.map(() => "(?, ?, ?, ?, 'Bead', ?, ?, ?, ?, ?, ?, ?)").join(", "),
+        moveRows.flat(),
+      );
+      const ids = new Map(
+        (await query<{ id: number; key: string }>("select id, `key` from moves where edition_id = ?", [e!.id])).map(
+          (m) => [m.key, m.id],
+        ),
+      );
+      const follow = (from: string, to: string, input: string, combo: boolean) => [
+        e!.id,
+        c!.id,
+        `${from}>${to}`,
+        ids.get(from),
+        ids.get(to),
+        input,
+        combo,
+      ];
+      const edgeRows = [];
+      for (let i = 1; i <= 24; i++) {
+        edgeRows.push(follow("1", `a${i}`, `,${i}`, !patched));
+        for (let j = 1; j <= 24; j++) edgeRows.push(follow(`a${i}`, `b${j}`, `,${j}`, true));
+      }
+      await query(
+        "insert into edges (edition_id, character_id, `key`, kind, from_move_id, to_move_id, input, gap_on_block, combo_on_hit, combo_on_counter_hit) values " +
+          edgeRows.map(() => "(?, ?, ?, 'follow', ?, ?, ?, 0, ?, 1)").join(", "),
+        edgeRows.flat(),
+      );
+      await query("update editions set status = 'published' where id = ?", [e!.id]);
+    }
+  });
+
+  test("sorting and filtering reach every page, and the address keeps the view", async ({ browser }) => {
+    test.setTimeout(150_000);
+    const page = await (await browser.newContext()).newPage();
+    await signUpAs(page, member.name, member.email);
+    const [team] = await query<{ id: number }>("select id from teams where slug = ?", [`pages-team-${tag}`]);
+    const [user] = await query<{ id: string }>("select id from users where email = ?", [member.email]);
+    await query("insert into memberships (team_id, user_id, role) values (?, ?, 'viewer')", [team!.id, user!.id]);
+
+    await page.goto(address);
+    const rows = pathRows(page);
+    const inputs = () => rows.locator('td[data-field="input"]').allInnerTexts();
+    const count = page.getByTestId("changed-paths-count");
+    await expect(count).toContainText("600 of 600 paths");
+    await expect(rows).toHaveCount(500);
+    await expect(page.getByRole("navigation", { name: "Pages of changed paths" })).toContainText("Page 1 of 2");
+    // The paths after 1,9 come last in input order: none is on the first page.
+    expect((await inputs()).filter((i) => i.startsWith("1,9,"))).toEqual([]);
+
+    // A filter finds them all the same.
+    await page.getByRole("searchbox", { name: "Input contains" }).fill("1,9,");
+    await expect(count).toContainText("24 of 600 paths");
+    expect((await inputs()).every((i) => i.startsWith("1,9,"))).toBe(true);
+    await expect(rows).toHaveCount(24);
+
+    // By kind of change: the 24 endings that became punishable, from every page.
+    await page.getByRole("button", { name: "Clear filters" }).first().click();
+    await expect(count).toContainText("600 of 600 paths");
+    await page.getByRole("combobox", { name: "Change" }).selectOption("blockClass");
+    await expect(count).toContainText("24 of 600 paths");
+    expect(await inputs()).toContain("1,9,7");
+    for (const cell of await rows.locator('td[data-field="blockClass"]').allInnerTexts()) {
+      expect(cell.split("\n").map((w) => w.trim())).toEqual(["safe", "→", "becomes", "punishable"]);
+    }
+    await page.getByRole("combobox", { name: "Change" }).selectOption("naturalCombo");
+    await expect(count).toContainText("600 of 600 paths");
+    await page.getByRole("combobox", { name: "Change" }).selectOption("any");
+
+    // Sorting puts the last path of page 2 first, and a reload keeps the view.
+    await page.getByRole("button", { name: /^Input/ }).click();
+    await page.getByRole("button", { name: /^Input/ }).click();
+    await expect(page.getByRole("columnheader", { name: /Input/ })).toHaveAttribute("aria-sort", "descending");
+    await expect(rows.first().locator('td[data-field="input"]')).toHaveText("1,9,9");
+    await page.reload();
+    await expect(page.getByRole("columnheader", { name: /Input/ })).toHaveAttribute("aria-sort", "descending");
+    await expect(rows.first().locator('td[data-field="input"]')).toHaveText("1,9,9");
+    await page.getByRole("link", { name: "Next page" }).click();
+    await expect(page).toHaveURL(/sort=input&dir=desc&page=2/);
+    await expect(rows).toHaveCount(100);
+    await expect(rows.last().locator('td[data-field="input"]')).toHaveText("1,1");
+
+    // Each row still opens its path in the Explorer of either Edition.
+    await expect(rows.last().getByRole("link", { name: "1,1 in 0.1" })).toHaveAttribute(
+      "href",
+      /\/abacus\/explore\/1\?edition=0-1&path=1%3Ea1$/,
+    );
   });
 });

@@ -137,6 +137,16 @@ const PAGES: Record<string, Target[]> = {
       expect: all(200),
     },
     {
+      what: "what changed, with a view of the paths that cannot be read",
+      path: "/games/vesper-circuit/velka/changes?change=all&q=%25E0&sort=damage&dir=up&page=-1&page=2",
+      expect: all(200),
+    },
+    {
+      what: "what changed, filtered and sorted past the first page",
+      path: "/games/vesper-circuit/velka/changes?from=1-0&to=1-1&change=jails&q=4&sort=onHit&dir=desc&page=9",
+      expect: all(200),
+    },
+    {
       what: "what changed for a character that does not exist",
       path: "/games/vesper-circuit/nobody/changes",
       expect: all(404),

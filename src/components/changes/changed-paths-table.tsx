@@ -1,15 +1,32 @@
 "use client";
 
 import Link from "next/link";
-import { useMemo, useState, type ReactNode } from "react";
-import { createColumnHelper, useTable, FlexRender, type SortFn, type SortingState } from "@tanstack/react-table";
-import { FilterForm, NoRows, ShownCount } from "@/components/ui/filter-form";
+import { useRouter } from "next/navigation";
+import { useEffect, useMemo, useState, useTransition, type ReactNode } from "react";
+import {
+  createColumnHelper,
+  rowSortingFeature,
+  tableFeatures,
+  useTable,
+  FlexRender,
+  type SortingState,
+  type Updater,
+} from "@tanstack/react-table";
+import { NoRows, ShownCount } from "@/components/ui/filter-form";
 import { SortableHeading } from "@/components/ui/sort-button";
-import { sortingFeatures } from "@/components/ui/sorting-features";
 import { BLOCK_CLASS_STYLE } from "@/components/ui/block-class";
 import { Frames } from "@/components/ui/frames";
 import { BLOCK_CLASS_WORD, type BlockClass } from "@/lib/engine";
-import type { ChangedPathRow, PathSide } from "@/lib/changes";
+import {
+  changesSearch,
+  currentSide,
+  SORT_COLUMNS,
+  type ChangedPathRow,
+  type ChangedPathsView,
+  type ChangeFilter,
+  type PathSide,
+  type SortColumn,
+} from "@/lib/changes";
 import { StatusTag } from "./item-changes";
 
 interface EditionLink {
@@ -17,31 +34,13 @@ interface EditionLink {
   name: string;
 }
 
-const features = sortingFeatures;
+/**
+ * Sorting state only: the server sorts and filters every changed path (the page's view is in
+ * the address), so the table shows the rows it is given in the order given.
+ */
+const features = tableFeatures({ rowSortingFeature });
 type Features = typeof features;
 const col = createColumnHelper<Features, ChangedPathRow>();
-
-/** Best ending first; a state after every number. */
-const CLASS_ORDER: Record<BlockClass, number> = {
-  plus: 0,
-  even: 1,
-  safe: 2,
-  punishable: 3,
-  "launch-punishable": 4,
-  state: 5,
-};
-const STATUS_ORDER = { changed: 0, added: 1, removed: 2 } as const;
-
-/** The side a row is sorted by: the new one, or the old one for a path that is gone. */
-const current = (r: ChangedPathRow): PathSide => r.after ?? r.before ?? {};
-
-const byClass: SortFn<Features, ChangedPathRow> = (a, b) =>
-  (CLASS_ORDER[current(a.original).blockClass ?? "state"] ?? 5) -
-  (CLASS_ORDER[current(b.original).blockClass ?? "state"] ?? 5);
-const byStatus: SortFn<Features, ChangedPathRow> = (a, b) =>
-  STATUS_ORDER[a.original.status] - STATUS_ORDER[b.original.status];
-const byInput: SortFn<Features, ChangedPathRow> = (a, b) =>
-  a.original.input < b.original.input ? -1 : a.original.input > b.original.input ? 1 : 0;
 
 function ClassWord({ cls }: { cls: BlockClass | undefined }) {
   if (cls === undefined) return <span className="text-ink-600">?</span>;
@@ -90,7 +89,6 @@ function buildColumns(exploreHref: (row: ChangedPathRow, side: "from" | "to") =>
     col.accessor((r) => r.input, {
       id: "input",
       header: "Input",
-      sortFn: byInput,
       cell: (c) => {
         const r = c.row.original;
         return (
@@ -103,18 +101,16 @@ function buildColumns(exploreHref: (row: ChangedPathRow, side: "from" | "to") =>
     col.accessor((r) => r.status, {
       id: "status",
       header: "Status",
-      sortFn: byStatus,
       cell: (c) => <StatusTag status={c.row.original.status} />,
     }),
-    col.accessor((r) => current(r).blockClass ?? "state", {
+    col.accessor((r) => currentSide(r).blockClass, {
       id: "blockClass",
       header: "Ending on block",
-      sortFn: byClass,
       cell: (c) => (
         <BeforeAfter row={c.row.original} field="blockClass" show={(s) => <ClassWord cls={s.blockClass} />} />
       ),
     }),
-    col.display({
+    col.accessor((r) => currentSide(r).onHit, {
       id: "onHit",
       header: "On hit",
       cell: (c) => (
@@ -125,12 +121,12 @@ function buildColumns(exploreHref: (row: ChangedPathRow, side: "from" | "to") =>
         />
       ),
     }),
-    col.display({
+    col.accessor((r) => currentSide(r).naturalCombo, {
       id: "naturalCombo",
       header: "Natural combo",
       cell: (c) => <BeforeAfter row={c.row.original} field="naturalCombo" show={(s) => yesNo(s.naturalCombo)} />,
     }),
-    col.display({
+    col.accessor((r) => currentSide(r).jails, {
       id: "jails",
       header: "Jails",
       cell: (c) => <BeforeAfter row={c.row.original} field="jails" show={(s) => yesNo(s.jails)} />,
@@ -167,34 +163,87 @@ const HEADER_HINT: Partial<Record<string, string>> = {
 };
 const control = "rounded border border-ink-700 bg-ink-900 px-1.5 py-0.5 text-ink-100";
 
-type StatusFilter = ChangedPathRow["status"] | "any";
+const CHANGE_WORDS: Record<ChangeFilter, string> = {
+  any: "any",
+  blockClass: "ending on block",
+  onHit: "outcome on hit",
+  naturalCombo: "natural combo",
+  jails: "jails",
+  oneSide: "new or taken out",
+  added: "new",
+  removed: "taken out",
+};
 
-/** Every path that changed between two Editions, sortable and filterable; each row opens the path in the Explorer. */
+const isSortColumn = (id: string | undefined): id is SortColumn => SORT_COLUMNS.some((c) => c === id);
+
+/**
+ * Every path that changed between two Editions, a page at a time; each row opens the path in
+ * the Explorer. The filters and the sort apply to every changed path, not only this page's:
+ * they change the address, and the server answers with the first page of the result.
+ */
 export function ChangedPathsTable({
   rows,
   total,
+  matching,
+  firstRow,
+  view,
+  address,
   from,
   to,
   exploreBase,
 }: {
+  /** The page's rows, filtered and sorted. */
   rows: ChangedPathRow[];
-  /** Changed paths in all, on every page. */
+  /** Changed paths in all. */
   total: number;
+  /** Changed paths the filters keep, on every page. */
+  matching: number;
+  /** The position of the page's first row among those kept, from 1. */
+  firstRow: number;
+  view: ChangedPathsView;
+  /** The page's address, without its search. */
+  address: string;
   from: EditionLink;
   to: EditionLink;
   /** The character's Explorer address, without the root. */
   exploreBase: string;
 }) {
-  const [status, setStatus] = useState<StatusFilter>("any");
-  const [text, setText] = useState("");
-  const [sorting, setSorting] = useState<SortingState>([]);
+  const router = useRouter();
+  const [pending, startTransition] = useTransition();
+  // What is picked or typed shows at once; the address (and so the rows) follows it.
+  const [change, setChange] = useState(view.change);
+  const [text, setText] = useState(view.q);
+  const [seen, setSeen] = useState({ change: view.change, q: view.q });
+  if (view.change !== seen.change || view.q !== seen.q) {
+    // The address changed (the rows arrived, or back, or Clear filters): the controls follow it.
+    setSeen({ change: view.change, q: view.q });
+    setChange(view.change);
+    setText(view.q);
+  }
 
-  const data = useMemo(() => {
-    const needle = text.trim().toLowerCase();
-    return rows.filter(
-      (r) => (status === "any" || r.status === status) && (needle === "" || r.input.toLowerCase().includes(needle)),
-    );
-  }, [rows, status, text]);
+  const go = (next: Partial<ChangedPathsView>, how: "push" | "replace" = "push") => {
+    // Any change of filter or order starts again at the first page.
+    const search = changesSearch({ from: from.slug, to: to.slug }, { ...view, page: 1, ...next });
+    startTransition(() => router[how](`${address}${search}`, { scroll: false }));
+  };
+
+  useEffect(() => {
+    if (text.trim() === view.q.trim()) return;
+    const timer = setTimeout(() => go({ change, q: text.trim() }, "replace"), 300);
+    return () => clearTimeout(timer);
+    // `go` reads the view, which changes with it: only typing starts the wait.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [text]);
+
+  const sorting: SortingState = useMemo(
+    () => (view.sort === null ? [] : [{ id: view.sort, desc: view.dir === "desc" }]),
+    [view.sort, view.dir],
+  );
+  const onSortingChange = (updater: Updater<SortingState>) => {
+    const next = typeof updater === "function" ? updater(sorting) : updater;
+    const first = next[0];
+    go(isSortColumn(first?.id) ? { sort: first.id, dir: first.desc ? "desc" : "asc" } : { sort: null, dir: "asc" });
+  };
   const columns = useMemo(
     () =>
       buildColumns(
@@ -208,17 +257,20 @@ export function ChangedPathsTable({
   const table = useTable({
     features,
     columns,
-    data,
+    data: rows,
     getRowId: (r) => `${r.root} ${r.path}`,
     state: { sorting },
-    onSortingChange: setSorting,
+    onSortingChange,
+    manualSorting: true,
+    sortDescFirst: false,
     enableMultiSort: false,
   });
   const shownRows = table.getRowModel().rows;
-  const filtered = status !== "any" || text.trim() !== "";
+  const filtered = view.change !== "any" || view.q !== "";
   const clear = () => {
-    setStatus("any");
+    setChange("any");
     setText("");
+    go({ change: "any", q: "" });
   };
 
   return (
@@ -227,30 +279,68 @@ export function ChangedPathsTable({
         <h2 id="changed-paths-title" className="text-sm font-semibold tracking-wider text-ink-400 uppercase">
           Paths that changed
         </h2>
-        <ShownCount shown={data.length} of={rows.length} testId="changed-paths-count">
-          {total > rows.length && <> on this page ({total} in all)</>}
+        <ShownCount shown={matching} of={total} testId="changed-paths-count">
+          {matching > rows.length && rows.length > 0 && (
+            <>
+              {" "}
+              (showing {firstRow}–{firstRow + rows.length - 1})
+            </>
+          )}
+          {pending && <span className="text-ink-500 ml-2">updating…</span>}
         </ShownCount>
       </div>
-      <FilterForm label="Filter changed paths">
+      {/* A GET form: without script, Apply loads the filtered address; with it, the filters apply as they change. */}
+      <form
+        method="get"
+        action={address}
+        aria-label="Filter changed paths"
+        className="flex flex-wrap items-center gap-x-4 gap-y-2 text-sm"
+        onSubmit={(e) => {
+          e.preventDefault();
+          go({ change, q: text.trim() });
+        }}
+      >
+        <input type="hidden" name="from" value={from.slug} />
+        <input type="hidden" name="to" value={to.slug} />
+        {view.sort !== null && <input type="hidden" name="sort" value={view.sort} />}
+        {view.sort !== null && <input type="hidden" name="dir" value={view.dir} />}
         <label className="flex items-center gap-2">
-          <span className="text-ink-400">Status</span>
-          <select value={status} onChange={(e) => setStatus(e.target.value as StatusFilter)} className={control}>
-            <option value="any">any</option>
-            <option value="changed">changed</option>
-            <option value="added">new</option>
-            <option value="removed">taken out</option>
+          <span className="text-ink-400">Change</span>
+          <select
+            name="change"
+            value={change}
+            onChange={(e) => {
+              const picked = e.target.value as ChangeFilter;
+              setChange(picked);
+              go({ change: picked, q: text.trim() });
+            }}
+            className={control}
+          >
+            {Object.entries(CHANGE_WORDS).map(([value, word]) => (
+              <option key={value} value={value}>
+                {word}
+              </option>
+            ))}
           </select>
         </label>
         <label className="flex items-center gap-2">
           <span className="text-ink-400">Input contains</span>
           <input
             type="search"
+            name="q"
             value={text}
+            maxLength={100}
             onChange={(e) => setText(e.target.value)}
             placeholder="e.g. 1,2"
             className={`${control} w-32 font-mono`}
           />
         </label>
+        <button
+          type="submit"
+          className="rounded border border-ink-700 px-2 py-0.5 text-xs text-ink-300 hover:border-ink-600 hover:text-ink-100"
+        >
+          Apply
+        </button>
         <button
           type="button"
           onClick={clear}
@@ -259,8 +349,12 @@ export function ChangedPathsTable({
         >
           Clear filters
         </button>
-      </FilterForm>
-      <div className="relative overflow-x-auto rounded-lg border border-ink-800 bg-ink-900">
+      </form>
+      <div
+        className="relative overflow-x-auto rounded-lg border border-ink-800 bg-ink-900"
+        aria-busy={pending}
+        data-pending={pending ? "" : undefined}
+      >
         {shownRows.length === 0 ? (
           <NoRows message="No changed path matches these filters." onClear={clear} />
         ) : (

@@ -10,7 +10,7 @@ import type {
   PathChange,
   PathView,
 } from "./types";
-import { PathWalker, resolveOptions } from "./walk";
+import { PathWalker, resolveOptions, type PassOver } from "./walk";
 
 /**
  * What changed between two graphs of one character (DESIGN.md, "Editions over time"): nodes
@@ -20,35 +20,48 @@ import { PathWalker, resolveOptions } from "./walk";
  */
 export function diffGraphs(before: MoveGraph, after: MoveGraph, options?: ExploreOptions): GraphDiff {
   const resolved = resolveOptions(options);
-  const was = new Side(before);
-  const now = new Side(after);
   const nodes = diffItems(before.nodes, after.nodes);
   const edges = diffItems(before.edges, after.edges);
-  const changes = new Changes(before, after, nodes, edges, resolved.maxDepth);
+  const order = edgeOrder(before, after);
+  const was = new Side(before, order);
+  const now = new Side(after, order);
+  const where = new Where(before, after, nodes, edges);
+  const wasChanges = new Changes(was.compiled, where, resolved.maxDepth);
+  const nowChanges = new Changes(now.compiled, where, resolved.maxDepth);
   const paths: PathChange[] = [];
   const roots = [...new Set([...was.roots, ...now.roots])].sort(byCodeUnits);
   for (const root of roots) {
     const a = was.roots.has(root) ? new PathWalker(was.compiled, root, resolved) : null;
     const b = now.roots.has(root) ? new PathWalker(now.compiled, root, resolved) : null;
     // Roots come in order, so sorting each root's paths by input sorts the whole list.
-    for (const path of diffPathsFrom(root, a, b, changes).sort(byInput)) paths.push(path);
+    for (const path of sortByInput(diffPathsFrom(root, a, b, was, now, wasChanges, nowChanges))) paths.push(path);
   }
   return { nodes, edges, paths };
 }
 
 /**
- * One graph ready to walk. Its edges are compiled in id order, so that every walk lists the
- * paths from a root in the order of their edge ids (a path before those that extend it): the
- * two sides' walks can then be merged like two sorted lists, with no index of either.
+ * The order both walks take edges in, as a rank per edge id: ids in code unit order, so an
+ * edge has the same rank on both sides and the walks list the paths from a root in the order
+ * of their edge ids (a path before those that extend it), which lets them merge like two
+ * sorted lists with no index of either.
  */
+function edgeOrder(before: MoveGraph, after: MoveGraph): ReadonlyMap<string, number> {
+  const ids = [...new Set([...before.edges.map((e) => e.id), ...after.edges.map((e) => e.id)])].sort(byCodeUnits);
+  return new Map(ids.map((id, rank) => [id, rank]));
+}
+
+/** One graph ready to walk, its edges compiled in the shared order (`edgeOrder`). */
 class Side {
   readonly compiled: CompiledGraph;
   /** Move nodes with no incoming follow edge. */
   readonly roots: ReadonlySet<string>;
+  /** Per compiled edge index, the edge's rank in the shared order. */
+  readonly rank: Int32Array;
 
-  constructor(graph: MoveGraph) {
-    const edges = [...graph.edges].sort((a, b) => byCodeUnits(a.id, b.id));
+  constructor(graph: MoveGraph, order: ReadonlyMap<string, number>) {
+    const edges = [...graph.edges].sort((a, b) => order.get(a.id)! - order.get(b.id)!);
     this.compiled = compileGraph({ nodes: graph.nodes, edges });
+    this.rank = Int32Array.from(edges, (e) => order.get(e.id)!);
     const followed = new Set(graph.edges.filter((e) => e.kind === "follow").map((e) => e.to));
     this.roots = new Set(graph.nodes.filter((n) => n.kind === "move" && !followed.has(n.id)).map((n) => n.id));
   }
@@ -61,32 +74,56 @@ class Side {
  */
 const CARRIED_FIELDS: ReadonlySet<string> = new Set(["kind", "startup"]);
 
-/**
- * Where the graphs differ, kept to tell which paths must be compared one by one. A path that
- * takes no changed edge and no node changed in a carried field is extended the same way on
- * both sides until an extension takes a changed edge or enters a changed node; when the
- * bounds let no extension get that far, every extension is the same on both sides.
- */
-class Changes {
+/** Where the graphs differ, by id. */
+class Where {
   /** Nodes changed in a field the steps after them read. */
-  private readonly carried: ReadonlySet<string>;
-  private readonly edges: ReadonlySet<string>;
+  readonly carried: ReadonlySet<string>;
+  /** Nodes changed in any field. */
+  readonly changedNodes: ReadonlySet<string>;
+  /** Edges added, removed or changed. */
+  readonly changedEdges: ReadonlySet<string>;
   /** Per node, the fewest moves a path going on from it enters up to a change, in either graph (none: never). */
-  private readonly movesToChange: ReadonlyMap<string, number>;
-  private readonly maxDepth: number;
+  readonly movesToChange: ReadonlyMap<string, number>;
 
-  constructor(before: MoveGraph, after: MoveGraph, nodes: ItemsDiff, edges: ItemsDiff, maxDepth: number) {
-    this.maxDepth = maxDepth;
+  constructor(before: MoveGraph, after: MoveGraph, nodes: ItemsDiff, edges: ItemsDiff) {
     this.carried = new Set(
       nodes.changed.filter((c) => c.changes.some((f) => CARRIED_FIELDS.has(f.field))).map((c) => c.id),
     );
-    this.edges = new Set([...edges.added, ...edges.removed, ...edges.changed.map((c) => c.id)]);
-    const changedNodes = new Set([...nodes.added, ...nodes.removed, ...nodes.changed.map((c) => c.id)]);
-    const fewest = movesToChange(before, changedNodes, this.edges);
-    for (const [id, moves] of movesToChange(after, changedNodes, this.edges)) {
+    this.changedNodes = new Set(nodes.changed.map((c) => c.id));
+    this.changedEdges = new Set([...edges.added, ...edges.removed, ...edges.changed.map((c) => c.id)]);
+    const ends = new Set([...nodes.added, ...nodes.removed, ...this.changedNodes]);
+    const fewest = movesToChange(before, ends, this.changedEdges);
+    for (const [id, moves] of movesToChange(after, ends, this.changedEdges)) {
       fewest.set(id, Math.min(moves, fewest.get(id) ?? moves));
     }
     this.movesToChange = fewest;
+  }
+}
+
+/**
+ * Where the graphs differ, as flags by one side's compiled indexes (the walk checks them at
+ * every step it takes), to tell which paths must be compared one by one. A path that takes no
+ * changed edge and no node changed in a carried field (a clean path) is extended the same way
+ * on both sides until an extension takes a changed edge or enters a changed node; when the
+ * bounds let no extension get that far, every extension is the same on both sides.
+ */
+class Changes {
+  private readonly carried: Uint8Array;
+  private readonly changedNode: Uint8Array;
+  private readonly changedEdge: Uint8Array;
+  /** -1: never. */
+  private readonly movesToChange: Int32Array;
+  private readonly isMove: Uint8Array;
+  private readonly maxDepth: number;
+
+  constructor(walked: CompiledGraph, where: Where, maxDepth: number) {
+    this.maxDepth = maxDepth;
+    const nodeFlags = (ids: ReadonlySet<string>) => Uint8Array.from(walked.nodeIds, (id) => (ids.has(id) ? 1 : 0));
+    this.carried = nodeFlags(where.carried);
+    this.changedNode = nodeFlags(where.changedNodes);
+    this.changedEdge = Uint8Array.from(walked.edgeIds, (id) => (where.changedEdges.has(id) ? 1 : 0));
+    this.movesToChange = Int32Array.from(walked.nodeIds, (id) => where.movesToChange.get(id) ?? -1);
+    this.isMove = walked.isMove;
   }
 
   /**
@@ -94,7 +131,17 @@ class Changes {
    * edge and enters no node changed in a carried field.
    */
   cleanStep(path: PathWalker, i: number): boolean {
-    return !this.carried.has(path.nodeIdAt(i)) && (i === 0 || !this.edges.has(path.edgeIdAt(i - 1)));
+    return this.carried[path.nodeIndexAt(i)] === 0 && (i === 0 || this.changedEdge[path.edgeIndexAt(i - 1)] === 0);
+  }
+
+  /**
+   * Whether the walk's current path, found on both sides, has the same four compared fields on
+   * both, given whether every step of it is clean: its ending reads its last node (or the
+   * cancel into the stance it ends in, an edge of the path), and its combo and jail read only
+   * its steps.
+   */
+  sameHere(path: PathWalker, clean: boolean): boolean {
+    return clean && this.changedNode[path.nodeIndexAt(path.length - 1)] === 0;
   }
 
   /**
@@ -102,9 +149,26 @@ class Changes {
    * on both, given whether every step of the current path is clean (`cleanStep`).
    */
   sameBelow(path: PathWalker, clean: boolean): boolean {
-    if (!clean) return false;
-    const moves = this.movesToChange.get(path.nodeIdAt(path.length - 1));
-    return moves === undefined || path.hitCount + moves > this.maxDepth;
+    return clean && this.noChangeWithin(path.nodeIndexAt(path.length - 1), path.hitCount);
+  }
+
+  private noChangeWithin(node: number, hits: number): boolean {
+    const moves = this.movesToChange[node]!;
+    return moves < 0 || hits + moves > this.maxDepth;
+  }
+
+  /**
+   * The steps a walk may pass over, given `clean[d]` for each position d of its current path:
+   * from a clean path, an unchanged edge into an unchanged node below which no change is
+   * within reach leads to a path that is the same on both sides, as is every path extending
+   * it. Each side passes over the same steps, since a clean path is on both sides alike.
+   */
+  sameSteps(clean: readonly boolean[]): PassOver {
+    return (d, edge, to, hits) =>
+      clean[d] === true &&
+      this.changedEdge[edge] === 0 &&
+      this.changedNode[to] === 0 &&
+      this.noChangeWithin(to, hits + this.isMove[to]!);
   }
 }
 
@@ -143,56 +207,67 @@ function movesToChange(graph: MoveGraph, nodes: ReadonlySet<string>, edges: Read
 
 /**
  * Merges the two walks from one root (null: the root is not a root on that side). Both list
- * paths in edge-id order, so at each step the path that comes first exists on its side only,
- * unless both walks stand on the same path, which is then compared field by field. Where no
- * path extending it can differ, both walks skip those paths.
+ * paths in the order of their edge ids (edgeOrder), so at each step the path that comes first exists on its
+ * side only, unless both walks stand on the same path, which is then compared field by field
+ * where its steps or its last node changed. Where no path extending it can differ, both walks
+ * skip those paths.
  */
 function diffPathsFrom(
   root: string,
   before: PathWalker | null,
   after: PathWalker | null,
-  changes: Changes,
+  was: Side,
+  now: Side,
+  wasChanges: Changes,
+  nowChanges: Changes,
 ): PathChange[] {
   const out: PathChange[] = [];
-  // clean[i]: every step of the after walk's current path up to position i is clean. The
-  // walk's next path shares all positions but its last with a path it stood on before, so
-  // each step of the walk fills in one slot.
-  const clean: boolean[] = [];
-  const advanceAfter = (): boolean => {
-    if (after === null || !after.advance()) return false;
-    const i = after.length - 1;
-    clean[i] = (i === 0 || clean[i - 1] === true) && changes.cleanStep(after, i);
+  // clean[i]: every step of the walk's current path up to position i is clean. The walk's
+  // next path shares all positions but its last with a path it stood on before, so each step
+  // of the walk fills in one slot.
+  const cleanBefore: boolean[] = [];
+  const cleanAfter: boolean[] = [];
+  const advance = (walk: PathWalker | null, changes: Changes, clean: boolean[]): boolean => {
+    if (walk === null || !walk.advance()) return false;
+    const i = walk.length - 1;
+    clean[i] = (i === 0 || clean[i - 1] === true) && changes.cleanStep(walk, i);
     return true;
   };
-  let a = before?.advance() === true;
-  let b = advanceAfter();
+  if (before !== null && after !== null) {
+    // A root on one side only lists every path from it: nothing is passed over.
+    before.passOver(wasChanges.sameSteps(cleanBefore));
+    after.passOver(nowChanges.sameSteps(cleanAfter));
+  }
+  let a = advance(before, wasChanges, cleanBefore);
+  let b = advance(after, nowChanges, cleanAfter);
   while (a || b) {
-    const order = !a ? 1 : !b ? -1 : comparePaths(before!, after!);
+    const order = !a ? 1 : !b ? -1 : comparePaths(before!, was.rank, after!, now.rank);
     if (order < 0) {
       out.push(pathChange(root, before!, "removed"));
-      a = before!.advance();
+      a = advance(before, wasChanges, cleanBefore);
     } else if (order > 0) {
       out.push(pathChange(root, after!, "added"));
-      b = advanceAfter();
+      b = advance(after, nowChanges, cleanAfter);
     } else {
-      const changed = pathFieldChanges(before!, after!);
+      const clean = cleanAfter[after!.length - 1] === true;
+      const changed = nowChanges.sameHere(after!, clean) ? null : pathFieldChanges(before!, after!);
       if (changed !== null) out.push(pathChange(root, after!, "changed", changed));
-      if (changes.sameBelow(after!, clean[after!.length - 1] === true)) {
+      if (nowChanges.sameBelow(after!, clean)) {
         before!.skipExtensions();
         after!.skipExtensions();
       }
-      a = before!.advance();
-      b = advanceAfter();
+      a = advance(before, wasChanges, cleanBefore);
+      b = advance(after, nowChanges, cleanAfter);
     }
   }
   return out;
 }
 
-/** The walks' current paths in the order of their edge ids, a path before those that extend it. */
-function comparePaths(a: PathWalker, b: PathWalker): number {
+/** The walks' current paths in the order of their edge ids (by rank), a path before those that extend it. */
+function comparePaths(a: PathWalker, aRank: Int32Array, b: PathWalker, bRank: Int32Array): number {
   const shared = Math.min(a.length, b.length) - 1;
   for (let i = 0; i < shared; i++) {
-    const order = byCodeUnits(a.edgeIdAt(i), b.edgeIdAt(i));
+    const order = aRank[a.edgeIndexAt(i)]! - bRank[b.edgeIndexAt(i)]!;
     if (order !== 0) return order;
   }
   return a.length - b.length;
@@ -259,7 +334,7 @@ function fieldChanges(before: object, after: object): FieldChange[] {
   return changes;
 }
 
-/** Deep equality of JSON values: numbers, strings, booleans, null, arrays and plain objects. */
+/** Deep equality of JSON values: numbers, strings, booleans, null, arrays and plain objects (a missing key equals undefined). */
 function sameValue(a: unknown, b: unknown): boolean {
   if (a === b) return true;
   if (Array.isArray(a) || Array.isArray(b)) {
@@ -268,23 +343,30 @@ function sameValue(a: unknown, b: unknown): boolean {
   if (typeof a !== "object" || typeof b !== "object" || a === null || b === null) return false;
   const was = a as Readonly<Record<string, unknown>>;
   const now = b as Readonly<Record<string, unknown>>;
-  const keys = new Set([...Object.keys(was), ...Object.keys(now)]);
-  return [...keys].every((key) => sameValue(was[key], now[key]));
+  // Runs for every compared path that ends in a state, so no list of the keys is built.
+  for (const key of Object.keys(was)) if (!sameValue(was[key], now[key])) return false;
+  for (const key of Object.keys(now)) if (!Object.hasOwn(was, key) && now[key] !== undefined) return false;
+  return true;
 }
 
 function byCodeUnits(a: string, b: string): number {
   return a < b ? -1 : a > b ? 1 : 0;
 }
 
-/** Lists of ids in the order of their first difference, a list before those it begins. */
-function compareIdLists(a: readonly string[], b: readonly string[]): number {
-  const shared = Math.min(a.length, b.length);
-  for (let i = 0; i < shared; i++) if (a[i] !== b[i]) return byCodeUnits(a[i]!, b[i]!);
-  return a.length - b.length;
-}
-
-/** By input; paths with the same input by their edge ids, so the order never depends on a walk. */
-function byInput(a: PathChange, b: PathChange): number {
-  if (a.input !== b.input) return a.input < b.input ? -1 : 1;
-  return compareIdLists(a.edges, b.edges);
+/**
+ * Paths listed in the order of their edge ids, sorted by input: paths with the same input keep
+ * that order, which is the order of their edge ids the contract asks for. Many paths share an
+ * input (a stance's moves often have the same few), so equal inputs are grouped and only the
+ * distinct ones compared.
+ */
+function sortByInput(paths: readonly PathChange[]): PathChange[] {
+  const byInput = new Map<string, PathChange[]>();
+  for (const path of paths) {
+    const same = byInput.get(path.input);
+    if (same === undefined) byInput.set(path.input, [path]);
+    else same.push(path);
+  }
+  const sorted: PathChange[] = [];
+  for (const input of [...byInput.keys()].sort(byCodeUnits)) for (const path of byInput.get(input)!) sorted.push(path);
+  return sorted;
 }

@@ -63,6 +63,9 @@ const lastWalker: PathWalker[] = [];
  * (gaps, duckable, guards, mix-up points, auto-guard...) are rebuilt from the path's nodes
  * and edges when read, as only materialising reads them. `toResult()` builds a detached copy.
  */
+/** Whether a walk leaves out the step from its node at depth d by `edge` to `to`, with `hits` hits so far (`PathWalker.passOver`). */
+export type PassOver = (d: number, edge: number, to: number, hits: number) => boolean;
+
 export class PathWalker implements PathView {
   private readonly g: CompiledGraph;
   private readonly root: number;
@@ -102,6 +105,9 @@ export class PathWalker implements PathView {
    */
   private readonly inputAt: string[];
   private inputBuilt = 0;
+
+  /** Steps the walk passes over as if their edge were not there (`passOver`); null: none. */
+  private passOverStep: PassOver | null = null;
 
   constructor(graph: MoveGraph | CompiledGraph, rootId: string, options?: ExploreOptions) {
     const g = compileGraph(graph);
@@ -147,6 +153,16 @@ export class PathWalker implements PathView {
     this.nextSlotAt[this.d] = this.g.slotStart[this.nodeAt[this.d]! + 1]!;
   }
 
+  /**
+   * From now on, leaves out every path that goes on from the current path's node at depth d by
+   * `edge` (a compiled index) to node `to`, where `pass(d, edge, to, hits)` says so (`hits`: the
+   * hits on the path up to depth d), with all that extend it. The next `advance()` and every
+   * later one ask it before each step.
+   */
+  passOver(pass: PassOver): void {
+    this.passOverStep = pass;
+  }
+
   /** The first path: the root move alone, or for a stance root the first hit after it. */
   private start(): boolean {
     const g = this.g;
@@ -178,7 +194,7 @@ export class PathWalker implements PathView {
       const n = this.nodeAt[d]!;
       const end = g.slotStart[n + 1]!;
       for (let slot = this.nextSlotAt[d]!; slot < end; slot++) {
-        if (this.mayTake(d, slot)) {
+        if (this.mayTake(d, slot) && !this.passesOver(d, slot)) {
           this.nextSlotAt[d] = slot + 1;
           this.stepTo(d + 1, g.slotTo[slot]!);
           return true;
@@ -194,6 +210,11 @@ export class PathWalker implements PathView {
   private mayTake(d: number, slot: number): boolean {
     const to = this.g.slotTo[slot]!;
     return this.g.isMove[to] ? this.hitsAt[d]! < this.maxDepth : this.visits[to]! < this.maxStanceVisits;
+  }
+
+  private passesOver(d: number, slot: number): boolean {
+    const pass = this.passOverStep;
+    return pass !== null && pass(d, this.g.slotEdge[slot]!, this.g.slotTo[slot]!, this.hitsAt[d]!);
   }
 
   /** Puts node `to` at depth i, reached from depth i - 1, with the path's running annotations there. */
@@ -375,6 +396,16 @@ export class PathWalker implements PathView {
   /** The id of the current path's edge at 0-based position i (below `length - 1`), read without building `edges`. */
   edgeIdAt(i: number): string {
     return this.g.edgeIds[this.edgeInto(i + 1)]!;
+  }
+
+  /** The compiled index of the current path's node at position i: what `nodeIdAt` names. */
+  nodeIndexAt(i: number): number {
+    return this.nodeAt[i]!;
+  }
+
+  /** The compiled index of the current path's edge at position i: what `edgeIdAt` names. */
+  edgeIndexAt(i: number): number {
+    return this.edgeInto(i + 1);
   }
 
   get nodes(): string[] {

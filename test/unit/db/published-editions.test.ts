@@ -4,7 +4,8 @@ import { eq, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect } from "vitest";
 import { closeDb, getDb } from "@/server/db";
 import { isPublishedEditionWrite } from "@/server/db/published";
-import { characters, editions, edges, games, moves, stances } from "@/server/db/schema";
+import { editions, edges, games, moves, stances } from "@/server/db/schema";
+import { gameWithCharacter } from "./game-fixture";
 
 // A published Edition never changes, and it is the database that says no: the triggers of
 // drizzle/0004 refuse every insert, update and delete of its stances, moves and edges, and any
@@ -159,17 +160,9 @@ type Write = keyof typeof writes;
 const ctx = { gameId: 0, characterId: 0, published: null as unknown as Ids, draft: null as unknown as Ids };
 
 beforeAll(async () => {
-  const tag = randomUUID().slice(0, 8);
-  const [game] = await db
-    .insert(games)
-    .values({ slug: `frozen-${tag}`, name: `Frozen ${tag}` })
-    .$returningId();
-  const [character] = await db
-    .insert(characters)
-    .values({ gameId: game!.id, slug: "quill", name: "Quill" })
-    .$returningId();
-  ctx.gameId = game!.id;
-  ctx.characterId = character!.id;
+  const made = await gameWithCharacter({ slug: "frozen", name: "Frozen" }, { slug: "quill", name: "Quill" });
+  ctx.gameId = made.gameId;
+  ctx.characterId = made.characterId;
   ctx.published = await editionWithRows(ctx.gameId, ctx.characterId, "1-0");
   await db
     .update(editions)

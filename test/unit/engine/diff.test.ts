@@ -3,6 +3,7 @@ import microdiff from "microdiff";
 import { isDeepStrictEqual } from "node:util";
 import { describe, expect } from "vitest";
 import {
+  compileGraph,
   diffGraphs,
   EngineInputError,
   explorePaths,
@@ -15,7 +16,7 @@ import {
 } from "../../../src/lib/engine";
 import { createPathWalker } from "../../../src/lib/engine/walk";
 import { cancel, enter, follow, move, stance } from "./fixtures";
-import { applyEdits, applyFieldEdits, editArb, fieldEditArb, READ_BY_PATHS } from "./graph-edits";
+import { applyFieldEdits, editedPairs, fieldEditArb, READ_BY_PATHS } from "./graph-edits";
 import { graphArb, optionsArb } from "./random-graphs";
 
 const NOTHING: GraphDiff = {
@@ -224,13 +225,7 @@ describe("what changed, worked by hand", () => {
 });
 
 const graphs = graphArb({ moves: 6, stances: 3, acyclic: false });
-const pairs = graphs.chain((g) =>
-  fc.tuple(
-    fc.constant(g),
-    fc.array(editArb, { maxLength: 6 }).map((edits) => applyEdits(g, edits)),
-    optionsArb,
-  ),
-);
+const pairs = editedPairs(graphs);
 
 const byCodeUnits = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
 const sorted = (ids: Iterable<string>) => [...ids].sort(byCodeUnits);
@@ -341,18 +336,56 @@ describe("what changed on random graphs", () => {
       expect(diffGraphs(a, b, o).paths).toEqual(naivePathDiff(a, b, o));
     },
   );
-});
+  // With every edge's input one of two, most paths from a root share their input with others:
+  // those are listed by their edge ids, which is where grouping equal inputs could go wrong.
+  const twoInputs = (g: MoveGraph): MoveGraph => ({
+    nodes: g.nodes,
+    edges: g.edges.map((e) => ({
+      ...e,
+      input: [...e.id].reduce((sum, c) => sum + c.charCodeAt(0), 0) % 2 ? ",1" : "",
+    })),
+  });
+  test.prop([pairs], { numRuns: 300 })(
+    "when many paths share an input, the paths listed are those the plain comparison finds, in its order",
+    ([a, b, o]) => {
+      const [before, after] = [twoInputs(a), twoInputs(b)];
+      expect(diffGraphs(before, after, o).paths).toEqual(naivePathDiff(before, after, o));
+    },
+  );
 
-describe("the walk's skipExtensions", () => {
-  const withRoot = graphs.chain((g) =>
+  // Edits of the endings alone (on block, on hit) leave every step clean: the paths that end on
+  // an edited move are compared, and the rest are known to be the same without comparing.
+  const endingEdits = graphs.chain((g) =>
     fc.tuple(
       fc.constant(g),
-      fc.constantFrom(...g.nodes.filter((n) => n.kind === "move").map((n) => n.id)),
-      fc.constantFrom(...g.nodes.map((n) => n.id)),
+      fc
+        .array(
+          fieldEditArb.map((e) => ({ ...e, node: true })),
+          { minLength: 1, maxLength: 3 },
+        )
+        .map((e) => applyFieldEdits(g, e, { ...READ_BY_PATHS, move: ["onBlock", "onHit"] }).graph),
       optionsArb,
     ),
   );
+  test.prop([endingEdits], { numRuns: 300 })(
+    "after edits of moves' endings only, the paths listed are those the plain comparison finds",
+    ([a, b, o]) => {
+      expect(diffGraphs(a, b, o).paths).toEqual(naivePathDiff(a, b, o));
+    },
+  );
+});
 
+/** A graph, a root move, any node of it, and options. */
+const withRoot = graphs.chain((g) =>
+  fc.tuple(
+    fc.constant(g),
+    fc.constantFrom(...g.nodes.filter((n) => n.kind === "move").map((n) => n.id)),
+    fc.constantFrom(...g.nodes.map((n) => n.id)),
+    optionsArb,
+  ),
+);
+
+describe("the walk's skipExtensions", () => {
   test.prop([withRoot], { numRuns: 200 })(
     "leaves out exactly the paths that extend a path where it was called",
     ([g, root, at, o]) => {
@@ -365,6 +398,23 @@ describe("the walk's skipExtensions", () => {
       }
       const expected = explorePaths(g, root, o)
         .filter((p) => !p.nodes.slice(0, -1).includes(at))
+        .map((p) => p.edges.join(" "));
+      expect(kept).toEqual(expected);
+    },
+  );
+});
+
+describe("the walk's passOver", () => {
+  test.prop([withRoot], { numRuns: 200 })(
+    "leaves out exactly the paths that step into the nodes it passes over",
+    ([g, root, at, o]) => {
+      const compiled = compileGraph(g);
+      const walker = createPathWalker(compiled, root, o);
+      walker.passOver((_d, _edge, to) => to === compiled.index.get(at));
+      const kept: string[] = [];
+      while (walker.advance()) kept.push(walker.edges.join(" "));
+      const expected = explorePaths(g, root, o)
+        .filter((p) => !p.nodes.slice(1).includes(at))
         .map((p) => p.edges.join(" "));
       expect(kept).toEqual(expected);
     },

@@ -1,5 +1,6 @@
 import { fc } from "@fast-check/vitest";
-import type { GraphEdge, GraphNode, Level, MoveGraph } from "../../../src/lib/engine";
+import type { ExploreOptions, GraphEdge, GraphNode, Level, MoveGraph } from "../../../src/lib/engine";
+import { optionsArb } from "./random-graphs";
 
 // Edits of invented move graphs, as a data editor makes them between two Editions. Every
 // edit keeps the graph valid; ids stay the keys.
@@ -222,4 +223,17 @@ export function applyEdits(graph: MoveGraph, edits: readonly Edit[]): MoveGraph 
     }
   }
   return g;
+}
+
+/** Two Editions to compare: a graph, the same graph after up to six edits of any kind, and the options for both. */
+export function editedPairs(
+  graphs: fc.Arbitrary<MoveGraph>,
+): fc.Arbitrary<[MoveGraph, MoveGraph, Required<ExploreOptions>]> {
+  return graphs.chain((g) =>
+    fc.tuple(
+      fc.constant(g),
+      fc.array(editArb, { maxLength: 6 }).map((edits) => applyEdits(g, edits)),
+      optionsArb,
+    ),
+  );
 }
