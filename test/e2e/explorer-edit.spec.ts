@@ -100,6 +100,22 @@ test("a coach adds a follow-up, changes a number, meets a conflict and deletes a
   );
   expect(saved?.damage).toBe(11);
 
+  // A cancel into a stance the character does not have yet: the stance is made with it.
+  await explorer.node("1").click();
+  await page.keyboard.press("c");
+  const cancel = page.getByRole("form", { name: "A cancel from 1" });
+  await cancel.getByLabel("Into the stance").selectOption({ label: "A new stance…" });
+  await cancel.getByLabel("Stance name").fill("Ember Guard");
+  await cancel.getByLabel("Short label").fill("EMB");
+  await cancel.getByLabel("Stance key").fill("ember");
+  await cancel.getByLabel("Cancel input").fill("~u");
+  await cancel.getByLabel("On block", { exact: true }).fill("-1");
+  await cancel.getByLabel("On hit", { exact: true }).fill("4");
+  await cancel.getByLabel("On counter hit", { exact: true }).fill("4");
+  await cancel.getByLabel("On counter hit", { exact: true }).press("Enter");
+  await expect(editor.getByRole("status")).toHaveText("Added the cancel 1~u>ember.");
+  await expect(explorer.node("stance:ember")).toBeVisible();
+
   // Deleting 1,2 says what goes with it and asks first.
   await explorer.node("1,2").click();
   await page.keyboard.press("Delete");

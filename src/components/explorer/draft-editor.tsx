@@ -2,12 +2,13 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useEffect, useState, type ReactNode } from "react";
-import { useForm, type UseFormReturn } from "react-hook-form";
+import { useForm, useWatch, type UseFormReturn } from "react-hook-form";
 import { control, described, Field, FormEnd, showRefusal, TextInput } from "@/components/forms/fields";
 import type { Dependents } from "@/lib/character-edit";
 import { coachErrorMap, POSTURES, type PortableEdge, type PortableMove } from "@/lib/character-file";
 import { linkChanges, moveFormSchema, toLinkForm, toMoveForm, type LinkForm, type MoveForm } from "@/lib/edit-forms";
 import { LEVELS, type MoveGraph, type PathResult } from "@/lib/engine";
+import { newStanceSchema } from "@/lib/authoring";
 import { AppError, VersionConflict } from "@/lib/errors";
 import { fetcher, sendJson } from "@/lib/fetcher";
 
@@ -594,6 +595,9 @@ function Check({
   );
 }
 
+/** The choice in the cancel form's stance list that makes a new stance first. */
+const NEW_STANCE = "";
+
 function NewCancel({
   draft,
   from,
@@ -607,29 +611,45 @@ function NewCancel({
   onCancel: () => void;
   onSaved: (message: string, edgeKey: string) => Promise<void>;
 }) {
-  const form = useForm<LinkForm & { to: string }>({ defaultValues: { ...toLinkForm(), to: stances[0]?.key ?? "" } });
-  if (stances.length === 0)
-    return (
-      <div className="space-y-2">
-        <p>
-          This character has no stance to cancel into yet. Add one in its character file (a stance row) and import it,
-          then come back.
-        </p>
-        <button type="button" className={secondary} onClick={onCancel}>
-          Close
-        </button>
-      </div>
-    );
-  const submit = form.handleSubmit(async ({ to, ...values }) => {
+  type CancelForm = LinkForm & { to: string; stanceKey: string; stanceName: string; stanceLabel: string };
+  const form = useForm<CancelForm>({
+    defaultValues: {
+      ...toLinkForm(),
+      to: stances[0]?.key ?? NEW_STANCE,
+      stanceKey: "",
+      stanceName: "",
+      stanceLabel: "",
+    },
+  });
+  const making = useWatch({ control: form.control, name: "to" }) === NEW_STANCE;
+  const submit = form.handleSubmit(async ({ to, stanceKey, stanceName, stanceLabel, ...values }) => {
     const parsed = linkChanges("cancel", values);
     if (!parsed.success) {
       for (const issue of parsed.error.issues)
         form.setError(String(issue.path[0]) as "input", { message: issue.message });
       return;
     }
+    let into = to;
+    if (making) {
+      // The stance is made first; if the cancel is then refused, the stance stays and can be chosen next time.
+      const stance = newStanceSchema.safeParse({ key: stanceKey, name: stanceName, abbreviation: stanceLabel });
+      if (!stance.success) {
+        const field = { key: "stanceKey", name: "stanceName", abbreviation: "stanceLabel" } as const;
+        for (const issue of stance.error.issues)
+          form.setError(field[String(issue.path[0]) as keyof typeof field] ?? "root", { message: issue.message });
+        return;
+      }
+      try {
+        await sendJson("POST", `${base(draft)}/stances`, stance.data);
+      } catch (error) {
+        showRefusal(error, form.setError, []);
+        return;
+      }
+      into = stance.data.key;
+    }
     try {
       const made = await sendJson<{ key: string }>("POST", `${base(draft)}/edges`, {
-        edge: { kind: "cancel", from, to, ...parsed.data },
+        edge: { kind: "cancel", from, to: into, ...parsed.data },
       });
       await onSaved(`Added the cancel ${made?.key ?? ""}.`, made!.key);
     } catch (error) {
@@ -646,8 +666,22 @@ function NewCancel({
               {s.name}
             </option>
           ))}
+          <option value={NEW_STANCE}>A new stance…</option>
         </select>
       </Field>
+      {making && (
+        <div className="grid grid-cols-3 gap-2">
+          <TextInput form={form} name="stanceName" id="new-stance-name" label="Stance name" />
+          <TextInput form={form} name="stanceLabel" id="new-stance-label" label="Short label" hint="e.g. DRF" />
+          <TextInput
+            form={form}
+            name="stanceKey"
+            id="new-stance-key"
+            label="Stance key"
+            hint="Stays the same across Editions"
+          />
+        </div>
+      )}
       <LinkFields form={form as unknown as UseFormReturn<LinkForm>} kind="cancel" prefix="new-cancel" />
       <FormEnd busy={form.formState.isSubmitting} label="Add cancel" error={form.formState.errors.root?.message}>
         <button type="button" className={secondary} onClick={onCancel}>
