@@ -130,9 +130,14 @@ describe("editing a draft's graph", () => {
       edgeRoute.PATCH,
       "PATCH",
       { edge: key },
-      { version: read.version, changes: { gapOnBlock: 7 } },
+      // The input is sent as it is: the log names only the field that changed.
+      { version: read.version, changes: { gapOnBlock: 7, input: ",2" } },
     );
     expect(first.status).toBe(200);
+    expect((await listAudit({ teamId: ctx.teamId })).at(-1)).toMatchObject({
+      action: "edge.changed",
+      detail: { edge: "1>1,2", fields: "gapOnBlock" },
+    });
     const late = await call(
       edgeRoute.PATCH,
       "PATCH",

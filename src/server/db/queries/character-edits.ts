@@ -1,7 +1,7 @@
 import "server-only";
 import { eq } from "drizzle-orm";
 import { applyEdit, dependentsOf, type CharacterEdit, type Dependents } from "@/lib/character-edit";
-import { edgeKey, formatProblem, orderEdges, type PortableCharacter, type PortableEdge } from "@/lib/character-file";
+import { edgeKey, formatProblem, type PortableCharacter, type PortableEdge } from "@/lib/character-file";
 import { AppError, VersionConflict, type ErrorIssue } from "@/lib/errors";
 import { getDb } from "../index";
 import { characters } from "../schema";
@@ -10,8 +10,9 @@ import { lockDraft } from "./authoring";
 import {
   collidingKeys,
   compareCharacter,
+  fieldChanges,
   loadCharacterRows,
-  portableRows,
+  portableCharacterOf,
   writeCharacter,
   type Rows,
   type Tx,
@@ -54,21 +55,7 @@ async function load(db: Executor, scope: Omit<EditScope, "teamId" | "actorId">):
   const [target] = await db.select().from(characters).where(eq(characters.id, scope.characterId));
   if (!target || target.gameId !== scope.gameId) throw new AppError("not_found", "No such character in this game.");
   const rows = await loadCharacterRows(db, scope);
-  const items = portableRows(rows);
-  const moves = items.moves.map((m) => m.item);
-  return {
-    rows,
-    target,
-    character: {
-      character: { slug: target.slug, name: target.name, summary: target.summary },
-      stances: items.stances.map((s) => s.item),
-      moves,
-      edges: orderEdges(
-        moves,
-        items.edges.map((e) => e.item),
-      ),
-    },
-  };
+  return { rows, target, character: portableCharacterOf(target, rows) };
 }
 
 function editableMove(loaded: Loaded, key: string): EditableMove | null {
@@ -205,7 +192,15 @@ export function saveEdge(
       scope,
       loaded,
       { op: "change-edge", key, changes },
-      { action: "edge.changed", detail: { edge: key, fields: Object.keys(changes).sort().join(", ") } },
+      {
+        action: "edge.changed",
+        detail: {
+          edge: key,
+          fields: fieldChanges(before.edge, { ...before.edge, ...changes })
+            .map((c) => c.field)
+            .join(", "),
+        },
+      },
     );
     return editableEdge(after.loaded, after.touched.edges[0] ?? key)!;
   });

@@ -119,22 +119,30 @@ export function portableRows({ stanceRows, moveRows, edgeRows }: Rows) {
   return { stances: ps, moves: pm, edges: pe };
 }
 
+/** A character's rows as a file carries them: its name and summary, stances, moves in list order, edges grouped by move. */
+export function portableCharacterOf(
+  info: { slug: string; name: string; summary: string | null },
+  rows: Rows,
+): PortableCharacter {
+  const items = portableRows(rows);
+  const moveItems = items.moves.map((m) => m.item);
+  return {
+    character: { slug: info.slug, name: info.name, summary: info.summary },
+    stances: items.stances.map((s) => s.item),
+    moves: moveItems,
+    edges: orderEdges(
+      moveItems,
+      items.edges.map((e) => e.item),
+    ),
+  };
+}
+
 /** One character of one Edition as a file carries it; null when the character does not exist. */
 export async function loadPortableCharacter({ editionId, characterId }: Scope): Promise<PortableCharacter | null> {
   const db = getDb();
   const [info] = await db.select().from(characters).where(eq(characters.id, characterId));
   if (!info) return null;
-  const rows = portableRows(await loadCharacterRows(db, { editionId, characterId }));
-  const moveItems = rows.moves.map((m) => m.item);
-  return {
-    character: { slug: info.slug, name: info.name, summary: info.summary },
-    stances: rows.stances.map((s) => s.item),
-    moves: moveItems,
-    edges: orderEdges(
-      moveItems,
-      rows.edges.map((e) => e.item),
-    ),
-  };
+  return portableCharacterOf(info, await loadCharacterRows(db, { editionId, characterId }));
 }
 
 /** Every character of a game with frame data in the Edition, in the order they were made. */
