@@ -110,3 +110,92 @@ export interface GraphDiff {
   edges: ItemsDiff;
   paths: PathChange[];
 }
+
+// ---------------------------------------------------------------------------------------
+// Mix-up boards (DESIGN.md, "Board contract")
+
+/** One situation of a board: attacker options (rows) against defender options (columns). */
+export interface BoardSituation {
+  id: string;
+  name: string;
+  /** Attacker options, 1 to 12. */
+  rows: string[];
+  /** Defender options, 1 to 12. */
+  cols: string[];
+  /** rows x cols, the attacker's payoff, finite. */
+  payoffs: number[][];
+  /** Optional, rows x cols: the situation a cell leads to. */
+  next?: (string | null)[][];
+}
+
+export interface Board {
+  root: string;
+  situations: BoardSituation[];
+}
+
+export interface SituationSolution {
+  /** The value of the situation for the attacker. */
+  value: number;
+  /** The attacker's optimal mix (sums to 1). */
+  row: number[];
+  /** The defender's optimal mix (sums to 1). */
+  col: number[];
+  /** Effective payoff: the payoff plus the value of the cell's next situation. */
+  cells: number[][];
+  /** value - (row i against the defender's mix): >= 0, and 0 where row i is played. */
+  rowShortfall: number[];
+  /** (column j against the attacker's mix) - value: >= 0. */
+  colShortfall: number[];
+}
+
+export interface BoardSolution {
+  value: number;
+  situations: Record<string, SituationSolution>;
+}
+
+/**
+ * What a board's numbers are worth, in damage points to the attacker. A board's cells
+ * filled from the engine keep their basis (below) and are valued through this table, so a
+ * coach who changes the table sees every filled cell follow.
+ */
+export interface ValueTable {
+  /** What each frame the attacker is ahead is worth to them. */
+  plusFrame: number;
+  /** What each frame the attacker is behind costs them, when no punisher is known. */
+  minusFrame: number;
+  /** What leaving the defender in each state is worth to the attacker, beyond the hit's damage. */
+  states: Record<StateName, number>;
+  /** What a hit that whiffs (a high ducked) costs the attacker: the defender's free answer. */
+  whiff: number;
+}
+
+/** A move a cell names: the opponent's punisher or interrupt. */
+export interface BoardMove {
+  input: string;
+  damage: number;
+  startup: number;
+}
+
+/**
+ * Where a filled cell's number comes from: the engine's facts about that exchange, which
+ * the value table turns into a payoff.
+ * - `blocked`: the guard stops the hit; the block outcome, valued by the punisher it allows
+ *   (from the defender's stance after the hit) or else by the value of its frames.
+ * - `hit`: a wrong guard; the hit's damage plus the value of the outcome it leaves.
+ * - `whiff`: the guard ducks a high; the attacker whiffs.
+ * - `interrupted`: the defender's attack fits in the gap before the hit; its damage.
+ */
+export type CellBasis =
+  | { kind: "blocked"; input: string; onBlock: Outcome; defenderStance: DefenderStance; punisher: BoardMove | null }
+  | { kind: "hit"; input: string; damage: number; outcome: Outcome; counterHit: boolean }
+  | { kind: "whiff"; input: string }
+  | { kind: "interrupted"; input: string; gap: number; interrupt: BoardMove };
+
+/** A situation filled from the engine at the end of a path: its options and each cell's basis. */
+export interface FilledSituation {
+  name: string;
+  rows: string[];
+  cols: string[];
+  /** rows x cols. */
+  cells: CellBasis[][];
+}
