@@ -143,3 +143,59 @@ export const boardDocumentSchema = z
 export type BoardCell = z.infer<typeof boardCellSchema>;
 export type BoardSituationDoc = z.infer<typeof boardSituationDocSchema>;
 export type BoardDocument = z.infer<typeof boardDocumentSchema>;
+
+/**
+ * The references inside a document that its shape alone cannot check: situation ids are unique,
+ * and the root and every cell's `next` name a situation of the board. Each issue names the id.
+ * Cycles are the engine's to find (`solveBoard` throws `BoardInputError`), not this check's.
+ */
+export function boardReferenceIssues(doc: BoardDocument): { path: (string | number)[]; message: string }[] {
+  const issues: { path: (string | number)[]; message: string }[] = [];
+  const ids = new Set<string>();
+  doc.situations.forEach((s, i) => {
+    if (ids.has(s.id))
+      issues.push({
+        path: ["situations", i, "id"],
+        message: `Two situations have the id "${s.id}"; give each its own.`,
+      });
+    ids.add(s.id);
+  });
+  if (!ids.has(doc.root))
+    issues.push({ path: ["root"], message: `The board starts at "${doc.root}", which is not one of its situations.` });
+  doc.situations.forEach((s, i) =>
+    s.cells.forEach((row, r) =>
+      row.forEach((cell, c) => {
+        if (cell.next !== null && !ids.has(cell.next))
+          issues.push({
+            path: ["situations", i, "cells", r, c, "next"],
+            message: `A cell of "${s.id}" leads to "${cell.next}", which is not one of the board's situations.`,
+          });
+      }),
+    ),
+  );
+  return issues;
+}
+
+/** A document as it is saved: its shape, then its references (`boardReferenceIssues`). */
+export const savedBoardDocumentSchema = boardDocumentSchema.superRefine((doc, ctx) => {
+  for (const issue of boardReferenceIssues(doc)) ctx.addIssue({ code: "custom", ...issue });
+});
+
+export const boardTitleSchema = text("A board's title", BOARD_LIMITS.title)
+  .min(1, { error: "Give the board a title." })
+  .regex(/^[^\n\t]*$/, { error: "A board's title is one line." });
+
+/** Where in the Explorer a board was made: the root move's key and the selected path's key (null: the root alone). */
+export const boardOriginSchema = z
+  .object({
+    root: text("The root move", 64).min(1, { error: "Name the move the board was made from." }),
+    path: text("The path", 4000).nullable(),
+  })
+  .strict();
+export type BoardOrigin = z.infer<typeof boardOriginSchema>;
+
+/** A board's number in an address or a body. */
+export const boardIdSchema = z
+  .number({ error: "A board is named by its number." })
+  .int({ error: "A board is named by a whole number." })
+  .positive({ error: "A board is named by a positive number." });

@@ -5,7 +5,8 @@
  */
 import type { FieldChange, Level, Outcome } from "@/lib/engine";
 import type { GraphResponse } from "@/lib/explorer";
-import type { PermalinkView, PermalinkVisibility } from "@/lib/permalink";
+import type { BoardDocument, BoardOrigin } from "@/lib/board";
+import type { BoardLinkView, PermalinkKind, PermalinkView, PermalinkVisibility } from "@/lib/permalink";
 import type { Role } from "@/lib/roles";
 
 // Teams
@@ -48,26 +49,32 @@ export interface AuditEntryDto {
 
 // Permalinks
 
-/** A permalink as its team sees it. */
-export interface PermalinkDto {
+/** What every permalink carries, whatever it shows. */
+interface PermalinkBase {
   slug: string;
   /** Where it opens: `/s/<slug>`. */
   path: string;
   teamId: number;
   title: string;
   visibility: PermalinkVisibility;
+  /** The character and Edition it is pinned to (a board's link: the board's). */
   characterId: number;
   edition: { id: number; slug: string; name: string };
-  view: PermalinkView;
   createdBy: { id: string; name: string | null };
   createdAt: string;
   revokedAt: string | null;
 }
 
+/** A permalink as its team sees it: an Explorer view, or a Mix-up board. */
+export type PermalinkDto =
+  | (PermalinkBase & { kind: "explorer"; view: PermalinkView })
+  | (PermalinkBase & { kind: "board"; view: BoardLinkView });
+
 /** One row of a team's list of permalinks. */
 export interface TeamPermalinkDto {
   slug: string;
   path: string;
+  kind: PermalinkKind;
   title: string;
   visibility: PermalinkVisibility;
   edition: { slug: string; name: string };
@@ -77,14 +84,19 @@ export interface TeamPermalinkDto {
   revokedAt: string | null;
 }
 
-/** What `/s/[slug]` renders: the pinned Edition's data and the view, never the team's other data. */
-export interface SharedViewDto {
+/** What every shared view carries: who shared it, when, and with whom. */
+interface SharedBase {
   slug: string;
   title: string;
   visibility: PermalinkVisibility;
   /** The creator's display name; null when they never gave one (their e-mail is not shown). */
   creatorName: string | null;
   createdAt: string;
+}
+
+/** What `/s/[slug]` renders for an Explorer view: the pinned Edition's data and the view, never the team's other data. */
+export interface SharedExplorerViewDto extends SharedBase {
+  kind: "explorer";
   game: { slug: string; name: string; fastest: number };
   character: { id: number; slug: string; name: string };
   characterId: number;
@@ -98,6 +110,44 @@ export interface SharedViewDto {
   opponent: GraphResponse | null;
   view: PermalinkView;
 }
+
+/**
+ * What `/s/[slug]` renders for a board's link: the board's current saved document, read-only.
+ * It names neither the team nor who saved it last (a link may be open to anyone).
+ */
+export interface SharedBoardViewDto extends SharedBase {
+  kind: "board";
+  board: SharedBoardDto;
+}
+
+export type SharedViewDto = SharedExplorerViewDto | SharedBoardViewDto;
+
+// Mix-up boards
+
+/** One of a team's boards, as its list shows it. */
+export interface BoardSummaryDto {
+  id: number;
+  title: string;
+  /** The version a save is based on: a save of an older one is refused (409, with the board as it is now). */
+  version: number;
+  game: { slug: string; name: string };
+  character: { id: number; slug: string; name: string };
+  edition: { slug: string; name: string; status: "draft" | "published" };
+  opponent: { id: number; slug: string; name: string } | null;
+  updatedAt: string;
+  updatedBy: { id: string; name: string | null } | null;
+}
+
+/** A board as its editor opens it. */
+export interface BoardDto extends BoardSummaryDto {
+  team: { slug: string; name: string };
+  /** Where in the Explorer it was made: a move key and a path key (null: the root alone). */
+  origin: BoardOrigin | null;
+  document: BoardDocument;
+}
+
+/** A board as a permalink shows it: without its team or who saved it last. */
+export type SharedBoardDto = Omit<BoardDto, "team" | "updatedBy">;
 
 // The move list
 

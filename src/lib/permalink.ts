@@ -66,20 +66,49 @@ const id = (what: string) =>
     .int({ error: `${what} must be a whole number.` })
     .positive({ error: `${what} must be positive.` });
 
-/** The body of POST /api/permalinks. */
-export const createPermalinkSchema = z
-  .object({
-    teamId: id("The team"),
-    characterId: id("The character"),
-    edition: z
-      .string({ error: "Say which Edition the link is pinned to." })
-      .regex(/^[a-z0-9-]{1,32}$/, { error: "An Edition is named by its slug, such as 1-1." }),
-    view: permalinkViewSchema,
-    visibility: z.enum(PERMALINK_VISIBILITIES, {
-      error: 'Visibility is "team" (members only) or "link" (anyone with the link).',
-    }),
-  })
-  .strict();
+/** A link to a Mix-up board: it shows the board's current saved document, read-only. */
+export const boardLinkViewSchema = z.object({ board: id("The board") }).strict();
+export type BoardLinkView = z.infer<typeof boardLinkViewSchema>;
+
+/** What a permalink shows: an Explorer view (the default) or a Mix-up board. */
+export const PERMALINK_KINDS = ["explorer", "board"] as const;
+export type PermalinkKind = (typeof PERMALINK_KINDS)[number];
+
+const visibilitySchema = z.enum(PERMALINK_VISIBILITIES, {
+  error: 'Visibility is "team" (members only) or "link" (anyone with the link).',
+});
+
+/**
+ * The body of POST /api/permalinks: an Explorer view (`kind` "explorer" or left out) names its
+ * character and Edition; a board's link (`kind` "board") names the board, whose character and
+ * Edition it is pinned to.
+ */
+export const createPermalinkSchema = z.discriminatedUnion(
+  "kind",
+  [
+    z
+      .object({
+        kind: z.literal("explorer").optional(),
+        teamId: id("The team"),
+        characterId: id("The character"),
+        edition: z
+          .string({ error: "Say which Edition the link is pinned to." })
+          .regex(/^[a-z0-9-]{1,32}$/, { error: "An Edition is named by its slug, such as 1-1." }),
+        view: permalinkViewSchema,
+        visibility: visibilitySchema,
+      })
+      .strict(),
+    z
+      .object({
+        kind: z.literal("board"),
+        teamId: id("The team"),
+        view: boardLinkViewSchema,
+        visibility: visibilitySchema,
+      })
+      .strict(),
+  ],
+  { error: 'A link shows an Explorer view (kind "explorer") or a board (kind "board").' },
+);
 
 export type CreatePermalinkInput = z.infer<typeof createPermalinkSchema>;
 

@@ -4,7 +4,7 @@ import { ExplorerView } from "@/components/explorer/explorer-view";
 import { ExplorerStoreProvider } from "@/components/providers/explorer-store-provider";
 import { graphUrl } from "@/lib/explorer";
 import { VISIBILITY_TEXT, viewToExplorerState } from "@/lib/permalink";
-import type { SharedViewDto } from "@/lib/dto";
+import type { SharedExplorerViewDto } from "@/lib/dto";
 import { SignInHereLink } from "@/components/sign-in-here-link";
 
 const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
@@ -14,7 +14,7 @@ const dateFormat = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZ
  * with the shared path selected. Seeded like the Explorer page (SWR fallback
  * and a store), but SWR never refetches: the pinned data is the view.
  */
-export function SharedExplorer({ view: shared }: { view: SharedViewDto }) {
+export function SharedExplorer({ view: shared }: { view: SharedExplorerViewDto }) {
   const { data, view } = shared;
   const visibility = VISIBILITY_TEXT[shared.visibility];
   return (

@@ -16,6 +16,7 @@ import {
   varchar,
   type AnyMySqlColumn,
 } from "drizzle-orm/mysql-core";
+import type { BoardDocument, BoardOrigin } from "@/lib/board";
 import type { Level, Outcome } from "@/lib/engine";
 import { PERMALINK_VISIBILITIES } from "@/lib/permalink";
 import { ROLES } from "@/lib/roles";
@@ -398,6 +399,41 @@ export const permalinks = mysqlTable(
   (t) => [uniqueIndex("permalinks_slug_uq").on(t.slug), index("permalinks_team_idx").on(t.teamId, t.createdAt)],
 );
 
+/**
+ * A team's Mix-up board: a tree of situations (attacker options x defender options), made
+ * for one character in one Edition (draft or published), optionally against an opponent.
+ * The document is checked by `boardDocumentSchema` on the way in; `version` is the editor's
+ * base for a save (a save of an older version is refused).
+ */
+export const boards = mysqlTable(
+  "boards",
+  {
+    id: id(),
+    teamId: ref("team_id")
+      .notNull()
+      .references(() => teams.id, { onDelete: "cascade" }),
+    editionId: ref("edition_id")
+      .notNull()
+      .references(() => editions.id, { onDelete: "cascade" }),
+    characterId: ref("character_id")
+      .notNull()
+      .references(() => characters.id, { onDelete: "cascade" }),
+    opponentId: ref("opponent_id").references(() => characters.id, { onDelete: "set null" }),
+    title: varchar("title", { length: 120 }).notNull(),
+    document: json("document").$type<BoardDocument>().notNull(),
+    origin: json("origin").$type<BoardOrigin>(),
+    version: version(),
+    createdBy: varchar("created_by", { length: 255 }).references(() => users.id, { onDelete: "set null" }),
+    updatedBy: varchar("updated_by", { length: 255 }).references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    /** Microseconds, so the list's "last saved first" holds for saves within one second. */
+    updatedAt: datetime("updated_at", { mode: "date", fsp: 6 })
+      .notNull()
+      .default(sql`CURRENT_TIMESTAMP(6)`),
+  },
+  (t) => [index("boards_team_updated_idx").on(t.teamId, t.updatedAt)],
+);
+
 /** Who changed what in a team, newest last. */
 export const auditLog = mysqlTable(
   "audit_log",
@@ -468,5 +504,7 @@ export type Invite = typeof invites.$inferSelect;
 export type NewInvite = typeof invites.$inferInsert;
 export type Permalink = typeof permalinks.$inferSelect;
 export type NewPermalink = typeof permalinks.$inferInsert;
+export type BoardRow = typeof boards.$inferSelect;
+export type NewBoardRow = typeof boards.$inferInsert;
 export type AuditEntry = typeof auditLog.$inferSelect;
 export type NewAuditEntry = typeof auditLog.$inferInsert;

@@ -15,7 +15,8 @@ export type PermalinkImageSummary =
  * when the caller could read them: previews are fetched by other services.
  */
 export function summarizeSharedView(shared: SharedViewDto): PermalinkImageSummary {
-  if (shared.visibility !== "link") return { kind: "private" };
+  // A board's preview is still to be drawn: the generic card for now.
+  if (shared.visibility !== "link" || shared.kind !== "explorer") return { kind: "private" };
   const { view, data } = shared;
   const sub = reachableSubgraph(data.graph, view.root);
   const launchAt = effectiveLaunchAt(data.game.launchAt, view.options.fastest);

@@ -3,6 +3,8 @@ import { count, eq } from "drizzle-orm";
 import { afterAll, beforeEach, describe, expect, test, vi } from "vitest";
 import { POST as acceptInvite } from "@/app/api/invites/accept/route";
 import { POST as createPermalink } from "@/app/api/permalinks/route";
+import { POST as createBoard } from "@/app/api/teams/[team]/boards/route";
+import { PUT as saveBoard } from "@/app/api/teams/[team]/boards/[board]/route";
 import { POST as invite } from "@/app/api/teams/[team]/invites/route";
 import { PATCH as changeRole } from "@/app/api/teams/[team]/members/[user]/route";
 import { POST as createTeam } from "@/app/api/teams/route";
@@ -16,8 +18,8 @@ import { PATCH as saveEdge } from "@/app/api/games/[game]/editions/[edition]/cha
 import { setSession } from "./session-mock";
 import { closeDb, getDb } from "@/server/db";
 import { listMembers, listMyTeams } from "@/server/db/queries/teams";
-import { auditLog, characters, editions, games, invites, permalinks, users } from "@/server/db/schema";
-import { VIEW, world, type World, newLink, newFollowUp } from "./world";
+import { auditLog, boards, characters, editions, games, invites, permalinks, users } from "@/server/db/schema";
+import { boardSave, newBoard, VIEW, world, type World, newLink, newFollowUp } from "./world";
 
 vi.mock("@/server/auth", () => import("./session-mock"));
 vi.mock("@/server/mail", async (original) => ({
@@ -56,6 +58,13 @@ async function storedOfGames(w: World): Promise<string[]> {
     out.push(...(await db.select().from(editions).where(eq(editions.gameId, g.id))).map((e) => e.name));
   }
   return out;
+}
+
+/** The titles of the team's boards, as stored. */
+async function storedBoardTitles(w: World): Promise<string[]> {
+  return (await getDb().select({ title: boards.title }).from(boards).where(eq(boards.teamId, w.team.id))).map(
+    (b) => b.title,
+  );
 }
 
 // Every route that takes a JSON body. Each is sent broken JSON, an oversized body, wrong types,
@@ -104,6 +113,29 @@ const ROUTES: BodyRoute[] = [
       visibility: "link",
     }),
     text: ["edition", "visibility"],
+  },
+  {
+    name: "POST /api/permalinks (a board)",
+    handler: createPermalink as Handler,
+    params: () => ({}),
+    good: (w) => ({ kind: "board", teamId: w.team.id, view: { board: w.board.id }, visibility: "link" }),
+    text: ["kind", "visibility"],
+  },
+  {
+    name: "POST /api/teams/[team]/boards",
+    handler: createBoard as Handler,
+    params: (w) => ({ team: w.team.slug }),
+    good: (w) => ({ ...newBoard(w), opponentId: w.teamCharacterId }),
+    text: ["title", "edition"],
+    stored: storedBoardTitles,
+  },
+  {
+    name: "PUT /api/teams/[team]/boards/[board]",
+    handler: saveBoard as Handler,
+    params: (w) => ({ team: w.team.slug, board: String(w.board.id) }),
+    good: boardSave,
+    text: ["title"],
+    stored: storedBoardTitles,
   },
   {
     name: "POST /api/teams/[team]/games",
@@ -178,6 +210,9 @@ async function rowCounts(w: World) {
     invites: await inTeam(invites),
     permalinks: await inTeam(permalinks),
     audit: await inTeam(auditLog),
+    boards: (await db.select().from(boards).where(eq(boards.teamId, w.team.id))).map((b) =>
+      JSON.stringify([b.id, b.version, b.title, b.document, b.updatedBy]),
+    ),
     members: (await listMembers({ teamId: w.team.id })).map((m) => `${m.userId}:${m.role}`).sort(),
   };
 }

@@ -4,6 +4,7 @@ import type { SessionUser } from "@/server/auth";
 import { createInvite } from "@/server/db/queries/invites";
 import { createCharacter, createGame, publishEdition } from "@/server/db/queries/authoring";
 import { createPermalink } from "@/server/db/queries/permalinks";
+import { createBoard } from "@/server/db/queries/boards";
 import { importCharacter, loadPortableCharacter } from "@/server/db/queries/character-io";
 import { createTeam } from "@/server/db/queries/teams";
 import { getDb } from "@/server/db";
@@ -12,7 +13,7 @@ import { makeUser } from "../teams/fixtures";
 import { inlineServerActions, missingRows, routeHandlers, routeUrl, serverActions } from "./inventory";
 import { tableChecksums, runOnPrivateDatabase } from "./private-database";
 import { setSession } from "./session-mock";
-import { characterForm, oneMove, VIEW, world } from "./world";
+import { boardDocument, boardSave, characterForm, newBoard, oneMove, VIEW, world } from "./world";
 
 // The cross-team matrix: the owner of team B sends team A's ids in every path parameter, query
 // field and body field of every route, and each answer must be the one an id that does not
@@ -80,6 +81,16 @@ async function crossWorld() {
   });
   const bDone = await createGame({ ...asB, input: { name: `B Done ${b.slug.slice(-6)}` } });
   await publishEdition({ ...asB, gameId: bDone.game.id, editionId: bDone.edition.id });
+  // Team B's own board, on its draft.
+  const bBoard = await createBoard({
+    ...asB,
+    characterId: bFighter.id,
+    editionSlug: bGame.edition.slug,
+    opponentId: null,
+    title: "B's board",
+    origin: null,
+    document: boardDocument(),
+  });
   return {
     ...w,
     b: {
@@ -91,6 +102,7 @@ async function crossWorld() {
       tokenForCaller: forCaller.token,
       game: bGame.game,
       edition: bGame.edition.slug,
+      board: bBoard,
     },
   };
 }
@@ -118,7 +130,8 @@ interface RouteRow {
   own: (w: CrossWorld) => Call;
   ids: IdField[];
 }
-type Row = RouteRow | { noIds: string } | { exempt: string };
+/** A route that takes two kinds of body (a permalink to a view or to a board) has a row for each. */
+type Row = RouteRow | RouteRow[] | { noIds: string } | { exempt: string };
 
 // Nonexistent ids of each shape.
 const noNumber = () => 3_000_000_000 + Math.floor(Math.random() * 1_000_000);
@@ -133,6 +146,8 @@ const EDITION: IdField = { in: "path", name: "edition", teamA: () => "0-1", none
 const MOVE: IdField = { in: "path", name: "move", teamA: () => "1", none: () => "no-such-move" };
 const EDGE: IdField = { in: "path", name: "edge", teamA: () => "1>1,1", none: () => "no>such-link" };
 const CHARACTER: IdField = { in: "path", name: "character", teamA: () => "sparring-dummy", none: noSlug };
+const BOARD: IdField = { in: "path", name: "board", teamA: (w) => String(w.board.id), none: () => String(noNumber()) };
+const boardParams = (w: CrossWorld) => ({ team: w.b.team.slug, board: String(w.b.board.id) });
 const teamRoute = (own: (w: CrossWorld) => Call = (w) => ({ params: { team: w.b.team.slug } })): RouteRow => ({
   own,
   ids: [TEAM],
@@ -289,16 +304,48 @@ const ROUTES: Record<string, Row> = {
     own: (w) => ({ params: { slug: w.b.link.slug } }),
     ids: [{ in: "path", name: "slug", teamA: (w) => w.shared.slug, none: () => randomBytes(18).toString("base64url") }],
   },
-  "POST /api/permalinks": {
+  "POST /api/permalinks": [
+    {
+      own: (w) => ({
+        body: { teamId: w.b.team.id, characterId: w.demoCharacterId, edition: "1-1", view: VIEW, visibility: "team" },
+      }),
+      ids: [
+        { in: "body", name: "teamId", teamA: (w) => w.team.id, none: noNumber },
+        { in: "body", name: "characterId", teamA: (w) => w.teamCharacterId, none: noNumber },
+        { in: "body", name: "edition", teamA: () => "0-1", none: () => "9-9" },
+        { in: "body", name: "view.opponent", teamA: (w) => w.teamCharacterId, none: noNumber },
+      ],
+    },
+    {
+      own: (w) => ({ body: { kind: "board", teamId: w.b.team.id, view: { board: w.b.board.id }, visibility: "link" } }),
+      ids: [
+        { in: "body", name: "teamId", teamA: (w) => w.team.id, none: noNumber },
+        { in: "body", name: "view.board", teamA: (w) => w.board.id, none: noNumber },
+      ],
+    },
+  ],
+  "GET /api/teams/[team]/boards": teamRoute(),
+  "POST /api/teams/[team]/boards": {
+    // B's board on the demo game, against an opponent: each id of team A's answers as one that names nothing.
     own: (w) => ({
-      body: { teamId: w.b.team.id, characterId: w.demoCharacterId, edition: "1-1", view: VIEW, visibility: "team" },
+      params: { team: w.b.team.slug },
+      body: { ...newBoard(w), characterId: w.demoCharacterId, edition: "1-1", opponentId: w.demoCharacterId },
     }),
     ids: [
-      { in: "body", name: "teamId", teamA: (w) => w.team.id, none: noNumber },
+      TEAM,
       { in: "body", name: "characterId", teamA: (w) => w.teamCharacterId, none: noNumber },
       { in: "body", name: "edition", teamA: () => "0-1", none: () => "9-9" },
-      { in: "body", name: "view.opponent", teamA: (w) => w.teamCharacterId, none: noNumber },
+      { in: "body", name: "opponentId", teamA: (w) => w.teamCharacterId, none: noNumber },
     ],
+  },
+  "GET /api/teams/[team]/boards/[board]": { own: (w) => ({ params: boardParams(w) }), ids: [TEAM, BOARD] },
+  "PUT /api/teams/[team]/boards/[board]": {
+    own: (w) => ({ params: boardParams(w), body: boardSave() }),
+    ids: [TEAM, BOARD],
+  },
+  "DELETE /api/teams/[team]/boards/[board]": {
+    own: (w) => ({ params: boardParams(w), query: { version: "1" } }),
+    ids: [TEAM, BOARD],
   },
   "POST /api/invites/accept": {
     own: (w) => ({ body: { token: w.b.tokenForCaller } }),
@@ -384,13 +431,16 @@ describe("cross-team matrix", () => {
     expect(after.teams).not.toBe(before.teams);
   });
 
-  const cases = Object.entries(ROUTES).flatMap(([key, row]) => {
-    if (!("ids" in row)) return [];
-    const sets: { what: string; fields: IdField[] }[] = row.ids.map((f) => ({ what: f.name, fields: [f] }));
-    if (row.ids.length > 1) sets.push({ what: "every id", fields: row.ids });
-    return CALLERS.flatMap((caller) =>
-      sets.map((s) => ({ name: `${key} · ${caller} · ${s.what}`, key, row, caller, ...s })),
-    );
+  const cases = Object.entries(ROUTES).flatMap(([key, entry]) => {
+    const rows = Array.isArray(entry) ? entry : "ids" in entry ? [entry] : [];
+    return rows.flatMap((row, n) => {
+      const sets: { what: string; fields: IdField[] }[] = row.ids.map((f) => ({ what: f.name, fields: [f] }));
+      if (row.ids.length > 1) sets.push({ what: "every id", fields: row.ids });
+      const variant = rows.length > 1 ? ` #${n + 1}` : "";
+      return CALLERS.flatMap((caller) =>
+        sets.map((s) => ({ name: `${key}${variant} · ${caller} · ${s.what}`, key, row, caller, ...s })),
+      );
+    });
   });
 
   for (const c of cases) {

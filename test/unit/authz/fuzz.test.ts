@@ -4,7 +4,7 @@ import type { SessionUser } from "@/server/auth";
 import { missingRows, pathParams, routeHandlers, routeUrl, serverActions, type Action } from "./inventory";
 import { tableChecksums, runOnPrivateDatabase } from "./private-database";
 import { setSession } from "./session-mock";
-import { VIEW, world, type World, newLink, newFollowUp } from "./world";
+import { boardSave, newBoard, VIEW, world, type World, newLink, newFollowUp } from "./world";
 import { ONE_MOVE_PATHS_REQUEST } from "../../fixtures/paths-request";
 import { runAfterAnswer } from "../auth/request-mock";
 
@@ -80,6 +80,7 @@ const REFS = {
   ownerId: () => w.people.owner.id,
   ownerEmail: () => w.people.owner.email,
   permalinkSlug: () => w.shared.slug,
+  boardId: () => w.board.id,
   teamCharacterId: () => w.teamCharacterId,
   teamGameSlug: () => w.teamGame.slug,
   teamEdition: () => "0-1",
@@ -133,6 +134,7 @@ const PARAM_REFS: Record<string, Ref["ref"][]> = {
   character: ["teamCharacterSlug"],
   move: ["teamMoveKey"],
   edge: ["teamEdgeKey"],
+  board: ["boardId"],
 };
 const param = (name: string): fc.Arbitrary<Text> =>
   PARAM_REFS[name]
@@ -153,6 +155,8 @@ const userOf = (who: Caller): SessionUser | null => {
 interface FuzzRow {
   /** A body the route accepts, which the fuzzer breaks field by field; none for a route that reads no body. */
   good?: () => Record<string, unknown>;
+  /** Other kinds of body the route accepts: each call breaks one of `good` and these. */
+  alsoGood?: (() => Record<string, unknown>)[];
   /** The query fields the route reads, so generated queries use them often. */
   query?: string[];
 }
@@ -183,7 +187,13 @@ const ROUTES: Record<string, FuzzRow | { overHttp: string }> = {
   "GET /api/teams/[team]/permalinks": {},
   "POST /api/permalinks": {
     good: () => ({ teamId: w.team.id, characterId: w.demoCharacterId, edition: "1-1", view: VIEW, visibility: "link" }),
+    alsoGood: [() => ({ kind: "board", teamId: w.team.id, view: { board: w.board.id }, visibility: "link" })],
   },
+  "GET /api/teams/[team]/boards": {},
+  "POST /api/teams/[team]/boards": { good: () => ({ ...newBoard(w), opponentId: w.teamCharacterId }) },
+  "GET /api/teams/[team]/boards/[board]": {},
+  "PUT /api/teams/[team]/boards/[board]": { good: boardSave },
+  "DELETE /api/teams/[team]/boards/[board]": { query: ["version"] },
   "DELETE /api/permalinks/[slug]": {},
   "POST /api/invites/accept": { good: () => ({ token: w.pending.token }) },
   "POST /api/teams/[team]/games": {
@@ -289,13 +299,15 @@ describe("fuzzing every route and action", () => {
         query: fc.array(fc.tuple(queryKey, text), { maxLength: 3 }),
         body: bodyArb,
         type: typeArb,
+        kind: fc.nat(),
       },
       settings,
-    )(key, async ({ who, params, query, body, type }) => {
+    )(key, async ({ who, params, query, body, type, kind }) => {
       const values = Object.fromEntries(names.map((name, i) => [name, resolve(params[i]!)]));
       const search = new URLSearchParams(query.map(([k, v]) => [k, resolve(v)]));
       const init: RequestInit = { method };
-      if (row.good) init.body = bodyText(row.good(), body);
+      const goods = row.good ? [row.good, ...(row.alsoGood ?? [])] : [];
+      if (row.good) init.body = bodyText(goods[kind % goods.length]!(), body);
       if (row.good && type) init.headers = { "content-type": type };
       setSession(userOf(who));
 

@@ -5,7 +5,7 @@ import { routeHandlers, routeUrl, serverActions, type Action } from "./inventory
 import { nextAddress } from "./headers-mock";
 import { setSession } from "./session-mock";
 import { closeDb } from "@/server/db";
-import { characterForm, draftOf, VIEW, world, type World, newLink } from "./world";
+import { boardSave, characterForm, draftOf, newBoard, VIEW, world, type World, newLink } from "./world";
 import { ONE_MOVE_PATHS_REQUEST } from "../../fixtures/paths-request";
 
 // Who is signed in for the call under test. Route handlers read the session only through
@@ -334,6 +334,50 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
         body: { teamId: w.team.id, characterId: w.demoCharacterId, edition: "1-1", view: VIEW, visibility: "link" },
       }),
       expect: { anonymous: 401, viewer: 403, player: 201, coach: 201, owner: 201, outsider: 404 },
+    },
+    {
+      what: "share a board of the team",
+      call: (w) => ({ body: { kind: "board", teamId: w.team.id, view: { board: w.board.id }, visibility: "team" } }),
+      expect: { anonymous: 401, viewer: 403, player: 201, coach: 201, owner: 201, outsider: 404 },
+    },
+  ],
+  "GET /api/teams/[team]/boards": [
+    { what: "list the team's boards", call: (w) => ({ params: { team: w.team.slug } }), expect: members(200) },
+  ],
+  "POST /api/teams/[team]/boards": [
+    {
+      what: "make a board on the team's game",
+      call: (w) => ({ params: { team: w.team.slug }, body: newBoard(w) }),
+      expect: atLeastCoach(201),
+    },
+    {
+      what: "make a board on the demo game",
+      call: (w) => ({
+        params: { team: w.team.slug },
+        body: { ...newBoard(w), characterId: w.demoCharacterId, edition: "1-1", origin: null },
+      }),
+      expect: atLeastCoach(201),
+    },
+  ],
+  "GET /api/teams/[team]/boards/[board]": [
+    {
+      what: "open a board",
+      call: (w) => ({ params: { team: w.team.slug, board: String(w.board.id) } }),
+      expect: members(200),
+    },
+  ],
+  "PUT /api/teams/[team]/boards/[board]": [
+    {
+      what: "save a board",
+      call: (w) => ({ params: { team: w.team.slug, board: String(w.board.id) }, body: boardSave() }),
+      expect: atLeastCoach(200),
+    },
+  ],
+  "DELETE /api/teams/[team]/boards/[board]": [
+    {
+      what: "delete a board",
+      call: (w) => ({ params: { team: w.team.slug, board: String(w.board.id) }, query: "?version=1" }),
+      expect: atLeastCoach(204),
     },
   ],
   "DELETE /api/permalinks/[slug]": [

@@ -1,8 +1,10 @@
 import { eq } from "drizzle-orm";
 import { exportCharacterCsv } from "@/lib/character-file";
+import type { BoardDocument } from "@/lib/board";
 import type { Role } from "@/lib/roles";
 import { getDb } from "@/server/db";
 import { startEdition } from "@/server/db/queries/authoring";
+import { createBoard } from "@/server/db/queries/boards";
 import { getCharacterBySlug, getGameBySlug } from "@/server/db/queries/games";
 import { createInvite } from "@/server/db/queries/invites";
 import { createPermalink } from "@/server/db/queries/permalinks";
@@ -114,10 +116,22 @@ export async function world() {
     view: VIEW,
     visibility: "team",
   });
+  // A board the team's coach made on the team's own game, and a link the player shared to it.
+  const board = await createBoard({
+    teamId: team.id,
+    actorId: people.coach.id,
+    characterId: character!.id,
+    editionSlug: "0-1",
+    opponentId: null,
+    title: "Pressure after the poke",
+    origin: { root: "1", path: null },
+    document: boardDocument(),
+  });
   return {
     people,
     team,
     other,
+    board,
     pending,
     teamGame: { id: game!.id, slug: teamGameSlug },
     teamCharacterId: character!.id,
@@ -127,6 +141,56 @@ export async function world() {
 }
 
 export type World = Awaited<ReturnType<typeof world>>;
+
+/**
+ * A small valid board: after a poke, the attacker goes on or stops, the defender presses or
+ * blocks; going on against a press leads to a second situation. The numbers are invented.
+ */
+export function boardDocument(): BoardDocument {
+  const cell = (override: number, next: string | null = null) => ({ basis: null, override, next });
+  return {
+    root: "after-poke",
+    values: {
+      plusFrame: 1,
+      minusFrame: 2,
+      states: { knockdown: 20, launch: 40, "wall-splat": 30, crumple: 25, throw: 15 },
+      whiff: 10,
+    },
+    situations: [
+      {
+        id: "after-poke",
+        name: "After the poke",
+        note: "",
+        rows: ["Go on", "Stop"],
+        cols: ["Press", "Block"],
+        cells: [
+          [cell(12, "scramble"), cell(-8)],
+          [cell(-10), cell(0)],
+        ],
+      },
+      {
+        id: "scramble",
+        name: "Scramble",
+        note: "Both act at once.",
+        rows: ["Jab"],
+        cols: ["Duck", "Stand"],
+        cells: [[cell(-5), cell(6)]],
+      },
+    ],
+  };
+}
+
+/** The body of POST /api/teams/[team]/boards for the team game's character. */
+export const newBoard = (w: Pick<World, "teamCharacterId">) => ({
+  characterId: w.teamCharacterId,
+  edition: "0-1",
+  title: "Pressure after the poke",
+  origin: { root: "1", path: null },
+  document: boardDocument(),
+});
+
+/** The body of PUT /api/teams/[team]/boards/[board]: the first version, retitled. */
+export const boardSave = () => ({ version: 1, title: "Pressure, second look", document: boardDocument() });
 
 /** A draft Edition of the team's game (the next one, started by its owner), for the changes only a draft takes. */
 export async function draftOf(w: World): Promise<string> {

@@ -26,7 +26,7 @@ describe("summarizeSharedView", () => {
   test("outlines a public link's path from the engine: input, levels, on block and its class", async () => {
     const made = await share("link");
     const loaded = await loadSharedView({ slug: made.slug, viewerId: null });
-    if (loaded.status !== "ok") throw new Error(loaded.status);
+    if (loaded.status !== "ok" || loaded.view.kind !== "explorer") throw new Error(loaded.status);
     // The seed's 2,2,3 is -14 on block in 1-1; with fastest 10 and launchAt 15, -15 < -14 <= -10 is punishable (DESIGN.md's block classes).
     expect(summarizeSharedView(loaded.view)).toEqual({
       kind: "path",

@@ -121,7 +121,7 @@ describe("pinned to an Edition", () => {
   test("a link made on 1-0 keeps 1-0's numbers although 1-1 is the newest", async () => {
     const made = await make({ editionSlug: "1-0", view: stringView({ root: "d+4", path: "" }) });
     const loaded = await loadSharedView({ slug: made.slug, viewerId: null });
-    if (loaded.status !== "ok") throw new Error(`expected ok, got ${loaded.status}`);
+    if (loaded.status !== "ok" || loaded.view.kind !== "explorer") throw new Error(`expected ok, got ${loaded.status}`);
     expect(loaded.view.edition.slug).toBe("1-0");
     expect(loaded.view.data.edition.slug).toBe("1-0");
     // The shared view knows its own Edition only (the game's newest is 1-1).

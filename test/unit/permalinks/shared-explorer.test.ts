@@ -18,7 +18,7 @@ async function rendered(over: Parameters<typeof stringView>[0] = {}) {
     visibility: "link",
   });
   const loaded = await loadSharedView({ slug: made.slug, viewerId: null });
-  if (loaded.status !== "ok") throw new Error(loaded.status);
+  if (loaded.status !== "ok" || loaded.view.kind !== "explorer") throw new Error(loaded.status);
   return renderToString(createElement(SharedExplorer, { view: loaded.view }));
 }
 

@@ -54,7 +54,7 @@ async function shared(opponent: number | null) {
     visibility: "link",
   });
   const loaded = await loadSharedView({ slug: made.slug, viewerId: null });
-  if (loaded.status !== "ok") throw new Error(`the link is ${loaded.status}`);
+  if (loaded.status !== "ok" || loaded.view.kind !== "explorer") throw new Error(`the link is ${loaded.status}`);
   return loaded.view;
 }
 

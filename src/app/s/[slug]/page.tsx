@@ -28,5 +28,7 @@ export default async function SharedPage({ params }: Props) {
   const { slug } = await params;
   const shared = await load(slug);
   if (shared.status === "unavailable") notFound();
+  // A board's link: its read-only page is still to be written; until then it is not found.
+  if (shared.view.kind === "board") notFound();
   return <SharedExplorer view={shared.view} />;
 }

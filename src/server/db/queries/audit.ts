@@ -28,7 +28,10 @@ export type AuditAction =
   | "move.deleted"
   | "edge.added"
   | "edge.changed"
-  | "edge.deleted";
+  | "edge.deleted"
+  | "board.created"
+  | "board.saved"
+  | "board.deleted";
 
 /** Records who did what in a team. Call it with the transaction that makes the change. */
 export async function recordAudit(

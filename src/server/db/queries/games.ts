@@ -1,5 +1,6 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, isNull, or } from "drizzle-orm";
+import { AppError } from "@/lib/errors";
 import { getDb } from "../index";
 import { characters, editions, games, memberships } from "../schema";
 
@@ -120,4 +121,52 @@ export async function getCharacterById({
     .where(eq(characters.id, id))
     .limit(1);
   return row ?? null;
+}
+
+/**
+ * A character a team may build on (a permalink, a board): one of the public demo game or of a
+ * game the team owns. Another team's character answers exactly like one that does not exist.
+ */
+export async function characterForTeam({
+  teamId,
+  characterId,
+}: {
+  teamId: number;
+  characterId: number;
+}): Promise<{ character: CharacterSummary; game: GameSummary }> {
+  const found = await getCharacterById({ id: characterId });
+  if (!found || (found.game.teamId !== null && found.game.teamId !== teamId))
+    throw new AppError("not_found", `There is no character ${characterId}.`);
+  return found;
+}
+
+/** An Edition of the game by slug, with its status; a slug the game does not have is 404. */
+export async function gameEdition({
+  game,
+  slug,
+}: {
+  game: Pick<GameSummary, "id" | "name">;
+  slug: string;
+}): Promise<{ id: number; slug: string; name: string; status: "draft" | "published" }> {
+  const [edition] = await getDb()
+    .select({ id: editions.id, slug: editions.slug, name: editions.name, status: editions.status })
+    .from(editions)
+    .where(and(eq(editions.gameId, game.id), eq(editions.slug, slug)))
+    .limit(1);
+  if (!edition) throw new AppError("not_found", `${game.name} has no Edition "${slug}".`);
+  return edition;
+}
+
+/** A character of the same game, as a permalink's or a board's opponent; 400 naming it otherwise. */
+export async function opponentInGame({
+  opponentId,
+  game,
+}: {
+  opponentId: number;
+  game: Pick<GameSummary, "id" | "name">;
+}): Promise<CharacterSummary> {
+  const found = await getCharacterById({ id: opponentId });
+  if (!found || found.game.id !== game.id)
+    throw new AppError("bad_request", `The opponent ${opponentId} is not in ${game.name}.`);
+  return found.character;
 }

@@ -2,20 +2,24 @@ import "server-only";
 import { and, desc, eq, isNull } from "drizzle-orm";
 import { AppError } from "@/lib/errors";
 import {
+  boardLinkViewSchema,
   canRevoke,
   permalinkPath,
   permalinkViewSchema,
   SLUG_PATTERN,
   tracePath,
+  type BoardLinkView,
   type PermalinkView,
   type PermalinkVisibility,
 } from "@/lib/permalink";
 import { getRole } from "@/server/authz";
 import { newSlug } from "@/server/permalinks";
 import { getDb } from "../index";
-import { characters, editions, games, permalinks, users } from "../schema";
+import { editions, permalinks, users } from "../schema";
 import { recordAudit } from "./audit";
+import { readBoardForLink } from "./boards";
 import { getExplorerData } from "./explorer";
+import { characterForTeam, gameEdition, opponentInGame } from "./games";
 import { getCharacterGraph } from "./moves";
 import type { PermalinkDto, SharedViewDto, TeamPermalinkDto } from "@/lib/dto";
 import type { GraphResponse } from "@/lib/explorer";
@@ -40,6 +44,7 @@ export function permalinkTitle({
 const rowColumns = {
   id: permalinks.id,
   slug: permalinks.slug,
+  kind: permalinks.kind,
   teamId: permalinks.teamId,
   title: permalinks.title,
   visibility: permalinks.visibility,
@@ -54,6 +59,7 @@ const rowColumns = {
 
 type Row = {
   slug: string;
+  kind: string;
   teamId: number;
   title: string;
   visibility: PermalinkVisibility;
@@ -66,8 +72,11 @@ type Row = {
   edition: { id: number; slug: string; name: string };
 };
 
-function toDto(row: Row, view: PermalinkView): PermalinkDto {
-  return {
+/** A stored view, read by its kind's schema. */
+type KindView = { kind: "explorer"; view: PermalinkView } | { kind: "board"; view: BoardLinkView };
+
+function toDto(row: Row, { kind, view }: KindView): PermalinkDto {
+  const base = {
     slug: row.slug,
     path: permalinkPath(row.slug),
     teamId: row.teamId,
@@ -75,11 +84,24 @@ function toDto(row: Row, view: PermalinkView): PermalinkDto {
     visibility: row.visibility,
     characterId: row.characterId,
     edition: row.edition,
-    view,
     createdBy: { id: row.createdBy, name: row.creatorName },
     createdAt: row.createdAt.toISOString(),
     revokedAt: row.revokedAt?.toISOString() ?? null,
   };
+  return kind === "board" ? { ...base, kind, view } : { ...base, kind, view };
+}
+
+/** A stored view by its row's kind; null for a kind this code does not know or a view that no longer fits. */
+function kindView(row: Pick<Row, "kind" | "view">): KindView | { error: unknown } {
+  if (row.kind === "board") {
+    const view = boardLinkViewSchema.safeParse(row.view);
+    return view.success ? { kind: "board", view: view.data } : { error: view.error.issues };
+  }
+  if (row.kind === "explorer") {
+    const view = permalinkViewSchema.safeParse(row.view);
+    return view.success ? { kind: "explorer", view: view.data } : { error: view.error.issues };
+  }
+  return { error: `unknown kind ${row.kind}` };
 }
 
 /** Permalinks with their Edition and their creator's name. */
@@ -95,12 +117,12 @@ async function findRow(slug: string) {
   const [row] = await selectRows().where(eq(permalinks.slug, slug)).limit(1);
   if (!row) return null;
   // Stored views went through the schema on the way in; one that no longer fits is treated as gone.
-  const view = permalinkViewSchema.safeParse(row.view);
-  if (!view.success) {
-    console.error(`[permalinks] stored view of ${slug} no longer fits the schema`, view.error.issues);
+  const view = kindView(row);
+  if ("error" in view) {
+    console.error(`[permalinks] stored view of ${slug} no longer fits the schema`, view.error);
     return null;
   }
-  return { row, view: view.data };
+  return { row, view };
 }
 
 /**
@@ -125,62 +147,116 @@ export async function createPermalink({
   visibility: PermalinkVisibility;
 }): Promise<PermalinkDto> {
   const checked = permalinkViewSchema.parse(view);
-  const db = getDb();
-  const [found] = await db
-    .select({ characterName: characters.name, gameId: games.id, gameName: games.name, gameTeamId: games.teamId })
-    .from(characters)
-    .innerJoin(games, eq(games.id, characters.gameId))
-    .where(eq(characters.id, characterId))
-    .limit(1);
-  // Another team's game answers like a character that does not exist.
-  if (!found || (found.gameTeamId !== null && found.gameTeamId !== teamId)) {
-    throw new AppError("not_found", `There is no character ${characterId}.`);
-  }
-  const [edition] = await db
-    .select({ id: editions.id, slug: editions.slug, name: editions.name, status: editions.status })
-    .from(editions)
-    .where(and(eq(editions.gameId, found.gameId), eq(editions.slug, editionSlug)))
-    .limit(1);
-  if (!edition) throw new AppError("not_found", `${found.gameName} has no Edition "${editionSlug}".`);
+  const { character, game } = await characterForTeam({ teamId, characterId });
+  const edition = await gameEdition({ game, slug: editionSlug });
   // A link is pinned to data that never changes: a draft is still being edited.
   if (edition.status !== "published")
     throw new AppError("conflict", `${edition.name} is a draft: publish it before sharing a link to it.`);
 
   const { graph } = await getCharacterGraph({ characterId, editionId: edition.id });
   const traced = tracePath(graph, checked);
-  if (!traced.ok) throw new AppError("bad_request", `${traced.error} (${found.characterName}, ${edition.name})`);
-  if (checked.opponent !== null) {
-    const [opponent] = await db
-      .select({ id: characters.id })
-      .from(characters)
-      .where(and(eq(characters.id, checked.opponent), eq(characters.gameId, found.gameId)))
-      .limit(1);
-    if (!opponent) throw new AppError("bad_request", `The opponent ${checked.opponent} is not in ${found.gameName}.`);
-  }
+  if (!traced.ok) throw new AppError("bad_request", `${traced.error} (${character.name}, ${edition.name})`);
+  if (checked.opponent !== null) await opponentInGame({ opponentId: checked.opponent, game });
 
+  const title = permalinkTitle({ characterName: character.name, input: traced.input, editionSlug: edition.slug });
+  return insertPermalink({
+    teamId,
+    createdBy,
+    visibility,
+    kind: "explorer",
+    editionId: edition.id,
+    characterId,
+    view: checked,
+    title,
+    edition: edition.slug,
+  });
+}
+
+/** Writes a permalink and its log entry together, and reads it back. */
+async function insertPermalink({
+  edition,
+  ...values
+}: {
+  teamId: number;
+  createdBy: string;
+  visibility: PermalinkVisibility;
+  kind: "explorer" | "board";
+  editionId: number;
+  characterId: number;
+  view: PermalinkView | BoardLinkView;
+  title: string;
+  /** The Edition's slug, for the log. */
+  edition: string;
+}): Promise<PermalinkDto> {
   const slug = newSlug();
-  const title = permalinkTitle({ characterName: found.characterName, input: traced.input, editionSlug: edition.slug });
-  await db.transaction(async (tx) => {
-    await tx.insert(permalinks).values({
-      slug,
-      teamId,
-      createdBy,
-      visibility,
-      editionId: edition.id,
-      characterId,
-      view: checked,
-      title,
-    });
+  await getDb().transaction(async (tx) => {
+    await tx.insert(permalinks).values({ ...values, slug });
     await recordAudit(tx, {
-      teamId,
-      actorId: createdBy,
+      teamId: values.teamId,
+      actorId: values.createdBy,
       action: "permalink.created",
-      detail: { slug, title, visibility, characterId, edition: edition.slug },
+      detail: {
+        slug,
+        title: values.title,
+        visibility: values.visibility,
+        characterId: values.characterId,
+        edition,
+        ...("board" in values.view ? { board: values.view.board } : {}),
+      },
     });
   });
   const created = await findRow(slug);
   if (!created) throw new Error(`permalink ${slug} vanished after its insert`);
   return toDto(created.row, created.view);
+}
+
+/** A board link's title: the board's, its character and its Edition. */
+export function boardLinkTitle({
+  boardTitle,
+  characterName,
+  editionSlug,
+}: {
+  boardTitle: string;
+  characterName: string;
+  editionSlug: string;
+}) {
+  return `Board: ${boardTitle} · ${characterName} · edition ${editionSlug}`.slice(0, 200);
+}
+
+/**
+ * Makes a permalink to one of the team's boards, pinned to the board's character and Edition;
+ * the link shows the board as it is saved when it is opened. Another team's board answers like
+ * one that does not exist. The caller has checked that `createdBy` may share in the team.
+ */
+export async function createBoardPermalink({
+  teamId,
+  createdBy,
+  view,
+  visibility,
+}: {
+  teamId: number;
+  createdBy: string;
+  view: BoardLinkView;
+  visibility: PermalinkVisibility;
+}): Promise<PermalinkDto> {
+  const checked = boardLinkViewSchema.parse(view);
+  const board = await readBoardForLink({ teamId, boardId: checked.board });
+  if (!board) throw new AppError("not_found", `There is no board ${checked.board}.`);
+  return insertPermalink({
+    teamId,
+    createdBy,
+    visibility,
+    kind: "board",
+    editionId: board.editionId,
+    characterId: board.characterId,
+    view: checked,
+    title: boardLinkTitle({
+      boardTitle: board.title,
+      characterName: board.character.name,
+      editionSlug: board.edition.slug,
+    }),
+    edition: board.edition.slug,
+  });
 }
 
 /** A permalink by its slug, revoked or not; null for a slug that is not one. */
@@ -197,6 +273,7 @@ export async function listTeamPermalinks({ teamId }: { teamId: number }): Promis
   return rows.map((r) => ({
     slug: r.slug,
     path: permalinkPath(r.slug),
+    kind: r.kind === "board" ? "board" : "explorer",
     title: r.title,
     visibility: r.visibility,
     edition: { slug: r.edition.slug, name: r.edition.name },
@@ -263,11 +340,26 @@ export async function loadSharedView({
 }): Promise<SharedViewResult> {
   const found = await findRow(slug);
   if (!found || found.row.revokedAt !== null) return { status: "unavailable" };
-  const { row, view } = found;
+  const { row } = found;
   if (row.visibility === "team") {
     if (viewerId === null || (await getRole({ teamId: row.teamId, userId: viewerId })) === null)
       return { status: "unavailable" };
   }
+  const shared = {
+    slug: row.slug,
+    title: row.title,
+    visibility: row.visibility,
+    creatorName: row.creatorName,
+    createdAt: row.createdAt.toISOString(),
+  };
+  if (found.view.kind === "board") {
+    // The board as it is saved now; a deleted board's link is gone like a revoked one.
+    const board = await readBoardForLink({ teamId: row.teamId, boardId: found.view.view.board });
+    if (!board) return { status: "unavailable" };
+    const { team: _team, updatedBy: _updatedBy, editionId: _e, characterId: _c, ...shown } = board;
+    return { status: "ok", view: { ...shared, kind: "board", board: shown } };
+  }
+  const { view } = found.view;
   const explorer = await getExplorerData({ characterId: row.characterId, edition: row.edition.slug });
   if (!explorer.ok) return { status: "unavailable" };
   const opponentId = view.opponent !== null && view.opponent !== row.characterId ? view.opponent : null;
@@ -283,11 +375,8 @@ export async function loadSharedView({
   return {
     status: "ok",
     view: {
-      slug: row.slug,
-      title: row.title,
-      visibility: row.visibility,
-      creatorName: row.creatorName,
-      createdAt: row.createdAt.toISOString(),
+      ...shared,
+      kind: "explorer",
       game: { slug: data.game.slug, name: data.game.name, fastest: data.game.fastest },
       character: data.character,
       characterId: row.characterId,
