@@ -193,9 +193,3 @@ export const boardOriginSchema = z
   })
   .strict();
 export type BoardOrigin = z.infer<typeof boardOriginSchema>;
-
-/** A board's number in an address or a body. */
-export const boardIdSchema = z
-  .number({ error: "A board is named by its number." })
-  .int({ error: "A board is named by a whole number." })
-  .positive({ error: "A board is named by a positive number." });
