@@ -283,6 +283,19 @@ describe("cellPayoff and explainCell on each kind of cell", () => {
     );
   });
 
+  test("without a column, each sentence still says where the number comes from", () => {
+    const values = DEFAULT_VALUE_TABLE;
+    expect(explainCell(blocked(-12, JAB), values)).toBe(
+      "1,2,3 is blocked at -12; the opponent's 1 (10f, 7 damage) punishes it from standing: -7.",
+    );
+    expect(explainCell({ kind: "hit", input: "1,2", damage: 9, outcome: 5, counterHit: true }, values)).toBe(
+      "1,2 lands as a counter hit for 9 damage and leaves +5; the 5 frames ahead are worth 1 each: +14.",
+    );
+    expect(explainCell({ kind: "whiff", input: "1,2,1" }, values)).toBe(
+      "The guard ducks the high 1,2,1 and the attacker whiffs, which costs 20: -20.",
+    );
+  });
+
   test("the default table is Framefork's: a frame is worth a point either way", () => {
     expect(cellPayoff(blocked(-3), DEFAULT_VALUE_TABLE)).toBe(-3);
     expect(cellPayoff(blocked(3), DEFAULT_VALUE_TABLE)).toBe(3);
