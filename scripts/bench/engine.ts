@@ -25,6 +25,9 @@
  * What changed: diffGraphs between two Editions of a generated ~300-move character, the
  * second a balance patch of the first (diff.ts, patch.ts); printed as diff_300_ms.
  *
+ * Mix-up boards: solveBoard on a generated tree of 100 situations of 6x6 (board.ts), and the
+ * same games through HiGHS in the same run; printed as board_100x6x6_ms and board_100x6x6_highs_ms.
+ *
  * Character files: a generated 10,000-row CSV parsed (character-file.ts, import_parse_10k_s),
  * and imported end to end into a draft on the benches' own MariaDB (character-import.ts,
  * import_10k_s and import_10k_peak_mb).
@@ -34,6 +37,7 @@ import { fileURLToPath } from "node:url";
 import { compileGraph, type CompiledGraph, type ExploreOptions, type PathResult } from "../../src/lib/engine";
 import { createPathWalker, explorePaths, iteratePaths, type PathWalker } from "../../src/lib/engine/walk";
 import { bareWalk } from "./bare-walk";
+import { benchBoard, type BoardBench } from "./board";
 import { benchDiff, type DiffBench } from "./diff";
 import { benchImportParse } from "./character-file";
 import { benchImportDb } from "./character-import";
@@ -322,6 +326,16 @@ function main(): void {
       `${diff.pathsBefore} and ${diff.pathsAfter} paths, ${diff.listed} listed; median ${diffMs.toFixed(1)} ms over ${diff.times.length} runs`,
   );
 
+  const board = inChild<BoardBench>(["--child-board"]);
+  const boardMs = median(board.times);
+  const boardHighsMs = median(board.highsTimes);
+  console.log(
+    `\nMix-up board (solveBoard), generated tree of ${board.situations} situations of 6x6: ` +
+      `median ${boardMs.toFixed(1)} ms over ${board.times.length} runs (target < 50 ms); ` +
+      `the same games through HiGHS ${boardHighsMs.toFixed(1)} ms (HiGHS/solveBoard ${(boardHighsMs / boardMs).toFixed(1)}); ` +
+      `values agree to ${board.largestGap.toExponential(1)}`,
+  );
+
   const parse = benchImportParse();
   const imported = benchImportDb();
   const big = 1e6;
@@ -335,6 +349,8 @@ function main(): void {
       ),
       peak_mb_stream_1e6: Number(stream.peakMb.toFixed(2)),
       diff_300_ms: Number(diffMs.toFixed(1)),
+      board_100x6x6_ms: Number(boardMs.toFixed(2)),
+      board_100x6x6_highs_ms: Number(boardHighsMs.toFixed(2)),
       import_parse_10k_s: Number((parse.ms / 1000).toFixed(4)),
       import_10k_s: Number((median(imported.times) / 1000).toFixed(3)),
       import_10k_peak_mb: Number(imported.peakMb.toFixed(1)),
@@ -347,6 +363,8 @@ if (args[0] === "--child") {
   console.log(JSON.stringify(runChild(args[1] as Case, Number(args[2]), Number(args[3]))));
 } else if (args[0] === "--child-diff") {
   console.log(JSON.stringify(benchDiff()));
+} else if (args[0] === "--child-board") {
+  void benchBoard().then((r) => console.log(JSON.stringify(r)));
 } else {
   main();
 }

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { STATES } from "@/lib/engine/schema";
-import type { CellBasis, ValueTable } from "@/lib/engine";
+import { cellPayoff, type Board, type CellBasis, type ValueTable } from "@/lib/engine";
 
 /**
  * A Mix-up board as it is saved: situations whose cells either keep the engine's basis
@@ -193,3 +193,43 @@ export const boardOriginSchema = z
   })
   .strict();
 export type BoardOrigin = z.infer<typeof boardOriginSchema>;
+
+/** Whether the coach typed this cell's number instead of the basis's value. */
+export function cellIsOverridden(cell: BoardCell): boolean {
+  return cell.override !== null;
+}
+
+/**
+ * The solver's board of a saved document: each cell's payoff is the coach's override, else
+ * its basis valued through the board's value table, else 0; its next link as saved.
+ */
+export function boardToSolve(doc: BoardDocument): Board {
+  return {
+    root: doc.root,
+    situations: doc.situations.map((s) => ({
+      id: s.id,
+      name: s.name,
+      rows: s.rows,
+      cols: s.cols,
+      payoffs: s.cells.map((row) =>
+        row.map((cell) => cell.override ?? (cell.basis === null ? 0 : cellPayoff(cell.basis, doc.values))),
+      ),
+      next: s.cells.map((row) => row.map((cell) => cell.next)),
+    })),
+  };
+}
+
+/** A situation id not yet in the document: "s" and one more than the highest such number in use ("s2" after "s1"). */
+export function newSituationId(doc: Pick<BoardDocument, "situations">): string {
+  let highest = 0;
+  for (const s of doc.situations) {
+    const m = /^s(\d+)$/.exec(s.id);
+    if (m !== null) highest = Math.max(highest, Number(m[1]));
+  }
+  if (Number.isSafeInteger(highest + 1)) return `s${highest + 1}`;
+  // An id such as "s99999999999999999999" leaves no next number: take the lowest free one.
+  const used = new Set(doc.situations.map((s) => s.id));
+  let n = 1;
+  while (used.has(`s${n}`)) n++;
+  return `s${n}`;
+}

@@ -123,6 +123,11 @@ export interface PunisherMove {
   from: "standing" | "crouching" | "any";
 }
 
+/** Whether a defender move done from `from` can be done from `defenderStance`. */
+export function canActFrom(from: PunisherMove["from"], defenderStance: DefenderStance): boolean {
+  return from === "any" || from === defenderStance;
+}
+
 /**
  * The defender's moves that land before the attacker recovers, best damage first and,
  * among equal damage, the faster (more reliable) move first.
@@ -134,9 +139,7 @@ export function punishersFor<M extends PunisherMove>(
 ): M[] {
   const limit = punishWindow(onBlock);
   if (limit === null) return [];
-  return moves
-    .filter((m) => m.startup <= limit && (m.from === "any" || m.from === defenderStance))
-    .sort(byDamageThenSpeed);
+  return moves.filter((m) => m.startup <= limit && canActFrom(m.from, defenderStance)).sort(byDamageThenSpeed);
 }
 
 // ---------------------------------------------------------------------------------------
@@ -176,6 +179,11 @@ export function gapJails(gap: number): boolean {
 /** A known gap of 1 frame or more: the defender may act there, and a high after it can be ducked. False for NaN. */
 export function gapOpens(gap: number): boolean {
   return gap > 0;
+}
+
+/** Whether a defender move of this startup hits first in a gap on block: the gap opens and the startup fits in it. */
+export function hitsFirstInGap(startup: number, gap: number): boolean {
+  return gapOpens(gap) && startup <= gap;
 }
 
 /** Who acts first after an exchange with this outcome; `state` when it is not a frame count. */

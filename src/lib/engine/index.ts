@@ -17,6 +17,8 @@ export {
   combosAtAdvantage,
   afterCancel,
   punishersFor,
+  canActFrom,
+  hitsFirstInGap,
   guardsFor,
   defenderStanceAfter,
   outcomeFrames,
@@ -52,5 +54,17 @@ export {
   type BlockRules,
 } from "./frames";
 export { solveMatrixGame, type MatrixGameSolution } from "./solver";
+export { solveBoard, bestReplyTo, bestAnswerTo, BoardInputError, MAX_BOARD_OPTIONS } from "./board";
+export { DEFAULT_VALUE_TABLE, cellPayoff, outcomeValue, explainCell, formatPayoff } from "./board-values";
+export {
+  fillSituation,
+  pressColumn,
+  isPressColumn,
+  STAND_GUARD,
+  CROUCH_GUARD,
+  STOP,
+  type FillOptions,
+  type OpponentMove,
+} from "./board-fill";
 export { graphSchema, optionsSchema, exploreRequestSchema, parseGraph, LEVELS } from "./schema";
 export type * from "./types";

@@ -1,12 +1,12 @@
 import { fc } from "@fast-check/vitest";
 import { beforeAll, describe, expect, test } from "vitest";
 import { solveMatrixGame } from "../../../src/lib/engine";
+import { highsValue as highsOf, loadHighs } from "./highs-game";
 
-type Highs = Awaited<ReturnType<(typeof import("highs"))["default"]>>;
-let highs: Highs;
+let highs: Awaited<ReturnType<typeof loadHighs>>;
 
 beforeAll(async () => {
-  highs = await (await import("highs")).default();
+  highs = await loadHighs();
 });
 
 /** The row player's guaranteed payoff of mix `x` and the column player's of `y`. */
@@ -19,21 +19,7 @@ function guarantees(payoff: number[][], row: number[], col: number[]) {
   return { rowFloor, colCeiling };
 }
 
-/** The game value from HiGHS, stated without any shift: max v s.t. x·A_j >= v, sum x = 1, v free. */
-function highsValue(payoff: number[][]): number {
-  const rows = payoff.length;
-  const cols = payoff[0]!.length;
-  const term = (c: number, name: string) => `${c < 0 ? "-" : "+"} ${Math.abs(c)} ${name}`;
-  const lines = ["Maximize", " obj: v", "Subject To"];
-  for (let j = 0; j < cols; j++) {
-    lines.push(` c${j}: ${payoff.map((r, i) => term(r[j]!, `x${i}`)).join(" ")} - v >= 0`);
-  }
-  lines.push(` total: ${Array.from({ length: rows }, (_, i) => `+ x${i}`).join(" ")} = 1`);
-  lines.push("Bounds", " v free", "End");
-  const result = highs.solve(lines.join("\n"), { output_flag: false });
-  if (result.Status !== "Optimal") throw new Error(`HiGHS: ${result.Status}`);
-  return result.ObjectiveValue;
-}
+const highsValue = (payoff: number[][]) => highsOf(highs, payoff);
 
 describe("solveMatrixGame", () => {
   test('the worked example of Wikipedia\'s "Zero-sum game" article', () => {
