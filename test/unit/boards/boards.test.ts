@@ -240,6 +240,14 @@ describe("what a board may hold", () => {
       );
   });
 
+  test("a cycle of situations is refused with the engine's message naming the situations on it", async () => {
+    const w = await world();
+    const document = boardDocument();
+    document.situations[1]!.cells[0]![1]!.next = "after-poke";
+    for (const message of await refusals(w, document))
+      expect(message).toMatch(/"after-poke" → "scramble" → "after-poke" lead back to each other/);
+  });
+
   test("a root that is not a situation, and two situations with one id, are refused, naming them", async () => {
     const w = await world();
     const rootless = { ...boardDocument(), root: "elsewhere" };

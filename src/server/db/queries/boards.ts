@@ -1,7 +1,8 @@
 import "server-only";
 import { and, desc, eq, sql } from "drizzle-orm";
 import { alias, type SelectedFields } from "drizzle-orm/mysql-core";
-import { savedBoardDocumentSchema, type BoardDocument, type BoardOrigin } from "@/lib/board";
+import { boardToSolve, savedBoardDocumentSchema, type BoardDocument, type BoardOrigin } from "@/lib/board";
+import { BoardInputError, solveBoard } from "@/lib/engine";
 import { AppError, VersionConflict } from "@/lib/errors";
 import { parseWith } from "@/server/http";
 import { getDb } from "../index";
@@ -102,9 +103,13 @@ const dto = ({ editionId: _e, characterId: _c, ...board }: BoardWithPins): Board
  */
 function checkedDocument(document: BoardDocument): BoardDocument {
   const checked = parseWith(savedBoardDocumentSchema, document, "body");
-  // MERGE (board engine): call the engine's `solveBoard(boardToSolve(checked))` here and turn
-  // its `BoardInputError` (a cycle of situations) into AppError("bad_request", its message), so
-  // a board that cannot be solved is never saved. Cycles are the engine's to find, not this file's.
+  // A board that cannot be solved (a cycle of situations, found by the engine) is never saved.
+  try {
+    solveBoard(boardToSolve(checked));
+  } catch (error) {
+    if (error instanceof BoardInputError) throw new AppError("bad_request", error.message);
+    throw error;
+  }
   return checked;
 }
 
