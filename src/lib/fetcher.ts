@@ -13,8 +13,12 @@ export async function fetcher<T>(url: string): Promise<T> {
   return body as T;
 }
 
-/** Sends JSON (POST, PATCH, DELETE) and reads the answer like `fetcher`: an `AppError` when refused. */
-export async function sendJson<T>(method: "POST" | "PATCH" | "DELETE", url: string, body?: unknown): Promise<T | null> {
+/** Sends JSON (POST, PUT, PATCH, DELETE) and reads the answer like `fetcher`: an `AppError` when refused. */
+export async function sendJson<T>(
+  method: "POST" | "PUT" | "PATCH" | "DELETE",
+  url: string,
+  body?: unknown,
+): Promise<T | null> {
   let res: Response;
   try {
     res = await fetch(url, {

@@ -7,13 +7,16 @@ import { afterNextPaint } from "./after-paint";
 
 const PREFIX = "framefork:";
 
-export function startTiming(name: "select" | "recompute" | "layout"): void {
+/** The Explorer's three actions, and a board re-solved after an edit. */
+type TimingName = "select" | "recompute" | "layout" | "board-solve";
+
+export function startTiming(name: TimingName): void {
   if (typeof performance === "undefined") return;
   performance.mark(`${PREFIX}${name}:start`);
 }
 
 /** Measures from the last `startTiming(name)` to the paint after this call, once. */
-export function finishTimingAfterPaint(name: "select" | "recompute" | "layout"): void {
+export function finishTimingAfterPaint(name: TimingName): void {
   if (typeof performance === "undefined" || typeof requestAnimationFrame === "undefined") return;
   const start = `${PREFIX}${name}:start`;
   if (performance.getEntriesByName(start, "mark").length === 0) return;

@@ -32,6 +32,12 @@ const data = {
   moveName: `Secret Sweep ${tag}`,
   teamOnlyTitle: `Team-only drill ${tag}`,
   linkTitle: `Open drill ${tag}`,
+  /** Given, not drawn by AUTO_INCREMENT: the table of pages is built before team A is. */
+  boardId: 1_000_000_000 + Math.floor(Math.random() * 1_000_000_000),
+  boardTitle: `Secret split ${tag}`,
+  boardSituation: `Hidden guess ${tag}`,
+  boardTeamOnlySlug: randomBytes(18).toString("base64url"),
+  boardLinkSlug: randomBytes(18).toString("base64url"),
   teamOnlySlug: randomBytes(18).toString("base64url"),
   linkSlug: randomBytes(18).toString("base64url"),
   inviteToken: randomBytes(32).toString("base64url"),
@@ -44,7 +50,16 @@ const data = {
   ) as Record<Exclude<Visitor, "anonymous">, { name: string; email: string }>,
 };
 
-type Secret = "team" | "game" | "character" | "move" | "team-only link" | `${Member}'s name` | `${Member}'s e-mail`;
+type Secret =
+  | "team"
+  | "game"
+  | "character"
+  | "move"
+  | "team-only link"
+  | "board"
+  | "board's situation"
+  | `${Member}'s name`
+  | `${Member}'s e-mail`;
 /** What a stranger must not read anywhere in a page of team A's, by name. */
 const SECRETS: Record<Secret, string> = {
   team: data.teamName,
@@ -52,6 +67,8 @@ const SECRETS: Record<Secret, string> = {
   character: data.characterName,
   move: data.moveName,
   "team-only link": data.teamOnlyTitle,
+  board: data.boardTitle,
+  "board's situation": data.boardSituation,
   ...(Object.fromEntries(
     MEMBERS.flatMap((v) => [
       [`${v}'s name`, data.people[v].name],
@@ -190,6 +207,25 @@ const PAGES: Record<string, Target[]> = {
       expect: { ...all(404), anonymous: "sign-in" },
     },
   ],
+  "(app)/teams/[team]/boards/[board]/page.tsx": [
+    {
+      // Every member reads the board (coaches and owners get its editor); anyone else gets "not found".
+      what: "team A's Mix-up board",
+      path: `/teams/${data.teamSlug}/boards/${data.boardId}`,
+      expect: membersOnly("sign-in"),
+      membersSee: ["board", "board's situation"],
+    },
+    {
+      what: "a board number team A does not have",
+      path: `/teams/${data.teamSlug}/boards/999999999`,
+      expect: { ...all(404), anonymous: "sign-in" },
+    },
+    {
+      what: "a board address that is not a number",
+      path: `/teams/${data.teamSlug}/boards/x1`,
+      expect: { ...all(404), anonymous: "sign-in" },
+    },
+  ],
   "(app)/invites/[token]/page.tsx": [
     {
       // The token is the invite's secret, mailed to the invitee, who reads it before having an account:
@@ -227,6 +263,19 @@ const PAGES: Record<string, Target[]> = {
     },
     // Anyone with the address may open it, by design: it shows the path and who shared it.
     { what: "team A's public link", path: `/s/${data.linkSlug}`, expect: all(200), disclosed: ["player's name"] },
+    {
+      what: "team A's team-only link to a board",
+      path: `/s/${data.boardTeamOnlySlug}`,
+      expect: membersOnly(),
+      membersSee: ["board's situation"],
+    },
+    // A board shared with anyone shows the board (its situations) and who shared it, never the team.
+    {
+      what: "team A's public link to a board",
+      path: `/s/${data.boardLinkSlug}`,
+      expect: all(200),
+      disclosed: ["player's name", "board", "board's situation"],
+    },
   ],
   "s/[slug]/not-found.tsx": [
     { what: "a link that does not exist", path: `/s/${randomBytes(18).toString("base64url")}`, expect: all(404) },
@@ -404,6 +453,59 @@ async function makeTeamA() {
       `insert into permalinks (slug, team_id, created_by, visibility, edition_id, character_id, view, title)
        values (?, ?, ?, ?, ?, ?, ?, ?)`,
       [slug, team!.id, ids.player, visibility, tarrow!.editionId, tarrow!.id, view, title],
+    );
+
+  // A board of the team's on the demo character, and two links to it.
+  const document = JSON.stringify({
+    root: "s1",
+    values: {
+      plusFrame: 1,
+      minusFrame: 1,
+      states: { knockdown: 10, launch: 35, "wall-splat": 25, crumple: 30, throw: 0 },
+      whiff: 20,
+    },
+    situations: [
+      {
+        id: "s1",
+        name: data.boardSituation,
+        note: "",
+        rows: ["Go on", "Stop"],
+        cols: ["Stand guard", "Crouch guard"],
+        cells: [
+          [
+            { basis: null, override: 10, next: null },
+            { basis: null, override: -5, next: null },
+          ],
+          [
+            { basis: null, override: -2, next: null },
+            { basis: null, override: 0, next: null },
+          ],
+        ],
+      },
+    ],
+  });
+  await query(
+    `insert into boards (id, team_id, edition_id, character_id, title, document, created_by, updated_by)
+     values (?, ?, ?, ?, ?, ?, ?, ?)`,
+    [data.boardId, team!.id, tarrow!.editionId, tarrow!.id, data.boardTitle, document, ids.coach, ids.coach],
+  );
+  for (const [slug, visibility] of [
+    [data.boardTeamOnlySlug, "team"],
+    [data.boardLinkSlug, "link"],
+  ])
+    await query(
+      `insert into permalinks (slug, team_id, created_by, kind, visibility, edition_id, character_id, view, title)
+       values (?, ?, ?, 'board', ?, ?, ?, ?, ?)`,
+      [
+        slug,
+        team!.id,
+        ids.player,
+        visibility,
+        tarrow!.editionId,
+        tarrow!.id,
+        JSON.stringify({ board: data.boardId }),
+        data.boardTitle,
+      ],
     );
 
   await query(

@@ -12,6 +12,7 @@ import { fetcher } from "@/lib/fetcher";
 import { explorerHref, explorerStateToView } from "@/lib/permalink";
 import { useAfterPaint } from "@/lib/after-paint";
 import { finishTimingAfterPaint, startTiming } from "@/lib/timing";
+import { ExplorerMakeBoard, type BoardTeam } from "@/components/boards/make-board";
 import { DraftEditor } from "./draft-editor";
 import { FrameTimeline } from "./frame-timeline";
 import { Legend } from "./legend";
@@ -33,11 +34,13 @@ export interface ExplorerViewProps {
   share?: { teams: ShareTeam[] };
   /** Given to a coach or owner of the game's team: on a draft Edition, its edit controls show. */
   editor?: { game: string; character: string };
+  /** The teams where the signed-in user may make Mix-up boards (coach or owner). */
+  boards?: { teams: BoardTeam[] };
 }
 
 const NO_PATHS: PathResult[] = [];
 
-export function ExplorerView({ characterId, root, pinned = false, share, editor }: ExplorerViewProps) {
+export function ExplorerView({ characterId, root, pinned = false, share, editor, boards }: ExplorerViewProps) {
   const edition = useExplorerStore((s) => s.edition);
   const { data, error, isLoading, mutate } = useSWR<GraphResponse, AppError>(graphUrl(characterId, edition), fetcher, {
     keepPreviousData: true,
@@ -203,6 +206,9 @@ export function ExplorerView({ characterId, root, pinned = false, share, editor 
                 onPickAlternative={pickAlternative}
               />
               <PunishPanel path={selected} data={data} fastest={options.fastest} />
+              {boards && boards.teams.length > 0 && !pinned && (
+                <ExplorerMakeBoard teams={boards.teams} data={data} path={selected} root={root} rules={rules} />
+              )}
             </>
           ) : (
             <div

@@ -27,7 +27,7 @@ const button =
 const primary =
   "rounded bg-accent px-3 py-1 font-medium text-ink-950 hover:bg-accent-strong focus-visible:outline-2 focus-visible:outline-offset-2 focus-visible:outline-accent disabled:opacity-50";
 
-async function postPermalink(body: unknown): Promise<string> {
+export async function postPermalink(body: unknown): Promise<string> {
   const made = await sendJson<{ permalink?: { path?: unknown } }>("POST", "/api/permalinks", body);
   const path = made?.permalink?.path;
   if (typeof path !== "string")
@@ -37,18 +37,51 @@ async function postPermalink(body: unknown): Promise<string> {
 
 /**
  * Share: makes a permalink of what the Explorer shows now, pinned to the
- * Edition on screen. A native modal <dialog>: the page behind it is inert
- * (focus stays inside) and Escape closes it.
+ * Edition on screen.
  */
 export function ShareButton({ teams, characterId, root }: { teams: ShareTeam[]; characterId: number; root: string }) {
-  const dialog = useRef<HTMLDialogElement>(null);
-  const linkField = useRef<HTMLInputElement>(null);
-  const ids = useId();
   const edition = useExplorerStore((s) => s.edition);
   const selected = useExplorerStore((s) => s.selected);
   const options = useExplorerStore((s) => s.options);
   const opponent = useExplorerStore((s) => s.opponent);
-  const [teamId, setTeamId] = useState<number | null>(teams[0]?.id ?? null);
+  return (
+    <ShareDialog
+      heading="Share this view"
+      pinnedText="The link shows this view pinned to this Edition, so its numbers stay the same after later changes."
+      teams={teams}
+      make={(teamId, visibility) =>
+        postPermalink({
+          teamId,
+          characterId,
+          edition,
+          view: explorerStateToView({ selected, options, opponent }, root),
+          visibility,
+        })
+      }
+    />
+  );
+}
+
+/**
+ * The Share button and its dialog, for any view: `make` asks the server for the link.
+ * A native modal <dialog>: the page behind it is inert (focus stays inside) and Escape
+ * closes it. Without `teams` the team is already known (a board belongs to one).
+ */
+export function ShareDialog({
+  heading,
+  pinnedText,
+  teams,
+  make,
+}: {
+  heading: string;
+  pinnedText: string;
+  teams: ShareTeam[] | null;
+  make: (teamId: number | null, visibility: PermalinkVisibility) => Promise<string>;
+}) {
+  const dialog = useRef<HTMLDialogElement>(null);
+  const linkField = useRef<HTMLInputElement>(null);
+  const ids = useId();
+  const [teamId, setTeamId] = useState<number | null>(teams?.[0]?.id ?? null);
   const [visibility, setVisibility] = useState<PermalinkVisibility>("team");
   const [status, setStatus] = useState<Status>({ kind: "idle" });
 
@@ -59,11 +92,10 @@ export function ShareButton({ teams, characterId, root }: { teams: ShareTeam[]; 
   const close = () => dialog.current?.close();
 
   const create = async () => {
-    if (teamId === null) return;
+    if (teams && teamId === null) return;
     setStatus({ kind: "sending" });
     try {
-      const view = explorerStateToView({ selected, options, opponent }, root);
-      const url = await postPermalink({ teamId, characterId, edition, view, visibility });
+      const url = await make(teamId, visibility);
       setStatus({ kind: "done", url, copied: "no" });
     } catch (error) {
       setStatus({
@@ -95,17 +127,15 @@ export function ShareButton({ teams, characterId, root }: { teams: ShareTeam[]; 
         className="m-auto max-h-[calc(100dvh-2rem)] w-[min(32rem,calc(100vw-2rem))] overflow-y-auto rounded-lg border border-ink-700 bg-ink-850 p-5 text-sm text-ink-100 backdrop:bg-ink-950/70"
       >
         <h2 id={`${ids}-title`} className="mb-3 text-base font-semibold">
-          Share this view
+          {heading}
         </h2>
-        {teams.length === 0 ? (
+        {teams?.length === 0 ? (
           <p className="text-ink-300">
             Links are shared through a team. Create a team or accept an invitation first, then share from here.
           </p>
         ) : status.kind === "done" ? (
           <div className="space-y-3">
-            <p className="text-ink-300">
-              The link shows this view pinned to this Edition, so its numbers stay the same after later changes.
-            </p>
+            <p className="text-ink-300">{pinnedText}</p>
             <label className="block space-y-1">
               <span className="text-ink-400">Link</span>
               <input
@@ -133,20 +163,22 @@ export function ShareButton({ teams, characterId, root }: { teams: ShareTeam[]; 
         ) : (
           // Not a <form>: the button sits in the Explorer's options form, and forms do not nest.
           <div className="space-y-4">
-            <label className="block space-y-1">
-              <span className="text-ink-400">Team</span>
-              <select
-                value={teamId ?? ""}
-                onChange={(e) => setTeamId(Number(e.target.value))}
-                className="w-full rounded border border-ink-700 bg-ink-900 px-2 py-1 text-ink-100"
-              >
-                {teams.map((t) => (
-                  <option key={t.id} value={t.id}>
-                    {t.name}
-                  </option>
-                ))}
-              </select>
-            </label>
+            {teams && (
+              <label className="block space-y-1">
+                <span className="text-ink-400">Team</span>
+                <select
+                  value={teamId ?? ""}
+                  onChange={(e) => setTeamId(Number(e.target.value))}
+                  className="w-full rounded border border-ink-700 bg-ink-900 px-2 py-1 text-ink-100"
+                >
+                  {teams.map((t) => (
+                    <option key={t.id} value={t.id}>
+                      {t.name}
+                    </option>
+                  ))}
+                </select>
+              </label>
+            )}
             <fieldset className="space-y-2">
               <legend className="mb-1 text-ink-400">Who can open it</legend>
               {PERMALINK_VISIBILITIES.map((v) => (

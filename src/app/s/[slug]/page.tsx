@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { SharedBoard } from "@/components/boards/shared-board";
 import { SharedExplorer } from "@/components/explorer/shared-explorer";
 import { auth } from "@/server/auth";
 import { loadSharedView } from "@/server/db/queries/permalinks";
@@ -23,12 +24,11 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return { title: shared.view.title, robots: { index: false } };
 }
 
-/** A shared Explorer view, read-only and pinned to its Edition. */
+/** A shared Explorer view or Mix-up board, read-only and pinned to its Edition. */
 export default async function SharedPage({ params }: Props) {
   const { slug } = await params;
   const shared = await load(slug);
   if (shared.status === "unavailable") notFound();
-  // A board's link: its read-only page is still to be written; until then it is not found.
-  if (shared.view.kind === "board") notFound();
+  if (shared.view.kind === "board") return <SharedBoard view={shared.view} />;
   return <SharedExplorer view={shared.view} />;
 }

@@ -37,11 +37,10 @@ export default async function ExplorePage({ params, searchParams }: Props) {
   // Signed in: a Share button, offering the teams where the user may make permalinks (player or higher).
   const user = await auth();
   const role = user && game.teamId !== null ? await getRole({ teamId: game.teamId, userId: user.id }) : null;
-  const shareTeams = user
-    ? (await listMyTeams({ userId: user.id }))
-        .filter((t) => atLeast(t.role, "player"))
-        .map((t) => ({ id: t.id, name: t.name }))
-    : null;
+  const myTeams = user ? await listMyTeams({ userId: user.id }) : null;
+  const shareTeams = myTeams?.filter((t) => atLeast(t.role, "player")).map((t) => ({ id: t.id, name: t.name }));
+  // Mix-up boards are made by coaches and owners, in their teams.
+  const boardTeams = myTeams?.filter((t) => atLeast(t.role, "coach")).map((t) => ({ slug: t.slug, name: t.name }));
 
   return (
     <div className="space-y-4">
@@ -76,6 +75,7 @@ export default async function ExplorePage({ params, searchParams }: Props) {
             root={root}
             share={shareTeams ? { teams: shareTeams } : undefined}
             editor={atLeast(role, "coach") ? { game: game.slug, character: character.slug } : undefined}
+            boards={boardTeams ? { teams: boardTeams } : undefined}
           />
         </ExplorerStoreProvider>
       </SWRConfig>
