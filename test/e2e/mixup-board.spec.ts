@@ -17,6 +17,15 @@ test.beforeEach(async () => {
 
 const tag = () => randomUUID().slice(0, 6);
 
+async function expectNoSeriousAxe(page: Page, where: string) {
+  const { default: AxeBuilder } = await import("@axe-core/playwright");
+  const results = await new AxeBuilder({ page }).analyze();
+  const bad = results.violations.filter((v) => v.impact === "serious" || v.impact === "critical");
+  expect(bad.map((v) => `${where} ${v.id}: ${v.nodes.length} node(s), e.g. ${v.nodes[0]?.target.join(" ")}`)).toEqual(
+    [],
+  );
+}
+
 /** A cell of the open situation by its attacker option and defender answer. */
 const cell = (page: Page, row: string, col: string) =>
   page.getByTestId("matrix").locator(`button[data-row="${row}"][data-col="${col}"]`);
@@ -77,6 +86,8 @@ test("a coach makes a board at a guess point, solves it, teaches it and shares i
   await page.getByRole("button", { name: "Save" }).click();
   await expect(page.getByTestId("save-state")).toHaveText("Saved · version 2");
 
+  // No serious accessibility problem on the editor.
+  await expectNoSeriousAxe(page, "board editor");
   // Reloaded: everything is where it was.
   await page.reload();
   await page.getByRole("navigation", { name: "Situations" }).getByRole("button", { name: "In the back-step" }).click();
@@ -102,10 +113,14 @@ test("a coach makes a board at a guess point, solves it, teaches it and shares i
     .click();
   await expect(player.getByTestId("note")).toHaveText("Mix the two: the back-step keeps your turn.");
   await expect(player.getByTestId("cell-payoff")).toHaveCount(0);
+  await expectNoSeriousAxe(player, "shared board");
 
   // The team page lists the board for the player too.
   await player.goto(boardUrl.replace(/\/boards\/\d+$/, ""));
   await expect(player.getByTestId("board-list")).toContainText("Tarrow's 1,2 split");
+  await page.goto(boardUrl.replace(/\/boards\/\d+$/, ""));
+  await expect(page.getByTestId("team-log")).toContainText("saved the Mix-up board “Tarrow's 1,2 split” (version 2)");
+  await page.goto(boardUrl);
 
   // A second coach opens the board, the first saves, the second saves an old copy.
   const second = await (await browser.newContext()).newPage();

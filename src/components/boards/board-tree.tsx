@@ -1,7 +1,7 @@
 "use client";
 
 import "@xyflow/react/dist/style.css";
-import { Handle, Position, ReactFlow, type Edge, type Node, type NodeProps } from "@xyflow/react";
+import { Background, Controls, Handle, Position, ReactFlow, type Edge, type Node, type NodeProps } from "@xyflow/react";
 import { memo, useMemo } from "react";
 import type { BoardDocument } from "@/lib/board";
 import { formatPayoff, type BoardSolution } from "@/lib/engine";
@@ -9,6 +9,7 @@ import { layoutGraph } from "@/lib/layout-graph";
 
 const SIZE = { width: 184, height: 56 };
 const FIT_VIEW_OPTIONS = { padding: 0.2, maxZoom: 1 };
+const PRO_OPTIONS = { hideAttribution: false };
 
 type SituationNodeData = { name: string; value: number | null; root: boolean; selected: boolean };
 type SituationFlowNode = Node<SituationNodeData, "situation">;
@@ -112,7 +113,10 @@ export function BoardTree({
       fitView
       fitViewOptions={FIT_VIEW_OPTIONS}
       colorMode="dark"
-      proOptions={{ hideAttribution: false }}
-    />
+      proOptions={PRO_OPTIONS}
+    >
+      <Background color="#283040" gap={24} />
+      <Controls showInteractive={false} position="bottom-left" />
+    </ReactFlow>
   );
 }

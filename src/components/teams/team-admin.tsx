@@ -60,6 +60,12 @@ function describe(e: AuditEntryDto): string {
       return `changed ${d.fields ?? "a link"} of the link ${d.edge ?? ""}`;
     case "edge.deleted":
       return `deleted the link ${d.edge ?? ""}`;
+    case "board.created":
+      return `made the Mix-up board “${d.title ?? ""}”`;
+    case "board.saved":
+      return `saved the Mix-up board “${d.title ?? ""}” (version ${d.version ?? ""})`;
+    case "board.deleted":
+      return `deleted the Mix-up board “${d.title ?? ""}”`;
     case "edition.published":
       return `published the Edition “${d.name ?? ""}”`;
     default:
