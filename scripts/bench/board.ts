@@ -24,17 +24,15 @@ export interface BoardBench {
 }
 
 /** A seeded tree: situation k's cells lead (about one in four) to a later situation that has no parent yet. */
-export function generateBoard(seed = SEED): Board {
+export function generateBoard(seed = SEED, count = SITUATIONS): Board {
   const rand = rng(seed);
   const situations: BoardSituation[] = [];
   let nextChild = 1;
-  for (let k = 0; k < SITUATIONS; k++) {
+  for (let k = 0; k < count; k++) {
     const payoffs = Array.from({ length: SIZE }, () =>
       Array.from({ length: SIZE }, () => Math.round((rand() * 120 - 60) * 10) / 10),
     );
-    const next = payoffs.map((row) =>
-      row.map(() => (nextChild < SITUATIONS && rand() < 0.25 ? `s${nextChild++}` : null)),
-    );
+    const next = payoffs.map((row) => row.map(() => (nextChild < count && rand() < 0.25 ? `s${nextChild++}` : null)));
     situations.push({
       id: `s${k}`,
       name: `Situation ${k}`,

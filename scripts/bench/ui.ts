@@ -5,16 +5,22 @@
 import { execFileSync, spawn, type ChildProcess } from "node:child_process";
 import { writeFileSync } from "node:fs";
 import { chromium, type Page } from "@playwright/test";
-import { openDb } from "../../src/server/db";
+import { and, eq } from "drizzle-orm";
+import { encode } from "next-auth/jwt";
+import type { BoardDocument } from "../../src/lib/board";
+import { DEFAULT_VALUE_TABLE } from "../../src/lib/engine";
+import { openDb, type Database } from "../../src/server/db";
+import { boards, characters, editions, games, memberships, teams, users } from "../../src/server/db/schema";
 import { migrateDatabase } from "../../src/server/db/migrate";
 import { seedDemo } from "../../src/server/db/seed";
 import { flatten } from "../../src/server/db/seed/dsl";
 import { DATABASE_URL, DB } from "./bench-db";
+import { generateBoard } from "./board";
 import { benchCharacter } from "./ui-graph";
 
 const PORT = 3400;
 const BASE = `http://127.0.0.1:${PORT}`;
-// The app's settings; the bench signs nobody in and sends no mail, so nothing listens on the SMTP port.
+// The app's settings; the bench sends no mail, so nothing listens on the SMTP port.
 const APP = {
   SMTP_URL: "smtp://127.0.0.1:1127",
   MAIL_FROM: "Framefork bench <no-reply@example.com>",
@@ -175,6 +181,50 @@ async function traceSelects(page: Page, ids: string[]) {
   }
 }
 
+/**
+ * A coach with a 20-situation board of 6x6 games on the demo's Tarrow (generated like
+ * `npm run bench`'s 100-situation tree), and the session cookie that signs them in.
+ */
+async function boardFixture(db: Database) {
+  const generated = generateBoard(14, 20);
+  const document: BoardDocument = {
+    root: generated.root,
+    values: DEFAULT_VALUE_TABLE,
+    situations: generated.situations.map((s) => ({
+      id: s.id,
+      name: s.name,
+      note: "",
+      rows: s.rows,
+      cols: s.cols,
+      cells: s.payoffs.map((row, i) =>
+        row.map((x, j) => ({ basis: null, override: x, next: s.next?.[i]?.[j] ?? null })),
+      ),
+    })),
+  };
+  const [pinned] = await db
+    .select({ characterId: characters.id, editionId: editions.id })
+    .from(characters)
+    .innerJoin(games, eq(games.id, characters.gameId))
+    .innerJoin(editions, eq(editions.gameId, games.id))
+    .where(and(eq(games.slug, "vesper-circuit"), eq(characters.slug, "tarrow"), eq(editions.slug, "1-1")));
+  const user = { id: "bench-coach", name: "Bench Coach", email: "bench-coach@example.test" };
+  await db.insert(users).values({ ...user, emailVerified: new Date() });
+  const [team] = await db.insert(teams).values({ slug: "bench-team", name: "Bench Team" }).$returningId();
+  await db.insert(memberships).values({ teamId: team!.id, userId: user.id, role: "coach" });
+  const [board] = await db
+    .insert(boards)
+    .values({ teamId: team!.id, ...pinned!, title: "Bench board", document, createdBy: user.id, updatedBy: user.id })
+    .$returningId();
+  const token = await encode({
+    token: { sub: user.id, email: user.email, name: user.name, sv: 0 },
+    secret: APP.NEXTAUTH_SECRET,
+  });
+  return {
+    url: `${BASE}/teams/bench-team/boards/${board!.id}`,
+    cookie: { name: "next-auth.session-token", value: token },
+  };
+}
+
 async function main() {
   const character = benchCharacter();
   const nodes = flatten(character.data("1-1")).moves.length + 4;
@@ -188,6 +238,7 @@ async function main() {
     await migrateDatabase(DATABASE_URL);
     const { db, close } = openDb(DATABASE_URL);
     await seedDemo(db, { extraCharacters: [character] });
+    const board = await boardFixture(db);
     await close();
 
     if (!process.argv.includes("--no-build")) {
@@ -261,6 +312,17 @@ async function main() {
     for (let i = 0; i < ROUNDS; i++) {
       recomputes.push(await measured(page, "framefork:recompute", () => fastest.fill(String(11 - (i % 2)))));
     }
+
+    // A Mix-up board of 20 situations: one cell typed, the whole board solved again and painted.
+    await page.context().addCookies([{ ...board.cookie, url: BASE }]);
+    await page.goto(board.url, { waitUntil: "networkidle" });
+    await page.locator('[data-cell="0:0"]').click();
+    const resolves: number[] = [];
+    for (let i = 0; i < ROUNDS; i++) {
+      resolves.push(
+        await measured(page, "framefork:board-solve", () => page.getByTestId("cell-payoff").fill(String(20 + (i % 2)))),
+      );
+    }
     await browser.close();
 
     const result = {
@@ -268,6 +330,7 @@ async function main() {
       select_ms_300: round(median(selects)),
       recompute_ms_300: round(median(recomputes)),
       first_load_js_kb_gzip: round(jsBytes / 1024),
+      board_resolve_ms_20: round(median(resolves)),
     };
     console.log(`nodes drawn: ${shown}; layouts run by the page so far: ${layoutsDuringSelects}`);
     console.log(`layout (dagre)     median ${result.layout_ms_300} ms over ${layouts.length} loads   target < 100 ms`);
@@ -275,6 +338,9 @@ async function main() {
     console.log(`  each click, in order: ${selects.map((ms) => ms.toFixed(1)).join(", ")}`);
     console.log(`option → repainted median ${result.recompute_ms_300} ms over ${ROUNDS} changes  target < 50 ms`);
     console.log(`first-load JS      ${result.first_load_js_kb_gzip} KB compressed            target < 300 KB`);
+    console.log(
+      `board cell → solved and painted, 20 situations: median ${result.board_resolve_ms_20} ms over ${ROUNDS} edits   target < 16 ms`,
+    );
     console.log(JSON.stringify(result));
   } finally {
     server?.kill();

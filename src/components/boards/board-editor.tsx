@@ -329,7 +329,7 @@ function BoardWorkspace({ board, team, canEdit }: BoardProps) {
             ))}
           </nav>
           <div className="h-64 rounded-lg border border-ink-800 bg-ink-950 lg:h-[28rem]" data-testid="board-tree">
-            <BoardTree document={document} solution={solution} selected={selected} onSelect={select} />
+            <BoardTree document={document} solution={solution} onSelect={select} />
           </div>
         </div>
         <div className="space-y-4">

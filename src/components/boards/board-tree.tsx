@@ -2,7 +2,8 @@
 
 import "@xyflow/react/dist/style.css";
 import { Background, Controls, Handle, Position, ReactFlow, type Edge, type Node, type NodeProps } from "@xyflow/react";
-import { memo, useMemo } from "react";
+import { createContext, memo, useCallback, useContext, useMemo } from "react";
+import { useBoardStore } from "@/components/providers/board-store-provider";
 import type { BoardDocument } from "@/lib/board";
 import { formatPayoff, type BoardSolution } from "@/lib/engine";
 import { layoutGraph } from "@/lib/layout-graph";
@@ -11,14 +12,23 @@ const SIZE = { width: 184, height: 56 };
 const FIT_VIEW_OPTIONS = { padding: 0.2, maxZoom: 1 };
 const PRO_OPTIONS = { hideAttribution: false };
 
-type SituationNodeData = { name: string; value: number | null; root: boolean; selected: boolean };
+type SituationNodeData = { name: string; root: boolean };
 type SituationFlowNode = Node<SituationNodeData, "situation">;
 
-const SituationNode = memo(function SituationNode({ data }: NodeProps<SituationFlowNode>) {
+/**
+ * The solution reaches the nodes through context, and the selection through the store: a typed
+ * payoff re-renders the twenty small nodes, while React Flow's node objects (and so its own
+ * bookkeeping) change only with the tree's shape.
+ */
+const SolutionContext = createContext<BoardSolution | null>(null);
+
+const SituationNode = memo(function SituationNode({ id, data }: NodeProps<SituationFlowNode>) {
+  const value = useContext(SolutionContext)?.situations[id]?.value ?? null;
+  const selected = useBoardStore((s) => s.selected === id);
   return (
     <div
       className={`flex h-14 w-46 flex-col justify-center rounded-md border px-2 text-left ${
-        data.selected ? "border-accent bg-ink-800" : "border-ink-700 bg-ink-900"
+        selected ? "border-accent bg-ink-800" : "border-ink-700 bg-ink-900"
       }`}
     >
       <Handle type="target" position={Position.Top} className="!opacity-0" />
@@ -26,13 +36,38 @@ const SituationNode = memo(function SituationNode({ data }: NodeProps<SituationF
         {data.root ? "▸ " : ""}
         {data.name}
       </span>
-      <span className="font-mono text-sm text-accent">{data.value === null ? "–" : formatPayoff(data.value)}</span>
+      <span className="font-mono text-sm text-accent">{value === null ? "–" : formatPayoff(value)}</span>
       <Handle type="source" position={Position.Bottom} className="!opacity-0" />
     </div>
   );
 });
 
 const nodeTypes = { situation: SituationNode };
+
+/** A link from each situation to each situation one of its cells leads to, named by the first such cell. */
+function treeLinks(situations: BoardDocument["situations"]): Edge[] {
+  const links: Edge[] = [];
+  const ids = new Set(situations.map((s) => s.id));
+  for (const s of situations) {
+    const seen = new Set<string>();
+    s.cells.forEach((r, i) =>
+      r.forEach((c, j) => {
+        if (c.next === null || seen.has(c.next) || !ids.has(c.next)) return;
+        seen.add(c.next);
+        links.push({
+          id: `${s.id}>${c.next}`,
+          source: s.id,
+          target: c.next,
+          label: `${s.rows[i]} × ${s.cols[j]}`,
+          labelStyle: { fill: "#a5b0c5", fontSize: 11 },
+          labelBgStyle: { fill: "#11141b" },
+          style: { stroke: "#3a4458" },
+        });
+      }),
+    );
+  }
+  return links;
+}
 
 /**
  * The board as a tree: situations as nodes with their value, a link for each cell that
@@ -42,81 +77,63 @@ const nodeTypes = { situation: SituationNode };
 export function BoardTree({
   document,
   solution,
-  selected,
   onSelect,
 }: {
   document: BoardDocument;
   solution: BoardSolution | null;
-  selected: string;
   onSelect: (id: string) => void;
 }) {
-  const shape = useMemo(() => {
-    const links: Edge[] = [];
-    for (const s of document.situations) {
-      const seen = new Set<string>();
-      s.cells.forEach((r, i) =>
-        r.forEach((c, j) => {
-          if (c.next === null || seen.has(c.next)) return;
-          if (!document.situations.some((x) => x.id === c.next)) return;
-          seen.add(c.next);
-          links.push({
-            id: `${s.id}>${c.next}`,
-            source: s.id,
-            target: c.next,
-            label: `${s.rows[i]} × ${s.cols[j]}`,
-            labelStyle: { fill: "#a5b0c5", fontSize: 11 },
-            labelBgStyle: { fill: "#11141b" },
-            style: { stroke: "#3a4458" },
-          });
-        }),
+  // Laid out again only when the tree's shape changes (a situation or a link added or removed,
+  // a name changed), not on every typed payoff: dagre is the costly part of a re-render.
+  const links = useMemo(() => treeLinks(document.situations), [document.situations]);
+  const shapeKey = JSON.stringify([
+    document.root,
+    document.situations.map((s) => [s.id, s.name]),
+    links.map((l) => [l.id, l.label]),
+  ]);
+  const shape = useMemo(
+    () => {
+      const placed = layoutGraph(
+        document.situations.map((s) => ({ id: s.id, ...SIZE })),
+        links.map((l) => ({ id: l.id, source: l.source, target: l.target })),
+        "TB",
+        { rankSep: 64, nodeSep: 32 },
       );
-    }
-    const placed = layoutGraph(
-      document.situations.map((s) => ({ id: s.id, ...SIZE })),
-      links.map((l) => ({ id: l.id, source: l.source, target: l.target })),
-      "TB",
-      { rankSep: 64, nodeSep: 32 },
-    );
-    return { links, placed };
-  }, [document.situations]);
-
-  const nodes: SituationFlowNode[] = useMemo(
-    () =>
-      shape.placed.map((p) => {
-        const s = document.situations.find((x) => x.id === p.id)!;
-        return {
-          id: p.id,
-          type: "situation",
-          position: { x: p.x, y: p.y },
-          data: {
-            name: s.name,
-            value: solution?.situations[s.id]?.value ?? null,
-            root: s.id === document.root,
-            selected: s.id === selected,
-          },
-          ariaLabel: `${s.name}: value ${solution ? formatPayoff(solution.situations[s.id]?.value ?? 0) : "not solved"}`,
-          width: SIZE.width,
-          height: SIZE.height,
-        };
-      }),
-    [shape, document.situations, document.root, solution, selected],
+      const names = new Map(document.situations.map((s) => [s.id, s.name]));
+      const nodes: SituationFlowNode[] = placed.map((p) => ({
+        id: p.id,
+        type: "situation",
+        position: { x: p.x, y: p.y },
+        data: { name: names.get(p.id)!, root: p.id === document.root },
+        ariaLabel: names.get(p.id)!,
+        width: SIZE.width,
+        height: SIZE.height,
+      }));
+      return { links, nodes };
+    },
+    // The key stands for every input the layout and the nodes read; payoffs move no node.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+    [shapeKey],
   );
+  const onNodeClick = useCallback((_: unknown, n: { id: string }) => onSelect(n.id), [onSelect]);
 
   return (
-    <ReactFlow
-      nodes={nodes}
-      edges={shape.links}
-      nodeTypes={nodeTypes}
-      onNodeClick={(_, n) => onSelect(n.id)}
-      nodesDraggable={false}
-      nodesConnectable={false}
-      fitView
-      fitViewOptions={FIT_VIEW_OPTIONS}
-      colorMode="dark"
-      proOptions={PRO_OPTIONS}
-    >
-      <Background color="#283040" gap={24} />
-      <Controls showInteractive={false} position="bottom-left" />
-    </ReactFlow>
+    <SolutionContext.Provider value={solution}>
+      <ReactFlow
+        nodes={shape.nodes}
+        edges={shape.links}
+        nodeTypes={nodeTypes}
+        onNodeClick={onNodeClick}
+        nodesDraggable={false}
+        nodesConnectable={false}
+        fitView
+        fitViewOptions={FIT_VIEW_OPTIONS}
+        colorMode="dark"
+        proOptions={PRO_OPTIONS}
+      >
+        <Background color="#283040" gap={24} />
+        <Controls showInteractive={false} position="bottom-left" />
+      </ReactFlow>
+    </SolutionContext.Provider>
   );
 }

@@ -12,8 +12,8 @@ import { fetcher } from "@/lib/fetcher";
 import { explorerHref, explorerStateToView } from "@/lib/permalink";
 import { useAfterPaint } from "@/lib/after-paint";
 import { finishTimingAfterPaint, startTiming } from "@/lib/timing";
-import { ExplorerMakeBoard, type BoardTeam } from "@/components/boards/make-board";
-import { DraftEditor } from "./draft-editor";
+import dynamic from "next/dynamic";
+import type { BoardTeam } from "@/components/boards/make-board";
 import { FrameTimeline } from "./frame-timeline";
 import { Legend } from "./legend";
 import { OptionsBar } from "./options-bar";
@@ -39,6 +39,10 @@ export interface ExplorerViewProps {
 }
 
 const NO_PATHS: PathResult[] = [];
+
+// Only coaches see these: their code (forms, the board's fill) loads for them alone, not with every Explorer.
+const ExplorerMakeBoard = dynamic(() => import("@/components/boards/make-board").then((m) => m.ExplorerMakeBoard));
+const DraftEditor = dynamic(() => import("./draft-editor").then((m) => m.DraftEditor));
 
 export function ExplorerView({ characterId, root, pinned = false, share, editor, boards }: ExplorerViewProps) {
   const edition = useExplorerStore((s) => s.edition);
