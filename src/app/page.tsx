@@ -17,12 +17,10 @@ const FEATURES: { title: string; body: string; coming?: true }[] = [
   {
     title: "Mix-up boards for coaches",
     body: "Build the situations after a string, let the solver find the mix that cannot be exploited, and hand it to your players.",
-    coming: true,
   },
   {
     title: "Your own game's data",
     body: "Enter or import a character's frame data, publish each patch as an Edition, and read what it changed for every string.",
-    coming: true,
   },
   {
     title: "Permalinks pinned to an Edition",

@@ -22,6 +22,14 @@ const TERMS: [string, string][] = [
     "Ending a move early into a stance, which changes its recovery and so its frame advantage. Some cancels guard listed hit levels automatically on the way (auto-guard).",
   ],
   ["Edition", "One version of a game's frame data, usually a patch. Views default to the newest Edition."],
+  [
+    "Mix-up board",
+    "A coach's tree of guesses. Each situation pits the attacker's options (rows) against the defender's answers (columns); each cell is the attacker's payoff in damage points: damage dealt minus damage taken, plus what the position after it is worth by the board's value table, plus the value of the situation it leads to.",
+  ],
+  [
+    "Value and mix",
+    "The mix is how often each side should pick each option so that the other side cannot do better by changing alone; the value is what the attacker then earns per exchange on average. An option left out of the mix shows how much it gives up against the other side's mix.",
+  ],
 ];
 
 export default function HelpPage() {
