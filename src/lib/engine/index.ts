@@ -54,6 +54,7 @@ export {
   type BlockRules,
 } from "./frames";
 export { solveMatrixGame, type MatrixGameSolution } from "./solver";
+export { stanceSheet, type StanceSheet, type StanceWayIn, type StanceMove, type StanceGridCell } from "./stance-sheet";
 export { solveBoard, bestReplyTo, bestAnswerTo, BoardInputError, MAX_BOARD_OPTIONS } from "./board";
 export { DEFAULT_VALUE_TABLE, cellPayoff, outcomeValue, explainCell, formatPayoff } from "./board-values";
 export {
