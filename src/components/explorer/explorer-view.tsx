@@ -168,7 +168,7 @@ export function ExplorerView({ characterId, root, pinned = false, share, editor,
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="min-w-0 space-y-3">
           <div
-            className="h-[55vh] min-h-80 overflow-hidden rounded-lg border border-ink-800 bg-ink-950 [contain:strict] lg:h-[68vh]"
+            className="overflow-hidden rounded-lg border border-ink-800 bg-ink-950 [contain:content]"
             data-testid="graph"
           >
             <GraphCanvas
@@ -186,8 +186,12 @@ export function ExplorerView({ characterId, root, pinned = false, share, editor,
           {laterPath ? <FrameTimeline path={laterPath} graph={sub} rules={rules} /> : null}
         </div>
         {/* Beside the graph on a wide screen, as tall as it and scrolling on its own: a new
-            selection then lays out this column alone, not the page. Below the graph on a phone. */}
-        <div className="space-y-4 lg:h-[68vh] lg:overflow-y-auto lg:p-1 lg:[contain:strict]" data-testid="path-column">
+            selection then lays out this column alone, not the page. Above the graph on a phone,
+            where the Path card leads and the graph is a view to pan. */}
+        <div
+          className="order-first space-y-4 lg:order-none lg:h-[68vh] lg:overflow-y-auto lg:p-1 lg:[contain:strict]"
+          data-testid="path-column"
+        >
           {editor && !pinned && data.edition.status === "draft" && (
             <DraftEditor
               draft={{ ...editor, edition: data.edition.slug }}

@@ -138,7 +138,7 @@ function EdgeLabel({
       data-edge-label={onPath ? undefined : id}
       data-path-label={onPath ? id : undefined}
       style={{ transform: `translate(-50%, -50%) translate(${x}px, ${y}px)` }}
-      className={`pointer-events-none absolute rounded bg-ink-950 px-1 py-px font-mono text-[11px] ${onPath ? "z-[2] text-accent" : "z-[1] text-ink-200"}`}
+      className={`pointer-events-none absolute rounded bg-ink-950 px-1 py-px font-mono text-xs ${onPath ? "z-[2] text-accent" : "z-[1] text-ink-200"}`}
     >
       {text}
     </div>

@@ -1,11 +1,12 @@
 "use client";
 
 import "@xyflow/react/dist/style.css";
-import { Background, Controls, MiniMap, ReactFlow, ViewportPortal } from "@xyflow/react";
+import { Background, Controls, MiniMap, ReactFlow, ViewportPortal, type ReactFlowInstance } from "@xyflow/react";
 import { useCallback, useLayoutEffect, useMemo, useRef, useState, type KeyboardEvent } from "react";
 import { ExportButton } from "./export-button";
 import type { BlockRules } from "@/components/ui/block-class";
 import { framesSaved, framesSavedLabel, type MoveGraph, type PathResult } from "@/lib/engine";
+import { boundsOf, canvasHeight, initialViewport } from "@/lib/graph-view";
 import { layoutGraph } from "@/lib/layout-graph";
 import { ArrowDefs, PathOverlay, edgeTypes, type MoveFlowEdge, type NodeBox } from "./edges";
 import { CanvasStoreProvider } from "@/components/providers/canvas-store-provider";
@@ -20,7 +21,6 @@ export function cancelSaves(graph: MoveGraph, edge: MoveGraph["edges"][number]):
 }
 
 // Props React Flow compares by identity: one object for the life of the page.
-const FIT_VIEW_OPTIONS = { padding: 0.15 };
 const PRO_OPTIONS = { hideAttribution: false };
 
 export function GraphCanvas({
@@ -61,6 +61,21 @@ export function GraphCanvas({
     selectRef.current = onSelectNode;
   }, [onSelectNode]);
   const onNodeClick = useCallback((_: unknown, node: { id: string }) => selectRef.current(node.id), []);
+
+  // The first view: readable text, the whole width when it fits, else the part around the
+  // selected path's end (or the root), and a canvas as tall as the graph up to the screen.
+  const bounds = useMemo(() => boundsOf(layout.values()), [layout]);
+  const canvas = useRef<HTMLDivElement>(null);
+  const firstFocus = useRef(selected?.nodes[selected.nodes.length - 1] ?? graph.nodes[0]?.id ?? null);
+  const onInit = useCallback(
+    (flow: ReactFlowInstance<MoveFlowNode | StanceFlowNode, MoveFlowEdge>) => {
+      const box = canvas.current;
+      if (!box) return;
+      const focus = firstFocus.current === null ? null : (layout.get(firstFocus.current) ?? null);
+      void flow.setViewport(initialViewport(bounds, { width: box.clientWidth, height: box.clientHeight }, focus));
+    },
+    [layout, bounds],
+  );
 
   const [focused, setFocused] = useState<string | null>(null);
   const current = focused ?? selected?.nodes[selected.nodes.length - 1] ?? graph.nodes[0]?.id ?? null;
@@ -160,8 +175,7 @@ export function GraphCanvas({
         nodeTypes={nodeTypes}
         edgeTypes={edgeTypes}
         colorMode="dark"
-        fitView
-        fitViewOptions={FIT_VIEW_OPTIONS}
+        onInit={onInit}
         minZoom={0.2}
         nodesDraggable={false}
         nodesConnectable={false}
@@ -182,14 +196,16 @@ export function GraphCanvas({
         )}
       </ReactFlow>
     ),
-    [nodes, edges, boxes, onNodeClick, exportName, large],
+    [nodes, edges, boxes, onNodeClick, onInit, exportName, large],
   );
 
   const focusedNode = graph.nodes.find((n) => n.id === current);
   return (
     <CanvasStoreProvider marks={marks}>
       <div
-        className="h-full w-full outline-none focus-visible:ring-2 focus-visible:ring-accent"
+        ref={canvas}
+        style={{ height: `min(75vh, ${canvasHeight(bounds)}px)` }}
+        className="w-full outline-none focus-visible:ring-2 focus-visible:ring-accent"
         tabIndex={0}
         role="group"
         aria-label="Move graph. Arrow keys move between moves, Enter selects the path, Escape clears."

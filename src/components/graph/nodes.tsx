@@ -8,7 +8,7 @@ import { LevelBadge } from "@/components/ui/level-badge";
 import { classifyBlock, type MoveNode as EngineMove, type StanceNode as EngineStance } from "@/lib/engine";
 import { useCanvasStore } from "@/components/providers/canvas-store-provider";
 
-export const MOVE_SIZE = { width: 176, height: 64 };
+export const MOVE_SIZE = { width: 200, height: 64 };
 export const STANCE_SIZE = { width: 168, height: 44 };
 
 // Type aliases, not interfaces: React Flow's node data must be indexable.
@@ -35,7 +35,7 @@ function MoveNodeView({ data }: NodeProps<MoveFlowNode>) {
         <span className="mr-1">block</span>
         <Frames value={move.onBlock} />
         {cls !== "state" && (
-          <span data-block-class={cls} className={`ml-2 text-[11px] ${BLOCK_CLASS_STYLE[cls]}`}>
+          <span data-block-class={cls} className={`ml-2 truncate ${BLOCK_CLASS_STYLE[cls]}`}>
             {BLOCK_CLASS_WORD[cls]}
           </span>
         )}
@@ -52,7 +52,7 @@ function StanceNodeView({ data }: NodeProps<StanceFlowNode>) {
       className="flex h-full w-full items-center justify-center rounded-full border-2 border-dashed border-ink-700 bg-ink-850 px-3 text-sm"
     >
       <Handle type="target" position={Position.Left} className="!h-2 !w-2 !border-0 !bg-ink-600" />
-      <span className="text-[10px] tracking-wider text-ink-400 uppercase">stance&nbsp;</span>
+      <span className="text-xs tracking-wider text-ink-400 uppercase">stance&nbsp;</span>
       <span className="truncate text-ink-100">{data.stance.name}</span>
       <Handle type="source" position={Position.Right} className="!h-2 !w-2 !border-0 !bg-ink-600" />
     </div>

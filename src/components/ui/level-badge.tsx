@@ -14,7 +14,7 @@ export function LevelBadge({ level }: { level: Level }) {
   return (
     <span
       data-level={level}
-      className={`inline-block rounded border px-1.5 py-px font-mono text-[11px] leading-4 tracking-wide uppercase ${LEVEL_STYLE[level]}`}
+      className={`inline-block rounded border px-1.5 py-px font-mono text-xs leading-4 tracking-wide uppercase ${LEVEL_STYLE[level]}`}
     >
       {level}
     </span>
