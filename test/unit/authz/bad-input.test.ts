@@ -122,6 +122,20 @@ const ROUTES: BodyRoute[] = [
     text: ["kind", "visibility"],
   },
   {
+    name: "POST /api/permalinks (a stance sheet)",
+    handler: createPermalink as Handler,
+    params: () => ({}),
+    good: (w) => ({
+      kind: "stance",
+      teamId: w.team.id,
+      characterId: w.demoCharacterId,
+      edition: "1-1",
+      view: { stance: "drift" },
+      visibility: "link",
+    }),
+    text: ["kind", "edition", "visibility"],
+  },
+  {
     name: "POST /api/teams/[team]/boards",
     handler: createBoard as Handler,
     params: (w) => ({ team: w.team.slug }),

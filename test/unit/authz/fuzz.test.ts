@@ -187,7 +187,17 @@ const ROUTES: Record<string, FuzzRow | { overHttp: string }> = {
   "GET /api/teams/[team]/permalinks": {},
   "POST /api/permalinks": {
     good: () => ({ teamId: w.team.id, characterId: w.demoCharacterId, edition: "1-1", view: VIEW, visibility: "link" }),
-    alsoGood: [() => ({ kind: "board", teamId: w.team.id, view: { board: w.board.id }, visibility: "link" })],
+    alsoGood: [
+      () => ({ kind: "board", teamId: w.team.id, view: { board: w.board.id }, visibility: "link" }),
+      () => ({
+        kind: "stance",
+        teamId: w.team.id,
+        characterId: w.demoCharacterId,
+        edition: "1-1",
+        view: { stance: "drift" },
+        visibility: "link",
+      }),
+    ],
   },
   "GET /api/teams/[team]/boards": {},
   "POST /api/teams/[team]/boards": { good: () => ({ ...newBoard(w), opponentId: w.teamCharacterId }) },

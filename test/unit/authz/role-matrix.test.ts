@@ -340,6 +340,20 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
       call: (w) => ({ body: { kind: "board", teamId: w.team.id, view: { board: w.board.id }, visibility: "team" } }),
       expect: { anonymous: 401, viewer: 403, player: 201, coach: 201, owner: 201, outsider: 404 },
     },
+    {
+      what: "share a stance sheet of the demo game",
+      call: (w) => ({
+        body: {
+          kind: "stance",
+          teamId: w.team.id,
+          characterId: w.demoCharacterId,
+          edition: "1-1",
+          view: { stance: "drift" },
+          visibility: "link",
+        },
+      }),
+      expect: { anonymous: 401, viewer: 403, player: 201, coach: 201, owner: 201, outsider: 404 },
+    },
   ],
   "GET /api/teams/[team]/boards": [
     { what: "list the team's boards", call: (w) => ({ params: { team: w.team.slug } }), expect: members(200) },
