@@ -27,7 +27,7 @@ function sections(list: MoveList): Section[] {
         title: `From ${s.name} (${s.abbreviation})`,
         note: s.notes,
         moves: [],
-        stanceKey: s.key,
+        stance: s,
       },
     ]),
   );
@@ -200,8 +200,6 @@ function MoveRows({
   rules: BlockRules;
   exploreHref: (moveKey: string) => string;
   moveUrl?: (moveKey: string) => string;
-  /** A stance's sheet (its ways in and what follows them). */
-  stanceHref?: (stanceKey: string) => string;
 }) {
   // A number as the list shows it; for a coach on a draft, a button that fixes it in place.
   const fixable = (field: QuickField, shown: ReactNode) =>

@@ -282,7 +282,7 @@ function Grid({ data, waysIn }: { data: StanceSheetDto; waysIn: StanceWayIn[] })
                   {moves.map((m) => {
                     const cell = cells.get(`${w.cancel}\n${m.enter}`);
                     return (
-                      <td key={m.enter} className={td} data-cell={`${w.cancel}\n${m.enter}`}>
+                      <td key={m.enter} className={td} data-cancel={w.cancel} data-enter={m.enter}>
                         {cell ? <GridCell cell={cell} way={byCancel.get(w.cancel)!} move={m} data={data} /> : null}
                       </td>
                     );
