@@ -157,7 +157,7 @@ test("a player shares a stance sheet; anyone with the link reads the same figure
   // Signed out, in a fresh browser.
   const stranger = await (await browser.newContext()).newPage();
   await stranger.goto(link);
-  await expect(stranger.getByText("Permalink · Stance sheet")).toBeVisible();
+  await expect(stranger.getByText("Permalink · Stance: Drift · Tarrow · edition 1-1")).toBeVisible();
   await expect(stranger.locator("tr[data-way-in]")).toHaveCount(sheet.waysIn.length);
   expect(await readRows(stranger)).toEqual(expectedRows(sheet.waysIn));
   await expectNoSeriousAxe(stranger, "shared stance sheet");

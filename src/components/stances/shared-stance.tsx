@@ -12,7 +12,7 @@ export function SharedStance({ view: shared, safeOnly }: { view: SharedStanceVie
     <div className="space-y-6">
       <header className="space-y-1">
         <p className="text-sm text-ink-400">
-          Permalink · Stance sheet · {data.game.name} · {data.character.name} · pinned to {data.edition.name}
+          Permalink · {shared.title} · {data.game.name} · pinned to {data.edition.name}
         </p>
         <h1 className="text-2xl font-semibold">
           {data.stance.name}{" "}
