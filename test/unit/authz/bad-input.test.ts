@@ -19,7 +19,7 @@ import { setSession } from "./session-mock";
 import { closeDb, getDb } from "@/server/db";
 import { listMembers, listMyTeams } from "@/server/db/queries/teams";
 import { auditLog, boards, characters, editions, games, invites, permalinks, users } from "@/server/db/schema";
-import { boardSave, newBoard, VIEW, world, type World, newLink, newFollowUp } from "./world";
+import { boardSave, newStanceLink, newBoard, VIEW, world, type World, newLink, newFollowUp } from "./world";
 
 vi.mock("@/server/auth", () => import("./session-mock"));
 vi.mock("@/server/mail", async (original) => ({
@@ -125,14 +125,7 @@ const ROUTES: BodyRoute[] = [
     name: "POST /api/permalinks (a stance sheet)",
     handler: createPermalink as Handler,
     params: () => ({}),
-    good: (w) => ({
-      kind: "stance",
-      teamId: w.team.id,
-      characterId: w.demoCharacterId,
-      edition: "1-1",
-      view: { stance: "drift" },
-      visibility: "link",
-    }),
+    good: (w) => newStanceLink(w, "link"),
     text: ["kind", "edition", "visibility"],
   },
   {
