@@ -3,10 +3,11 @@
  * `src/server/db/queries/` return, route handlers answer with, and client
  * components render. Plain types only, so both sides may import them.
  */
-import type { FieldChange, Level, Outcome } from "@/lib/engine";
+import type { FieldChange, Level, Outcome, StanceSheet } from "@/lib/engine";
 import type { GraphResponse } from "@/lib/explorer";
 import type { BoardDocument, BoardOrigin } from "@/lib/board";
-import type { BoardLinkView, PermalinkKind, PermalinkView, PermalinkVisibility } from "@/lib/permalink";
+import type { BoardLinkView, PermalinkKind, PermalinkView, PermalinkVisibility, StanceLinkView } from "@/lib/permalink";
+import type { WayInPath } from "@/lib/stance-sheet";
 import type { Role } from "@/lib/roles";
 
 // Teams
@@ -68,7 +69,8 @@ interface PermalinkBase {
 /** A permalink as its team sees it: an Explorer view, or a Mix-up board. */
 export type PermalinkDto =
   | (PermalinkBase & { kind: "explorer"; view: PermalinkView })
-  | (PermalinkBase & { kind: "board"; view: BoardLinkView });
+  | (PermalinkBase & { kind: "board"; view: BoardLinkView })
+  | (PermalinkBase & { kind: "stance"; view: StanceLinkView });
 
 /** One row of a team's list of permalinks. */
 export interface TeamPermalinkDto {
@@ -120,7 +122,26 @@ export interface SharedBoardViewDto extends SharedBase {
   board: SharedBoardDto;
 }
 
-export type SharedViewDto = SharedExplorerViewDto | SharedBoardViewDto;
+/** What `/s/[slug]` renders for a stance sheet's link: the sheet in the pinned Edition. */
+export interface SharedStanceViewDto extends SharedBase {
+  kind: "stance";
+  sheet: StanceSheetDto;
+}
+
+export type SharedViewDto = SharedExplorerViewDto | SharedBoardViewDto | SharedStanceViewDto;
+
+// Stance sheets
+
+/** One stance of a character in one Edition, as its sheet shows it (DESIGN.md, "Stance sheet"). */
+export interface StanceSheetDto {
+  game: { slug: string; name: string; fastest: number; launchAt: number };
+  character: { id: number; slug: string; name: string };
+  edition: { slug: string; name: string; status: "draft" | "published" };
+  stance: { key: string; name: string };
+  sheet: StanceSheet;
+  /** By cancel edge id: the Explorer's root and path that end in that way in. */
+  paths: Record<string, WayInPath>;
+}
 
 // Mix-up boards
 

@@ -70,9 +70,19 @@ const id = (what: string) =>
 export const boardLinkViewSchema = z.object({ board: id("The board") }).strict();
 export type BoardLinkView = z.infer<typeof boardLinkViewSchema>;
 
-/** What a permalink shows: an Explorer view (the default) or a Mix-up board. */
-export const PERMALINK_KINDS = ["explorer", "board"] as const;
+/** A link to a stance sheet: the stance by its key, in the character and Edition it is pinned to. */
+export const stanceLinkViewSchema = z
+  .object({ stance: plainText("The stance", 64).min(1, { error: "Say which stance the sheet is of." }) })
+  .strict();
+export type StanceLinkView = z.infer<typeof stanceLinkViewSchema>;
+
+/** What a permalink shows: an Explorer view (the default), a Mix-up board or a stance sheet. */
+export const PERMALINK_KINDS = ["explorer", "board", "stance"] as const;
 export type PermalinkKind = (typeof PERMALINK_KINDS)[number];
+
+const editionSlugSchema = z
+  .string({ error: "Say which Edition the link is pinned to." })
+  .regex(/^[a-z0-9-]{1,32}$/, { error: "An Edition is named by its slug, such as 1-1." });
 
 const visibilitySchema = z.enum(PERMALINK_VISIBILITIES, {
   error: 'Visibility is "team" (members only) or "link" (anyone with the link).',
@@ -81,7 +91,7 @@ const visibilitySchema = z.enum(PERMALINK_VISIBILITIES, {
 /**
  * The body of POST /api/permalinks: an Explorer view (`kind` "explorer" or left out) names its
  * character and Edition; a board's link (`kind` "board") names the board, whose character and
- * Edition it is pinned to.
+ * Edition it is pinned to; a stance sheet's (`kind` "stance") names character, Edition and stance key.
  */
 export const createPermalinkSchema = z.discriminatedUnion(
   "kind",
@@ -91,9 +101,7 @@ export const createPermalinkSchema = z.discriminatedUnion(
         kind: z.literal("explorer").optional(),
         teamId: id("The team"),
         characterId: id("The character"),
-        edition: z
-          .string({ error: "Say which Edition the link is pinned to." })
-          .regex(/^[a-z0-9-]{1,32}$/, { error: "An Edition is named by its slug, such as 1-1." }),
+        edition: editionSlugSchema,
         view: permalinkViewSchema,
         visibility: visibilitySchema,
       })
@@ -106,8 +114,20 @@ export const createPermalinkSchema = z.discriminatedUnion(
         visibility: visibilitySchema,
       })
       .strict(),
+    z
+      .object({
+        kind: z.literal("stance"),
+        teamId: id("The team"),
+        characterId: id("The character"),
+        edition: editionSlugSchema,
+        view: stanceLinkViewSchema,
+        visibility: visibilitySchema,
+      })
+      .strict(),
   ],
-  { error: 'A link shows an Explorer view (kind "explorer") or a board (kind "board").' },
+  {
+    error: 'A link shows an Explorer view (kind "explorer"), a board (kind "board") or a stance sheet (kind "stance").',
+  },
 );
 
 export type CreatePermalinkInput = z.infer<typeof createPermalinkSchema>;
@@ -157,6 +177,21 @@ export function explorerHref({
   if (view.options.fastest !== gameFastest) params.set("fastest", String(view.options.fastest));
   if (view.opponent !== null) params.set("vs", String(view.opponent));
   return `/games/${encodeURIComponent(gameSlug)}/${encodeURIComponent(characterSlug)}/explore/${encodeURIComponent(view.root)}?${params.toString()}`;
+}
+
+/** The live stance sheet's address for a stance (by its key) in an Edition. */
+export function stanceSheetHref({
+  gameSlug,
+  characterSlug,
+  edition,
+  stance,
+}: {
+  gameSlug: string;
+  characterSlug: string;
+  edition: string;
+  stance: string;
+}): string {
+  return `/games/${encodeURIComponent(gameSlug)}/${encodeURIComponent(characterSlug)}/stances/${encodeURIComponent(stance)}?edition=${encodeURIComponent(edition)}`;
 }
 
 /**

@@ -30,6 +30,10 @@ const data = {
   gameName: `Undisclosed Circuit ${tag}`,
   characterName: `Hidden Lantern ${tag}`,
   moveName: `Secret Sweep ${tag}`,
+  stanceName: `Hushed Crouch ${tag}`,
+  stanceTeamOnlyTitle: `Team-only stance sheet ${tag}`,
+  stanceTeamOnlySlug: randomBytes(18).toString("base64url"),
+  stanceLinkSlug: randomBytes(18).toString("base64url"),
   teamOnlyTitle: `Team-only drill ${tag}`,
   linkTitle: `Open drill ${tag}`,
   /** Given, not drawn by AUTO_INCREMENT: the table of pages is built before team A is. */
@@ -55,7 +59,9 @@ type Secret =
   | "game"
   | "character"
   | "move"
+  | "stance"
   | "team-only link"
+  | "team-only stance link"
   | "board"
   | "board's situation"
   | `${Member}'s name`
@@ -66,7 +72,9 @@ const SECRETS: Record<Secret, string> = {
   game: data.gameName,
   character: data.characterName,
   move: data.moveName,
+  stance: data.stanceName,
   "team-only link": data.teamOnlyTitle,
+  "team-only stance link": data.stanceTeamOnlyTitle,
   board: data.boardTitle,
   "board's situation": data.boardSituation,
   ...(Object.fromEntries(
@@ -166,6 +174,31 @@ const PAGES: Record<string, Target[]> = {
     {
       what: "what changed for a character that does not exist",
       path: "/games/vesper-circuit/nobody/changes",
+      expect: all(404),
+    },
+  ],
+  "(app)/games/[game]/[character]/stances/[stance]/page.tsx": [
+    {
+      what: "team A's character's stance sheet",
+      path: `${privateCharacter}/stances/hush`,
+      expect: membersOnly(),
+      membersSee: ["character", "stance"],
+    },
+    { what: "a public stance sheet", path: "/games/vesper-circuit/tarrow/stances/drift", expect: all(200) },
+    {
+      what: "a public stance sheet, filtered, in an older Edition",
+      path: "/games/vesper-circuit/tarrow/stances/drift?edition=1-0&safe=1",
+      expect: all(200),
+    },
+    { what: "a stance that does not exist", path: "/games/vesper-circuit/tarrow/stances/nowhere", expect: all(404) },
+    {
+      what: "a stance of team A's character that does not exist",
+      path: `${privateCharacter}/stances/nowhere`,
+      expect: all(404),
+    },
+    {
+      what: "a stance sheet in an Edition that does not exist",
+      path: "/games/vesper-circuit/tarrow/stances/drift?edition=no-such",
       expect: all(404),
     },
   ],
@@ -275,6 +308,19 @@ const PAGES: Record<string, Target[]> = {
       path: `/s/${data.boardLinkSlug}`,
       expect: all(200),
       disclosed: ["player's name", "board", "board's situation"],
+    },
+    {
+      what: "team A's team-only link to a stance sheet",
+      path: `/s/${data.stanceTeamOnlySlug}`,
+      expect: membersOnly(),
+      membersSee: ["team-only stance link"],
+    },
+    // A stance sheet shared with anyone shows the sheet and who shared it.
+    {
+      what: "team A's public link to a stance sheet",
+      path: `/s/${data.stanceLinkSlug}`,
+      expect: all(200),
+      disclosed: ["player's name"],
     },
   ],
   "s/[slug]/not-found.tsx": [
@@ -387,6 +433,8 @@ test.describe("page inventory", () => {
       // (previews are fetched without a session). A public link's preview shows its path.
       expect(await imageOf(v, data.teamOnlySlug), `${v}: team-only link`).toBe(plain);
       expect(await imageOf(v, data.linkSlug), `${v}: public link`).not.toBe(plain);
+      expect(await imageOf(v, data.stanceTeamOnlySlug), `${v}: team-only stance link`).toBe(plain);
+      expect(await imageOf(v, data.stanceLinkSlug), `${v}: public stance link`).not.toBe(plain);
     }
   });
 });
@@ -432,6 +480,11 @@ async function makeTeamA() {
     `insert into moves (edition_id, character_id, \`key\`, input, name, level, damage, startup, on_block, on_hit, on_counter_hit, tags)
      values (?, ?, 'sweep', 'sweep', ?, 'low', 12, 14, '-13', '3', '5', '[]')`,
     [edition!.id, character!.id, data.moveName],
+  );
+
+  await query(
+    "insert into stances (edition_id, character_id, `key`, name, abbreviation) values (?, ?, 'hush', ?, 'HSH')",
+    [edition!.id, character!.id, data.stanceName],
   );
 
   // Two links of the player's on the public demo character: one for the team, one for anyone.
@@ -505,6 +558,25 @@ async function makeTeamA() {
         tarrow!.id,
         JSON.stringify({ board: data.boardId }),
         data.boardTitle,
+      ],
+    );
+
+  for (const [slug, visibility, title] of [
+    [data.stanceTeamOnlySlug, "team", data.stanceTeamOnlyTitle],
+    [data.stanceLinkSlug, "link", "Stance: Drift · Tarrow · edition 1-1"],
+  ])
+    await query(
+      `insert into permalinks (slug, team_id, created_by, kind, visibility, edition_id, character_id, view, title)
+       values (?, ?, ?, 'stance', ?, ?, ?, ?, ?)`,
+      [
+        slug,
+        team!.id,
+        ids.player,
+        visibility,
+        tarrow!.editionId,
+        tarrow!.id,
+        JSON.stringify({ stance: "drift" }),
+        title,
       ],
     );
 

@@ -18,6 +18,7 @@ import { FrameTimeline } from "./frame-timeline";
 import { Legend } from "./legend";
 import { OptionsBar } from "./options-bar";
 import { PathCard } from "./path-card";
+import { StanceSheetLink } from "./stance-sheet-link";
 import { PathsTable } from "./paths-table";
 import { PunishPanel } from "./punish-panel";
 import { ShareButton, type ShareTeam } from "./share-dialog";
@@ -213,6 +214,7 @@ export function ExplorerView({ characterId, root, pinned = false, share, editor,
                 alternatives={alternatives}
                 onPickAlternative={pickAlternative}
               />
+              <StanceSheetLink path={selected} graph={sub} data={data} />
               <PunishPanel path={selected} data={data} fastest={options.fastest} />
               {boards && boards.teams.length > 0 && !pinned && (
                 <ExplorerMakeBoard teams={boards.teams} data={data} path={selected} root={root} rules={rules} />

@@ -2,6 +2,7 @@
 
 import { Panel, getNodesBounds, getViewportForBounds, useReactFlow } from "@xyflow/react";
 import { toPng } from "html-to-image";
+import { downloadDataUrl } from "@/components/ui/download";
 import { useState } from "react";
 
 const WIDTH = 1600;
@@ -28,10 +29,7 @@ export function ExportButton({ fileName }: { fileName: string }) {
         height: HEIGHT,
         style: { width: `${WIDTH}px`, height: `${HEIGHT}px`, transform: `translate(${x}px, ${y}px) scale(${zoom})` },
       });
-      const a = document.createElement("a");
-      a.download = fileName;
-      a.href = dataUrl;
-      a.click();
+      downloadDataUrl(dataUrl, fileName);
       setState("idle");
     } catch {
       setState("failed");

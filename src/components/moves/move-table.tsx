@@ -13,6 +13,8 @@ interface Section {
   title: string;
   note: string | null;
   moves: MoveEntry[];
+  /** A stance's section: the stance. */
+  stance?: { key: string; name: string };
 }
 
 function sections(list: MoveList): Section[] {
@@ -20,7 +22,13 @@ function sections(list: MoveList): Section[] {
   const byStance = new Map<number, Section>(
     list.stances.map((s) => [
       s.id,
-      { id: `stance-${s.key}`, title: `From ${s.name} (${s.abbreviation})`, note: s.notes, moves: [] },
+      {
+        id: `stance-${s.key}`,
+        title: `From ${s.name} (${s.abbreviation})`,
+        note: s.notes,
+        moves: [],
+        stance: s,
+      },
     ]),
   );
   for (const m of list.moves) (m.stance ? byStance.get(m.stance.id) : neutral)?.moves.push(m);
@@ -95,6 +103,7 @@ export function MoveTable({
   rules,
   exploreHref,
   moveUrl,
+  stanceHref,
 }: {
   list: MoveList;
   rules: BlockRules;
@@ -102,6 +111,8 @@ export function MoveTable({
   exploreHref: (moveKey: string) => string;
   /** For a coach on a draft: a move's address under the edit routes; its numbers are then fixed in place. */
   moveUrl?: (moveKey: string) => string;
+  /** A stance's sheet (its ways in and what follows them). */
+  stanceHref?: (stanceKey: string) => string;
 }) {
   const cancelsFrom = new Map<number, CancelEntry[]>();
   for (const c of list.cancels) cancelsFrom.set(c.fromId, [...(cancelsFrom.get(c.fromId) ?? []), c]);
@@ -114,6 +125,13 @@ export function MoveTable({
             {section.title}
           </h2>
           {section.note && <p className="text-sm text-ink-300">{section.note}</p>}
+          {section.stance && stanceHref && (
+            <p className="text-sm">
+              <Link href={stanceHref(section.stance.key)}>
+                Every way into {section.stance.name} and what follows it →
+              </Link>
+            </p>
+          )}
           <div className="overflow-x-auto rounded-lg border border-ink-800">
             <table className="min-w-full text-sm">
               <thead className="bg-ink-900">

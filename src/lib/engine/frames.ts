@@ -355,3 +355,61 @@ export function explainPunisher(startup: number, onBlock: Outcome): string {
     ? `Startup ${startup} ≤ ${limit}: it lands before you recover.`
     : `Startup ${startup}: too slow to punish ${formatOutcome(onBlock)} on block.`;
 }
+
+/**
+ * Whether a stance cancel turns a punishable ending safe: stopping at the hit is punishable or
+ * launch-punishable, and the cancel's ending is safe, even or plus. False when either is a state.
+ */
+export function turnsPunishableSafe(
+  rawOnBlock: Outcome,
+  cancelledOnBlock: Outcome,
+  rules: { fastest?: number; launchAt?: number } = {},
+): boolean {
+  const before = BLOCK_CLASS_RANK[classifyBlock(rawOnBlock, rules)];
+  const after = BLOCK_CLASS_RANK[classifyBlock(cancelledOnBlock, rules)];
+  return before !== undefined && after !== undefined && before >= 3 && after <= 2;
+}
+
+/**
+ * The hover of a stance move's combo mark after a cancel: startup `s` against the cancel's
+ * on-hit (or on-counter-hit) advantage `a`, combo when `s <= a`.
+ */
+export function explainComboAfterCancel(
+  onHit: Outcome,
+  startup: number | null,
+  { counterHit = false }: { counterHit?: boolean } = {},
+): string {
+  const when = counterHit ? "If the cancelled hit lands as a counter hit" : "If the cancelled hit lands";
+  if (startup === null) return `${when}: this move has no startup, so whether it combos is not known.`;
+  const a = outcomeFrames(onHit);
+  if (a !== a) return `${when} the defender is left in ${formatOutcome(onHit)}: no frame count to combo from.`;
+  return combosAtAdvantage(a, startup)
+    ? `${when}: startup ${startup} ≤ ${formatFrames(a)}, so it combos.`
+    : `${when}: startup ${startup} is above ${formatFrames(a)}, so the defender can block it.`;
+}
+
+/**
+ * The hover of a stance move's gap and follow-up class right after a cancel: the sum that gives
+ * the gap, and why the move has its class. Null when the cancel's ending is a state or the move
+ * has no startup.
+ */
+export function explainAfterCancel(
+  cancelOnBlock: Outcome,
+  startup: number | null,
+  { fastest = DEFAULT_FASTEST }: { fastest?: number } = {},
+): { gap: string; followUp: string } | null {
+  const a = outcomeFrames(cancelOnBlock);
+  if (startup === null || a !== a) return null;
+  const gap = gapAtAdvantage(a, startup);
+  return {
+    gap: `Gap on block after the cancel: ${gapAtAdvantageSum(a, startup)}: ${explainGap(gap)}.`,
+    followUp: explainFollowUp(a, startup, { fastest }),
+  };
+}
+
+/** The hover of a way in's auto-guard: the levels the stance entry guards by itself. */
+export function explainAutoGuard(levels: readonly Level[]): string {
+  return levels.length === 0
+    ? "Entering the stance guards nothing by itself."
+    : `While entering the stance it guards ${levels.join(", ")} hits by itself.`;
+}

@@ -50,6 +50,10 @@ export {
   FOLLOW_UP_WORD,
   explainFollowUp,
   explainPunisher,
+  turnsPunishableSafe,
+  explainComboAfterCancel,
+  explainAfterCancel,
+  explainAutoGuard,
   type AdvantageSide,
   type BlockRules,
 } from "./frames";

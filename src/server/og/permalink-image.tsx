@@ -41,7 +41,15 @@ function loadFonts() {
 
 /** The link preview of a permalink: its path in outline, or a card that says only what Framefork is. */
 export async function renderPermalinkImage(summary: PermalinkImageSummary): Promise<ImageResponse> {
-  return new ImageResponse(summary.kind === "path" ? <PathCard summary={summary} /> : <PrivateCard />, {
+  const card =
+    summary.kind === "path" ? (
+      <PathCard summary={summary} />
+    ) : summary.kind === "stance" ? (
+      <StanceCard summary={summary} />
+    ) : (
+      <PrivateCard />
+    );
+  return new ImageResponse(card, {
     ...PERMALINK_IMAGE_SIZE,
     fonts: await loadFonts(),
   });
@@ -66,6 +74,26 @@ function Frame({ children }: { children: React.ReactNode }) {
       <div style={{ display: "flex", alignItems: "center", fontSize: 30, color: ACCENT, fontWeight: 700 }}>
         Framefork
       </div>
+    </div>
+  );
+}
+
+/** The figures' bar at the foot of a card. */
+function Panel({ children }: { children: React.ReactNode }) {
+  return (
+    <div
+      style={{
+        display: "flex",
+        alignItems: "baseline",
+        gap: 24,
+        padding: "20px 28px",
+        borderRadius: 12,
+        background: INK.panel,
+        border: `2px solid ${INK.line}`,
+        fontSize: 40,
+      }}
+    >
+      {children}
     </div>
   );
 }
@@ -95,22 +123,41 @@ function PathCard({ summary }: { summary: Extract<PermalinkImageSummary, { kind:
           ))}
         </div>
       </div>
-      <div
-        style={{
-          display: "flex",
-          alignItems: "baseline",
-          gap: 24,
-          padding: "20px 28px",
-          borderRadius: 12,
-          background: INK.panel,
-          border: `2px solid ${INK.line}`,
-          fontSize: 40,
-        }}
-      >
+      <Panel>
         <span style={{ color: INK.muted }}>on block</span>
         <span style={{ fontWeight: 700 }}>{summary.onBlock}</span>
         {summary.blockClass ? <span style={{ color: ACCENT }}>{summary.blockClass}</span> : null}
+      </Panel>
+    </Frame>
+  );
+}
+
+function StanceCard({ summary }: { summary: Extract<PermalinkImageSummary, { kind: "stance" }> }) {
+  const name = summary.stance.length > 28 ? `${summary.stance.slice(0, 27)}…` : summary.stance;
+  const best = summary.best;
+  return (
+    <Frame>
+      <div style={{ display: "flex", flexDirection: "column", gap: 28 }}>
+        <div style={{ display: "flex", fontSize: 30, color: INK.muted }}>{summary.title}</div>
+        <div style={{ display: "flex", fontSize: 88, fontWeight: 700 }}>{name}</div>
+        <div style={{ display: "flex", fontSize: 36, color: INK.muted }}>
+          {summary.waysIn === 1 ? "1 way in" : `${summary.waysIn} ways in`}
+        </div>
       </div>
+      <Panel>
+        {best ? (
+          <>
+            <span style={{ color: INK.muted }}>best way in</span>
+            <span style={{ fontWeight: 700 }}>
+              {best.input.length > 24 ? `${best.input.slice(0, 23)}…` : best.input}
+            </span>
+            <span style={{ fontWeight: 700 }}>{best.onBlock}</span>
+            {best.blockClass ? <span style={{ color: ACCENT }}>{best.blockClass}</span> : null}
+          </>
+        ) : (
+          <span style={{ color: INK.muted }}>nothing cancels into it</span>
+        )}
+      </Panel>
     </Frame>
   );
 }

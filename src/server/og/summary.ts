@@ -1,11 +1,19 @@
 import "server-only";
 import { BLOCK_CLASS_WORD, effectiveLaunchAt, formatOutcome, type Level } from "@/lib/engine";
 import { computePaths, pathKey, reachableSubgraph } from "@/lib/explorer";
-import type { SharedViewDto } from "@/lib/dto";
+import type { SharedStanceViewDto, SharedViewDto } from "@/lib/dto";
 
 /** What a link preview shows: the path's outline, or nothing of it for a link that is not public. */
 export type PermalinkImageSummary =
   | { kind: "path"; title: string; input: string; levels: Level[]; onBlock: string; blockClass: string }
+  | {
+      kind: "stance";
+      title: string;
+      stance: string;
+      waysIn: number;
+      /** The way in with the best ending on block, first in the sheet's order. */
+      best: { input: string; onBlock: string; blockClass: string } | null;
+    }
   | { kind: "private" };
 
 /**
@@ -15,6 +23,7 @@ export type PermalinkImageSummary =
  * when the caller could read them: previews are fetched by other services.
  */
 export function summarizeSharedView(shared: SharedViewDto): PermalinkImageSummary {
+  if (shared.visibility === "link" && shared.kind === "stance") return summarizeStance(shared);
   // A board's preview is still to be drawn: the generic card for now.
   if (shared.visibility !== "link" || shared.kind !== "explorer") return { kind: "private" };
   const { view, data } = shared;
@@ -30,5 +39,24 @@ export function summarizeSharedView(shared: SharedViewDto): PermalinkImageSummar
     levels: [...path.levels],
     onBlock: formatOutcome(path.onBlock),
     blockClass: BLOCK_CLASS_WORD[path.blockClass],
+  };
+}
+
+/** A stance sheet's preview: the stance, how many ways in, and the best of them (the engine's first). */
+function summarizeStance(shared: SharedStanceViewDto): PermalinkImageSummary {
+  const { sheet, stance } = shared.sheet;
+  const best = sheet.waysIn[0];
+  return {
+    kind: "stance",
+    title: shared.title,
+    stance: stance.name,
+    waysIn: sheet.waysIn.length,
+    best: best
+      ? {
+          input: best.input,
+          onBlock: formatOutcome(best.cancelled.onBlock),
+          blockClass: BLOCK_CLASS_WORD[best.cancelled.blockClass],
+        }
+      : null,
   };
 }

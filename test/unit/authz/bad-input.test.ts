@@ -19,7 +19,7 @@ import { setSession } from "./session-mock";
 import { closeDb, getDb } from "@/server/db";
 import { listMembers, listMyTeams } from "@/server/db/queries/teams";
 import { auditLog, boards, characters, editions, games, invites, permalinks, users } from "@/server/db/schema";
-import { boardSave, newBoard, VIEW, world, type World, newLink, newFollowUp } from "./world";
+import { boardSave, newStanceLink, newBoard, VIEW, world, type World, newLink, newFollowUp } from "./world";
 
 vi.mock("@/server/auth", () => import("./session-mock"));
 vi.mock("@/server/mail", async (original) => ({
@@ -120,6 +120,13 @@ const ROUTES: BodyRoute[] = [
     params: () => ({}),
     good: (w) => ({ kind: "board", teamId: w.team.id, view: { board: w.board.id }, visibility: "link" }),
     text: ["kind", "visibility"],
+  },
+  {
+    name: "POST /api/permalinks (a stance sheet)",
+    handler: createPermalink as Handler,
+    params: () => ({}),
+    good: (w) => newStanceLink(w, "link"),
+    text: ["kind", "edition", "visibility"],
   },
   {
     name: "POST /api/teams/[team]/boards",

@@ -323,6 +323,23 @@ const ROUTES: Record<string, Row> = {
         { in: "body", name: "view.board", teamA: (w) => w.board.id, none: noNumber },
       ],
     },
+    {
+      own: (w) => ({
+        body: {
+          kind: "stance",
+          teamId: w.b.team.id,
+          characterId: w.demoCharacterId,
+          edition: "1-1",
+          view: { stance: "drift" },
+          visibility: "team",
+        },
+      }),
+      ids: [
+        { in: "body", name: "teamId", teamA: (w) => w.team.id, none: noNumber },
+        { in: "body", name: "characterId", teamA: (w) => w.teamCharacterId, none: noNumber },
+        { in: "body", name: "edition", teamA: () => "0-1", none: () => "9-9" },
+      ],
+    },
   ],
   "GET /api/teams/[team]/boards": teamRoute(),
   "POST /api/teams/[team]/boards": {

@@ -4,7 +4,7 @@ import type { SessionUser } from "@/server/auth";
 import { missingRows, pathParams, routeHandlers, routeUrl, serverActions, type Action } from "./inventory";
 import { tableChecksums, runOnPrivateDatabase } from "./private-database";
 import { setSession } from "./session-mock";
-import { boardSave, newBoard, VIEW, world, type World, newLink, newFollowUp } from "./world";
+import { boardSave, newStanceLink, newBoard, VIEW, world, type World, newLink, newFollowUp } from "./world";
 import { ONE_MOVE_PATHS_REQUEST } from "../../fixtures/paths-request";
 import { runAfterAnswer } from "../auth/request-mock";
 
@@ -187,7 +187,10 @@ const ROUTES: Record<string, FuzzRow | { overHttp: string }> = {
   "GET /api/teams/[team]/permalinks": {},
   "POST /api/permalinks": {
     good: () => ({ teamId: w.team.id, characterId: w.demoCharacterId, edition: "1-1", view: VIEW, visibility: "link" }),
-    alsoGood: [() => ({ kind: "board", teamId: w.team.id, view: { board: w.board.id }, visibility: "link" })],
+    alsoGood: [
+      () => ({ kind: "board", teamId: w.team.id, view: { board: w.board.id }, visibility: "link" }),
+      () => newStanceLink(w, "link"),
+    ],
   },
   "GET /api/teams/[team]/boards": {},
   "POST /api/teams/[team]/boards": { good: () => ({ ...newBoard(w), opponentId: w.teamCharacterId }) },

@@ -5,7 +5,7 @@ import { routeHandlers, routeUrl, serverActions, type Action } from "./inventory
 import { nextAddress } from "./headers-mock";
 import { setSession } from "./session-mock";
 import { closeDb } from "@/server/db";
-import { boardSave, characterForm, draftOf, newBoard, VIEW, world, type World, newLink } from "./world";
+import { boardSave, newStanceLink, characterForm, draftOf, newBoard, VIEW, world, type World, newLink } from "./world";
 import { ONE_MOVE_PATHS_REQUEST } from "../../fixtures/paths-request";
 
 // Who is signed in for the call under test. Route handlers read the session only through
@@ -338,6 +338,13 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
     {
       what: "share a board of the team",
       call: (w) => ({ body: { kind: "board", teamId: w.team.id, view: { board: w.board.id }, visibility: "team" } }),
+      expect: { anonymous: 401, viewer: 403, player: 201, coach: 201, owner: 201, outsider: 404 },
+    },
+    {
+      what: "share a stance sheet of the demo game",
+      call: (w) => ({
+        body: newStanceLink(w, "link"),
+      }),
       expect: { anonymous: 401, viewer: 403, player: 201, coach: 201, owner: 201, outsider: 404 },
     },
   ],

@@ -189,6 +189,16 @@ export const newBoard = (w: Pick<World, "teamCharacterId">) => ({
   document: boardDocument(),
 });
 
+/** The body of POST /api/permalinks sharing the demo's Drift stance sheet (Tarrow, 1-1) through the team. */
+export const newStanceLink = (w: Pick<World, "team" | "demoCharacterId">, visibility: "team" | "link" = "link") => ({
+  kind: "stance",
+  teamId: w.team.id,
+  characterId: w.demoCharacterId,
+  edition: "1-1",
+  view: { stance: "drift" },
+  visibility,
+});
+
 /** The body of PUT /api/teams/[team]/boards/[board]: the first version, retitled. */
 export const boardSave = () => ({ version: 1, title: "Pressure, second look", document: boardDocument() });
 

@@ -64,6 +64,24 @@ describe("renderPermalinkImage", () => {
     expect([image.width, image.height]).toEqual([1200, 630]);
   });
 
+  test("renders a 1200×630 PNG of a stance sheet, unlike the generic card, with or without a way in", async () => {
+    const generic = (await png(await renderPermalinkImage({ kind: "private" }))).bytes;
+    for (const best of [{ input: "1,2~b", onBlock: "-1", blockClass: "safe" }, null]) {
+      const image = await png(
+        await renderPermalinkImage({
+          kind: "stance",
+          title: "Stance: S · T · edition 1-1",
+          stance: "S",
+          waysIn: 3,
+          best,
+        }),
+      );
+      expect(image.signature).toEqual(PNG_SIGNATURE);
+      expect([image.width, image.height]).toEqual([1200, 630]);
+      expect(image.bytes.equals(generic)).toBe(false);
+    }
+  });
+
   test("a team-only, a revoked-looking and an unknown slug all give the same generic image", async () => {
     const generic = (await png(await renderPermalinkImage({ kind: "private" }))).bytes;
     const teamOnly = await share("team");

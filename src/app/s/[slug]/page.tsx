@@ -2,6 +2,8 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { SharedBoard } from "@/components/boards/shared-board";
 import { SharedExplorer } from "@/components/explorer/shared-explorer";
+import { SharedStance } from "@/components/stances/shared-stance";
+import { SAFE_ONLY_PARAM } from "@/lib/stance-sheet";
 import { auth } from "@/server/auth";
 import { loadSharedView } from "@/server/db/queries/permalinks";
 
@@ -24,11 +26,13 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return { title: shared.view.title, robots: { index: false } };
 }
 
-/** A shared Explorer view or Mix-up board, read-only and pinned to its Edition. */
-export default async function SharedPage({ params }: Props) {
+/** A shared Explorer view, Mix-up board or stance sheet, read-only and pinned to its Edition. */
+export default async function SharedPage({ params, searchParams }: Props) {
   const { slug } = await params;
   const shared = await load(slug);
   if (shared.status === "unavailable") notFound();
   if (shared.view.kind === "board") return <SharedBoard view={shared.view} />;
+  if (shared.view.kind === "stance")
+    return <SharedStance view={shared.view} safeOnly={(await searchParams)[SAFE_ONLY_PARAM] === "1"} />;
   return <SharedExplorer view={shared.view} />;
 }

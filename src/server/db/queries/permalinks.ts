@@ -7,8 +7,10 @@ import {
   permalinkPath,
   permalinkViewSchema,
   SLUG_PATTERN,
+  stanceLinkViewSchema,
   tracePath,
   type BoardLinkView,
+  type StanceLinkView,
   type PermalinkView,
   type PermalinkVisibility,
 } from "@/lib/permalink";
@@ -21,6 +23,7 @@ import { readBoardForLink } from "./boards";
 import { getExplorerData } from "./explorer";
 import { characterForTeam, gameEdition, opponentInGame } from "./games";
 import { getCharacterGraph } from "./moves";
+import { getStanceSheet } from "./stance-sheets";
 import type { PermalinkDto, SharedViewDto, TeamPermalinkDto } from "@/lib/dto";
 import type { GraphResponse } from "@/lib/explorer";
 
@@ -73,7 +76,10 @@ type Row = {
 };
 
 /** A stored view, read by its kind's schema. */
-type KindView = { kind: "explorer"; view: PermalinkView } | { kind: "board"; view: BoardLinkView };
+type KindView =
+  | { kind: "explorer"; view: PermalinkView }
+  | { kind: "board"; view: BoardLinkView }
+  | { kind: "stance"; view: StanceLinkView };
 
 function toDto(row: Row, { kind, view }: KindView): PermalinkDto {
   const base = {
@@ -88,7 +94,9 @@ function toDto(row: Row, { kind, view }: KindView): PermalinkDto {
     createdAt: row.createdAt.toISOString(),
     revokedAt: row.revokedAt?.toISOString() ?? null,
   };
-  return kind === "board" ? { ...base, kind, view } : { ...base, kind, view };
+  if (kind === "board") return { ...base, kind, view };
+  if (kind === "stance") return { ...base, kind, view };
+  return { ...base, kind, view };
 }
 
 /** A stored view by its row's kind; null for a kind this code does not know or a view that no longer fits. */
@@ -96,6 +104,10 @@ function kindView(row: Pick<Row, "kind" | "view">): KindView | { error: unknown 
   if (row.kind === "board") {
     const view = boardLinkViewSchema.safeParse(row.view);
     return view.success ? { kind: "board", view: view.data } : { error: view.error.issues };
+  }
+  if (row.kind === "stance") {
+    const view = stanceLinkViewSchema.safeParse(row.view);
+    return view.success ? { kind: "stance", view: view.data } : { error: view.error.issues };
   }
   if (row.kind === "explorer") {
     const view = permalinkViewSchema.safeParse(row.view);
@@ -125,6 +137,36 @@ async function findRow(slug: string) {
   return { row, view };
 }
 
+/** What a link pinned to a character and an Edition is made from; `view` is its kind's. */
+interface PinnedLinkInput<View> {
+  teamId: number;
+  createdBy: string;
+  characterId: number;
+  editionSlug: string;
+  view: View;
+  visibility: PermalinkVisibility;
+}
+
+/**
+ * The character a team may link to (the demo game's or its own) and the published Edition a link
+ * is pinned to: a link is pinned to data that never changes, and a draft is still being edited.
+ */
+async function publishedEditionFor({
+  teamId,
+  characterId,
+  editionSlug,
+}: {
+  teamId: number;
+  characterId: number;
+  editionSlug: string;
+}) {
+  const { character, game } = await characterForTeam({ teamId, characterId });
+  const edition = await gameEdition({ game, slug: editionSlug });
+  if (edition.status !== "published")
+    throw new AppError("conflict", `${edition.name} is a draft: publish it before sharing a link to it.`);
+  return { character, game, edition };
+}
+
 /**
  * Makes a permalink of a view, pinned to an Edition. The character must be in
  * the public demo game or in a game the team owns; the root and the path must
@@ -138,20 +180,9 @@ export async function createPermalink({
   editionSlug,
   view,
   visibility,
-}: {
-  teamId: number;
-  createdBy: string;
-  characterId: number;
-  editionSlug: string;
-  view: PermalinkView;
-  visibility: PermalinkVisibility;
-}): Promise<PermalinkDto> {
+}: PinnedLinkInput<PermalinkView>): Promise<PermalinkDto> {
   const checked = permalinkViewSchema.parse(view);
-  const { character, game } = await characterForTeam({ teamId, characterId });
-  const edition = await gameEdition({ game, slug: editionSlug });
-  // A link is pinned to data that never changes: a draft is still being edited.
-  if (edition.status !== "published")
-    throw new AppError("conflict", `${edition.name} is a draft: publish it before sharing a link to it.`);
+  const { character, game, edition } = await publishedEditionFor({ teamId, characterId, editionSlug });
 
   const { graph } = await getCharacterGraph({ characterId, editionId: edition.id });
   const traced = tracePath(graph, checked);
@@ -180,10 +211,10 @@ async function insertPermalink({
   teamId: number;
   createdBy: string;
   visibility: PermalinkVisibility;
-  kind: "explorer" | "board";
+  kind: "explorer" | "board" | "stance";
   editionId: number;
   characterId: number;
-  view: PermalinkView | BoardLinkView;
+  view: PermalinkView | BoardLinkView | StanceLinkView;
   title: string;
   /** The Edition's slug, for the log. */
   edition: string;
@@ -202,6 +233,7 @@ async function insertPermalink({
         characterId: values.characterId,
         edition,
         ...("board" in values.view ? { board: values.view.board } : {}),
+        ...("stance" in values.view ? { stance: values.view.stance } : {}),
       },
     });
   });
@@ -259,6 +291,37 @@ export async function createBoardPermalink({
   });
 }
 
+/**
+ * Makes a permalink to a stance sheet, pinned to its character and a published Edition. The
+ * character must be in the public demo game or in a game the team owns, and the stance must
+ * exist in that Edition. The caller has checked that `createdBy` may share in the team.
+ */
+export async function createStancePermalink({
+  teamId,
+  createdBy,
+  characterId,
+  editionSlug,
+  view,
+  visibility,
+}: PinnedLinkInput<StanceLinkView>): Promise<PermalinkDto> {
+  const checked = stanceLinkViewSchema.parse(view);
+  const { character, edition } = await publishedEditionFor({ teamId, characterId, editionSlug });
+  const found = await getStanceSheet({ characterId, edition: edition.slug, stanceKey: checked.stance });
+  if (!found.ok)
+    throw new AppError("bad_request", `There is no stance "${checked.stance}" (${character.name}, ${edition.name}).`);
+  return insertPermalink({
+    teamId,
+    createdBy,
+    visibility,
+    kind: "stance",
+    editionId: edition.id,
+    characterId,
+    view: checked,
+    title: `Stance: ${found.data.stance.name} · ${character.name} · edition ${edition.slug}`.slice(0, 200),
+    edition: edition.slug,
+  });
+}
+
 /** A permalink by its slug, revoked or not; null for a slug that is not one. */
 export async function getPermalinkBySlug({ slug }: { slug: string }): Promise<PermalinkDto | null> {
   const found = await findRow(slug);
@@ -273,7 +336,7 @@ export async function listTeamPermalinks({ teamId }: { teamId: number }): Promis
   return rows.map((r) => ({
     slug: r.slug,
     path: permalinkPath(r.slug),
-    kind: r.kind === "board" ? "board" : "explorer",
+    kind: r.kind === "board" || r.kind === "stance" ? r.kind : "explorer",
     title: r.title,
     visibility: r.visibility,
     edition: { slug: r.edition.slug, name: r.edition.name },
@@ -358,6 +421,15 @@ export async function loadSharedView({
     if (!board) return { status: "unavailable" };
     const { team: _team, updatedBy: _updatedBy, editionId: _e, characterId: _c, ...shown } = board;
     return { status: "ok", view: { ...shared, kind: "board", board: shown } };
+  }
+  if (found.view.kind === "stance") {
+    const sheet = await getStanceSheet({
+      characterId: row.characterId,
+      edition: row.edition.slug,
+      stanceKey: found.view.view.stance,
+    });
+    if (!sheet.ok) return { status: "unavailable" };
+    return { status: "ok", view: { ...shared, kind: "stance", sheet: sheet.data } };
   }
   const { view } = found.view;
   const explorer = await getExplorerData({ characterId: row.characterId, edition: row.edition.slug });

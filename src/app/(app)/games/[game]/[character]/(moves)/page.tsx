@@ -6,6 +6,7 @@ import { auth } from "@/server/auth";
 import { atLeast, getRole } from "@/server/authz";
 import { listEditions } from "@/server/db/queries/games";
 import { getMoveList } from "@/server/db/queries/moves";
+import { stanceSheetHref } from "@/lib/permalink";
 import { loadCharacter } from "../../../data";
 
 type Props = PageProps<"/games/[game]/[character]">;
@@ -97,6 +98,9 @@ export default async function CharacterPage({ params, searchParams }: Props) {
           rules={{ fastest: game.fastest, launchAt: game.launchAt }}
           exploreHref={(key) =>
             `/games/${game.slug}/${character.slug}/explore/${encodeURIComponent(key)}?edition=${edition.slug}`
+          }
+          stanceHref={(key) =>
+            stanceSheetHref({ gameSlug: game.slug, characterSlug: character.slug, edition: edition.slug, stance: key })
           }
           moveUrl={
             edits
