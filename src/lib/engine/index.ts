@@ -50,6 +50,9 @@ export {
   FOLLOW_UP_WORD,
   explainFollowUp,
   explainPunisher,
+  compareBlockClass,
+  compareStartup,
+  startupWithin,
   type AdvantageSide,
   type BlockRules,
 } from "./frames";

@@ -95,14 +95,10 @@ export default async function CharacterPage({ params, searchParams }: Props) {
         <MoveTable
           list={list}
           rules={{ fastest: game.fastest, launchAt: game.launchAt }}
-          exploreHref={(key) =>
-            `/games/${game.slug}/${character.slug}/explore/${encodeURIComponent(key)}?edition=${edition.slug}`
-          }
-          moveUrl={
-            edits
-              ? (key) =>
-                  `/api/games/${game.slug}/editions/${edition.slug}/characters/${character.slug}/moves/${encodeURIComponent(key)}`
-              : undefined
+          exploreBase={`/games/${game.slug}/${character.slug}/explore`}
+          edition={edition.slug}
+          editBase={
+            edits ? `/api/games/${game.slug}/editions/${edition.slug}/characters/${character.slug}/moves` : null
           }
         />
       )}
