@@ -184,7 +184,7 @@ export function MoveTable({
           <legend className="text-xs text-ink-400">First hit&apos;s startup</legend>
           <span className="flex items-center gap-1">
             <StartupInput label="Startup from" value={view.startupFrom} onChange={(n) => go({ startupFrom: n })} />
-            <span className="text-ink-500">to</span>
+            <span className="text-ink-400">to</span>
             <StartupInput label="Startup to" value={view.startupTo} onChange={(n) => go({ startupTo: n })} />
           </span>
         </fieldset>
@@ -329,7 +329,7 @@ function EndingSummary({ row, rules }: { row: StringRow; rules: BlockRules }) {
           key={`${e.blockClass} ${e.viaCancel}`}
           data-block-class={e.blockClass}
           data-via-cancel={e.viaCancel ? "" : undefined}
-          className={`text-xs whitespace-nowrap ${BLOCK_CLASS_STYLE[e.blockClass]}`}
+          className={`text-xs ${BLOCK_CLASS_STYLE[e.blockClass]}`}
           title={`${BLOCK_CLASS_WORD[e.blockClass]} (${blockClassRange(e.blockClass, rules)}): ${blockClassMeaning(e.blockClass, rules)}`}
         >
           {endingLabel(e, BLOCK_CLASS_WORD[e.blockClass])}
@@ -383,7 +383,7 @@ function StringRows({
                 {root.input}
               </Link>
               <span className="block text-xs text-ink-400">{root.name}</span>
-              <span className="text-ink-500 block text-xs sm:hidden">
+              <span className="block text-xs text-ink-400 sm:hidden">
                 startup {root.startup ?? "—"} · up to {row.bestDamage} damage
               </span>
             </span>
@@ -396,7 +396,7 @@ function StringRows({
             ))}
           </span>
           {(branches > 0 || cancels > 0) && (
-            <span className="text-ink-500 mt-0.5 block text-[11px]">
+            <span className="mt-0.5 block text-[11px] text-ink-400">
               {[
                 branches > 0 ? `${branches} more ${branches === 1 ? "branch" : "branches"}` : null,
                 cancels > 0 ? `${cancels} ${cancels === 1 ? "cancel" : "cancels"}` : null,
@@ -410,7 +410,7 @@ function StringRows({
           <EndingSummary row={row} rules={rules} />
         </td>
         <td className={`${td} ${wide} font-mono tabular-nums`} data-field="startup">
-          {root.startup ?? <span className="text-ink-600">—</span>}
+          {root.startup ?? <span className="text-ink-400">—</span>}
         </td>
         <td className={`${td} ${wide} font-mono tabular-nums`} data-field="bestDamage">
           {row.bestDamage}
@@ -429,7 +429,7 @@ function StringRows({
   );
 }
 
-const indent = (depth: number) => ({ paddingLeft: `${1.75 + depth * 0.9}rem` });
+const indent = (depth: number) => ({ paddingLeft: `${0.75 + depth * 0.6}rem` });
 
 /** The three outcomes of a step, labelled, so a screen reader and a phone read them without the header. */
 function Outcomes({
@@ -445,12 +445,17 @@ function Outcomes({
 }) {
   return (
     <span className="flex flex-col gap-0.5">
-      <span className="whitespace-nowrap">
+      <span className="flex flex-wrap items-baseline">
         <span data-field="onBlock">{onBlock}</span>
         {tag}
       </span>
-      <span className="text-xs whitespace-nowrap text-ink-400">
-        hit <span data-field="onHit">{hit}</span> · counter hit <span data-field="onCounterHit">{counterHit}</span>
+      <span className="flex flex-wrap gap-x-1.5 text-xs text-ink-400">
+        <span className="whitespace-nowrap">
+          hit <span data-field="onHit">{hit}</span>
+        </span>
+        <span className="whitespace-nowrap">
+          counter hit <span data-field="onCounterHit">{counterHit}</span>
+        </span>
       </span>
     </span>
   );
@@ -487,7 +492,7 @@ function HitRow({
     );
   const via = move.via;
   const notes = [move.range, ...move.tags, move.notes].filter(Boolean).join(" · ");
-  const startup = move.startup ?? <span className="text-ink-600">—</span>;
+  const startup = move.startup ?? <span className="text-ink-400">—</span>;
   return (
     <tr data-move-key={move.key} id={id} hidden={hidden} className="border-t border-ink-850 bg-ink-900/40">
       <th scope="row" className={`${td} text-left font-normal`} style={indent(step.depth)}>
@@ -503,9 +508,10 @@ function HitRow({
             guess point
           </span>
         )}
-        {notes && <span className="text-ink-500 block text-[11px]">{notes}</span>}
-        <span className="text-ink-500 block text-xs sm:hidden">
-          startup {fixable("startup", startup)} · damage {fixable("damage", move.damage)}
+        {notes && <span className="block text-[11px] text-ink-400">{notes}</span>}
+        <span className="block text-xs text-ink-400 sm:hidden">
+          startup <span data-field="startup">{fixable("startup", startup)}</span> · damage{" "}
+          <span data-field="damage">{fixable("damage", move.damage)}</span>
         </span>
       </th>
       <td className={td}>
@@ -513,7 +519,7 @@ function HitRow({
           <LevelBadge level={move.level} />
           {via?.kind === "follow" && (
             <span
-              className="text-[11px] whitespace-nowrap text-ink-400"
+              className="text-[11px] text-ink-400"
               data-field="gapOnBlock"
               title={`Gap on block before this hit: ${explainGap(via.gapOnBlock)}.`}
             >
@@ -534,10 +540,12 @@ function HitRow({
           tag={<BlockClassTag onBlock={move.onBlock} rules={rules} />}
         />
       </td>
-      <td className={`${td} ${wide} font-mono tabular-nums`}>{fixable("startup", startup)}</td>
       <td className={`${td} ${wide} font-mono tabular-nums`}>
-        {fixable("damage", move.damage)}
-        {step.depth > 0 && <span className="text-ink-500 block text-[11px]">{step.damage} in all</span>}
+        <span data-field="startup">{fixable("startup", startup)}</span>
+      </td>
+      <td className={`${td} ${wide} font-mono tabular-nums`}>
+        <span data-field="damage">{fixable("damage", move.damage)}</span>
+        {step.depth > 0 && <span className="block text-[11px] text-ink-400">{step.damage} in all</span>}
       </td>
     </tr>
   );
