@@ -2,6 +2,7 @@ import { randomUUID } from "node:crypto";
 import { readFile } from "node:fs/promises";
 import { expect, test, type Page } from "@playwright/test";
 import { query } from "./db";
+import { MoveListPage } from "./pages/move-list-page";
 import { ExplorerPage } from "./pages/explorer-page";
 import { joinAsPlayer, signUpAs, TeamsPage } from "./pages/team-pages";
 
@@ -143,7 +144,9 @@ test("a coach fixes a number in place in the draft's move list; a save someone b
 }) => {
   const t = await teamGameWithMerrith(page);
   await page.goto(`/games/${t.game}/merrith?edition=${t.edition}`);
-  const row = page.locator('tr[data-move-key="2"]');
+  const list = new MoveListPage(page);
+  await list.openStringOf("2");
+  const row = list.row("2");
   // From the keyboard: focus the cell's button, Enter opens it, Enter saves.
   await row.getByRole("button", { name: "Change the on block of 2" }).focus();
   await page.keyboard.press("Enter");
@@ -162,7 +165,7 @@ test("a coach fixes a number in place in the draft's move list; a save someone b
   expect((await page.request.patch(url, { data: { version: now.version, changes: { damage: 14 } } })).status()).toBe(
     200,
   );
-  await row.getByLabel("The damage of 2").fill("12");
+  await row.getByLabel("The damage of 2", { exact: true }).fill("12");
   await page.keyboard.press("Enter");
   const conflict = row.getByTestId("quick-fix-conflict");
   await expect(conflict).toContainText("theirs 14, yours 12");

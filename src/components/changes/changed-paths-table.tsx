@@ -12,7 +12,7 @@ import {
   type SortingState,
   type Updater,
 } from "@tanstack/react-table";
-import { NoRows, ShownCount } from "@/components/ui/filter-form";
+import { ClearFilters, NoRows, ShownCount } from "@/components/ui/filter-form";
 import { SortableHeading } from "@/components/ui/sort-button";
 import { BLOCK_CLASS_STYLE } from "@/components/ui/block-class";
 import { Frames } from "@/components/ui/frames";
@@ -341,14 +341,7 @@ export function ChangedPathsTable({
         >
           Apply
         </button>
-        <button
-          type="button"
-          onClick={clear}
-          disabled={!filtered}
-          className="rounded border border-ink-700 px-2 py-0.5 text-xs text-ink-300 hover:border-ink-600 hover:text-ink-100 disabled:opacity-40"
-        >
-          Clear filters
-        </button>
+        <ClearFilters onClear={clear} filtered={filtered} />
       </form>
       <div
         className="relative overflow-x-auto rounded-lg border border-ink-800 bg-ink-900"

@@ -51,3 +51,17 @@ export function NoRows({ message, onClear }: { message: string; onClear?: () => 
     </div>
   );
 }
+
+/** The button that puts every filter of a table back; off while nothing filters. */
+export function ClearFilters({ onClear, filtered }: { onClear: () => void; filtered: boolean }) {
+  return (
+    <button
+      type="button"
+      onClick={onClear}
+      disabled={!filtered}
+      className="rounded border border-ink-700 px-2 py-0.5 text-xs text-ink-300 hover:border-ink-600 hover:text-ink-100 disabled:opacity-40"
+    >
+      Clear filters
+    </button>
+  );
+}

@@ -413,3 +413,27 @@ export function explainAutoGuard(levels: readonly Level[]): string {
     ? "Entering the stance guards nothing by itself."
     : `While entering the stance it guards ${levels.join(", ")} hits by itself.`;
 }
+
+// ---------------------------------------------------------------------------------------
+// Orders and ranges the move list sorts and filters by.
+
+/**
+ * Best ending for the attacker first (plus, even, safe, punishable, launch-punishable), then
+ * `state`, which has no place on that scale: a knockdown is not "safer" than -5.
+ */
+export function compareBlockClass(a: BlockClass, b: BlockClass): number {
+  return (BLOCK_CLASS_RANK[a] ?? 5) - (BLOCK_CLASS_RANK[b] ?? 5);
+}
+
+/** Fastest first; a move with no startup (a follow-up, or unknown) after every number. */
+export function compareStartup(a: number | null, b: number | null): number {
+  if (a === null || b === null) return a === b ? 0 : a === null ? 1 : -1;
+  return a - b;
+}
+
+/** Whether a startup lies in `[min, max]`, either end open when null; no startup is in no closed range. */
+export function startupWithin(startup: number | null, min: number | null, max: number | null): boolean {
+  if (min === null && max === null) return true;
+  if (startup === null) return false;
+  return (min === null || startup >= min) && (max === null || startup <= max);
+}

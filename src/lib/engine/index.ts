@@ -54,6 +54,9 @@ export {
   explainComboAfterCancel,
   explainAfterCancel,
   explainAutoGuard,
+  compareBlockClass,
+  compareStartup,
+  startupWithin,
   type AdvantageSide,
   type BlockRules,
 } from "./frames";

@@ -1,6 +1,9 @@
 import { describe, expect, test } from "vitest";
 import {
   classifyBlock,
+  compareBlockClass,
+  compareStartup,
+  startupWithin,
   explorePaths,
   followUp,
   framesSaved,
@@ -178,5 +181,24 @@ describe("cancel rules", () => {
         expect(combosAtAdvantage(a, s)).toBe(followUp(a, s) === "guaranteed");
       }
     }
+  });
+});
+
+describe("the move list's orders and ranges", () => {
+  test("compareBlockClass puts the best ending first and a state last", () => {
+    const shuffled = ["state", "punishable", "plus", "launch-punishable", "safe", "even"] as const;
+    expect([...shuffled].sort(compareBlockClass).join(" ")).toBe("plus even safe punishable launch-punishable state");
+  });
+
+  test("compareStartup: fastest first, no startup last", () => {
+    expect([14, null, 10, 12].sort(compareStartup)).toEqual([10, 12, 14, null]);
+  });
+
+  test("startupWithin: both ends included, either end open, no startup outside any closed range", () => {
+    expect([9, 10, 12, 13].map((s) => startupWithin(s, 10, 12))).toEqual([false, true, true, false]);
+    expect(startupWithin(30, 13, null)).toBe(true);
+    expect(startupWithin(5, null, 4)).toBe(false);
+    expect(startupWithin(null, null, null)).toBe(true);
+    expect(startupWithin(null, 10, null)).toBe(false);
   });
 });

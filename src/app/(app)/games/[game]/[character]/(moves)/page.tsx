@@ -6,7 +6,6 @@ import { auth } from "@/server/auth";
 import { atLeast, getRole } from "@/server/authz";
 import { listEditions } from "@/server/db/queries/games";
 import { getMoveList } from "@/server/db/queries/moves";
-import { stanceSheetHref } from "@/lib/permalink";
 import { loadCharacter } from "../../../data";
 
 type Props = PageProps<"/games/[game]/[character]">;
@@ -96,17 +95,11 @@ export default async function CharacterPage({ params, searchParams }: Props) {
         <MoveTable
           list={list}
           rules={{ fastest: game.fastest, launchAt: game.launchAt }}
-          exploreHref={(key) =>
-            `/games/${game.slug}/${character.slug}/explore/${encodeURIComponent(key)}?edition=${edition.slug}`
-          }
-          stanceHref={(key) =>
-            stanceSheetHref({ gameSlug: game.slug, characterSlug: character.slug, edition: edition.slug, stance: key })
-          }
-          moveUrl={
-            edits
-              ? (key) =>
-                  `/api/games/${game.slug}/editions/${edition.slug}/characters/${character.slug}/moves/${encodeURIComponent(key)}`
-              : undefined
+          exploreBase={`/games/${game.slug}/${character.slug}/explore`}
+          stanceSheets={{ gameSlug: game.slug, characterSlug: character.slug }}
+          edition={edition.slug}
+          editBase={
+            edits ? `/api/games/${game.slug}/editions/${edition.slug}/characters/${character.slug}/moves` : null
           }
         />
       )}
