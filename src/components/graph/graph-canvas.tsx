@@ -67,12 +67,17 @@ export function GraphCanvas({
   const bounds = useMemo(() => boundsOf(layout.values()), [layout]);
   const canvas = useRef<HTMLDivElement>(null);
   const firstFocus = useRef(selected?.nodes[selected.nodes.length - 1] ?? graph.nodes[0]?.id ?? null);
+  // The graph stays hidden until it sits at its first view, so nothing jumps under a finger
+  // (or a test's click) between the first paint and the move to that view.
+  const [placed, setPlaced] = useState(false);
   const onInit = useCallback(
     (flow: ReactFlowInstance<MoveFlowNode | StanceFlowNode, MoveFlowEdge>) => {
       const box = canvas.current;
       if (!box) return;
       const focus = firstFocus.current === null ? null : (layout.get(firstFocus.current) ?? null);
-      void flow.setViewport(initialViewport(bounds, { width: box.clientWidth, height: box.clientHeight }, focus));
+      void flow
+        .setViewport(initialViewport(bounds, { width: box.clientWidth, height: box.clientHeight }, focus))
+        .then(() => setPlaced(true));
     },
     [layout, bounds],
   );
@@ -205,7 +210,7 @@ export function GraphCanvas({
       <div
         ref={canvas}
         style={{ height: `min(75vh, ${canvasHeight(bounds)}px)` }}
-        className="w-full outline-none focus-visible:ring-2 focus-visible:ring-accent"
+        className={`w-full outline-none focus-visible:ring-2 focus-visible:ring-accent ${placed ? "" : "invisible"}`}
         tabIndex={0}
         role="group"
         aria-label="Move graph. Arrow keys move between moves, Enter selects the path, Escape clears."
