@@ -76,3 +76,12 @@ export {
 } from "./board-fill";
 export { graphSchema, optionsSchema, exploreRequestSchema, parseGraph, LEVELS } from "./schema";
 export type * from "./types";
+export {
+  RANGE_KINDS,
+  parseRange,
+  rangeProblem,
+  reachesAt,
+  formatRange,
+  explainRange,
+  type RangeKind,
+} from "./range";

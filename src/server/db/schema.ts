@@ -19,6 +19,7 @@ import {
 import type { BoardDocument, BoardOrigin } from "@/lib/board";
 import type { Level, Outcome } from "@/lib/engine";
 import { PERMALINK_VISIBILITIES } from "@/lib/permalink";
+import { RANGE_KINDS } from "@/lib/engine/range";
 import { ROLES } from "@/lib/roles";
 
 // MariaDB rejects Drizzle's `serial()` ("serial AUTO_INCREMENT"), so every
@@ -53,6 +54,10 @@ export const games = mysqlTable(
     fastest: smallint("fastest", { unsigned: true }).notNull().default(10),
     /** Block disadvantage from which a launching punish is assumed. */
     launchAt: smallint("launch_at", { unsigned: true }).notNull().default(15),
+    /** How the game measures a move's range: free labels, or numbers in `rangeUnit`. */
+    rangeKind: mysqlEnum("range_kind", RANGE_KINDS).notNull().default("label"),
+    /** The unit of a numeric range (e.g. "m"); null when ranges are labels. */
+    rangeUnit: varchar("range_unit", { length: 12 }),
     /** The team that owns the game; null for the public demo game, read-only to everyone. */
     teamId: ref("team_id").references((): AnyMySqlColumn => teams.id, { onDelete: "cascade" }),
     version: version(),

@@ -29,6 +29,8 @@ export const DEMO_GAME = {
   fps: 60,
   fastest: 10,
   launchAt: 15,
+  rangeKind: "number" as const,
+  rangeUnit: "m",
 };
 
 export type EditionSlug = "1-0" | "1-1";
@@ -79,7 +81,7 @@ const tarrow: DemoCharacter = {
         },
       ],
       roots: [
-        root("1", first(10, hit("Quick Jab", "high", 7, [1, 8, 8], { range: "close", tags: ["poke"] })), [
+        root("1", first(10, hit("Quick Jab", "high", 7, [1, 8, 8], { range: 1.2, tags: ["poke"] })), [
           follow(",2", { gap: 0, combo: true }, hit("Jab Cross", "high", 9, [-3, 5, 5]), [
             follow(",1", { gap: 2, combo: true }, hit("Triple Jab", "high", 8, [-4, 6, 7])),
             follow(",3", { gap: 3, combo: false, comboCh: true }, hit("Cross Knee", "mid", 14, [-8, 4, KD])),
@@ -87,7 +89,7 @@ const tarrow: DemoCharacter = {
             cancel("~b", "drift", [-1, 5, 7], ["high"]),
           ]),
         ]),
-        root("2", first(12, hit("Straight", "high", 10, [-2, 7, 7], { range: "mid" })), [
+        root("2", first(12, hit("Straight", "high", 10, [-2, 7, 7], { range: 2.1 })), [
           follow(",2", { gap: -1, combo: true }, hit("Double Straight", "mid", 12, [-6, 4, 4]), [
             follow(
               ",3",
@@ -98,7 +100,7 @@ const tarrow: DemoCharacter = {
             follow(",1+2", { gap: 4, combo: false, comboCh: true }, hit("Double Palm", "mid", 18, [-10, KD, SPLAT])),
           ]),
         ]),
-        root("3", first(14, hit("Front Kick", "mid", 14, [-7, 4, 6], { range: "mid" })), [
+        root("3", first(14, hit("Front Kick", "mid", 14, [-7, 4, 6], { range: 2.1 })), [
           follow(",4", { gap: 4, combo: false, comboCh: true }, hit("Spin Hook", "high", 16, [-3, KD, KD]), [
             cancel("~b", "drift", [2, 8, 8]),
             follow(",3", { gap: 6, combo: false }, hit("Spin Low Kick", "low", 11, [-12, 2, 4]), [
@@ -106,7 +108,7 @@ const tarrow: DemoCharacter = {
             ]),
           ]),
         ]),
-        root("d+4", first(16, hit("Shin Kick", "low", 9, [e11 ? -13 : -12, 1, 3], { range: "close" })), [
+        root("d+4", first(16, hit("Shin Kick", "low", 9, [e11 ? -13 : -12, 1, 3], { range: 1.2 })), [
           follow(",1", { gap: 7, combo: false }, hit("Shin Rise Jab", "high", 8, [-1, 7, 7]), [
             follow(",2", { gap: 0, combo: true }, hit("Shin Rise Cross", "mid", 13, [-9, 3, KD])),
           ]),

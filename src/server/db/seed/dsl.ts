@@ -14,7 +14,8 @@ export interface Hit {
   onHit: Outcome;
   onCounterHit: Outcome;
   startup?: number;
-  range?: "close" | "mid" | "far";
+  /** How far the hit reaches, in the demo game's metres. */
+  range?: number;
   /** Where the move can be done from; by default read from the input (see `postureOf`). */
   from?: "standing" | "crouching" | "any";
   tags?: string[];

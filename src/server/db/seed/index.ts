@@ -123,7 +123,7 @@ async function writeCharacterEdition(tx: Tx, editionId: number, characterId: num
     onBlock: m.hit.onBlock,
     onHit: m.hit.onHit,
     onCounterHit: m.hit.onCounterHit,
-    range: m.hit.range ?? null,
+    range: m.hit.range === undefined ? null : String(m.hit.range),
     tags: m.hit.tags ?? [],
     notes: m.hit.notes ?? null,
     fromPosture: m.hit.from ?? postureOf(m.input),
