@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { RANGE_KINDS } from "./engine/range";
 import { nameSchema } from "./names";
 
 /**
@@ -54,10 +55,28 @@ export const newGameSchema = z
     fps: frames("Frames per second", 1, 240).default(60),
     fastest: frames("The opponent's fastest attack", 1, 60).default(10),
     launchAt: frames("The disadvantage from which a launch punish is assumed", 1, 120).default(15),
+    /** How the game measures a move's range: free labels, or numbers in `rangeUnit`. */
+    rangeKind: z.enum(RANGE_KINDS, { error: "Range is measured as labels or as numbers." }).default("label"),
+    rangeUnit: z
+      .string({ error: "The unit of range is text, like m." })
+      .trim()
+      .max(12, { error: "The unit of range can be at most 12 characters, like m or units." })
+      .nullish(),
     /** The first Edition, a draft, made with the game. */
     edition: editionNameSchema.default("1.0"),
   })
-  .strict();
+  .strict()
+  .superRefine((game, ctx) => {
+    if (game.rangeKind === "number" && !game.rangeUnit) {
+      ctx.addIssue({
+        code: "custom",
+        path: ["rangeUnit"],
+        message: "Name the unit the game measures range in, like m: ranges are shown with it.",
+      });
+    }
+  })
+  // A unit means nothing when ranges are labels.
+  .transform((game) => ({ ...game, rangeUnit: game.rangeKind === "number" ? (game.rangeUnit ?? null) : null }));
 export type NewGame = z.input<typeof newGameSchema>;
 
 export const newCharacterSchema = z.object({ name: characterNameSchema, summary }).strict();

@@ -10,6 +10,7 @@ import {
   type FileProblem,
   type PortableCharacter,
   type PortableEdge,
+  type ReadOptions,
 } from "@/lib/character-file";
 
 /**
@@ -94,7 +95,7 @@ const none = (message: string): EditResult => ({ ok: false, problems: [{ message
  * The character after one edit, checked whole; or what is wrong, each problem with the path of the
  * field that caused it (`move.damage`, `edge.onBlock`, `via.gapOnBlock`) so a form can show it there.
  */
-export function applyEdit(c: PortableCharacter, edit: CharacterEdit): EditResult {
+export function applyEdit(c: PortableCharacter, edit: CharacterEdit, options: ReadOptions = {}): EditResult {
   const raw = {
     character: c.character,
     stances: [...c.stances],
@@ -155,15 +156,23 @@ export function applyEdit(c: PortableCharacter, edit: CharacterEdit): EditResult
     }
   }
 
-  const checked = validateCharacter(raw, (part, index, field = []) => {
-    if (mark && part === mark.part && index === mark.index) return { path: [mark.as, ...field].join(".") };
-    if (via && part === "edges" && index === via.index) return { path: ["via", ...field].join(".") };
-    const item =
-      part === "moves" ? c.moves[index]?.key : part === "edges" && c.edges[index] ? edgeKey(c.edges[index]) : undefined;
-    return item === undefined
-      ? {}
-      : { path: [part === "moves" ? `move “${item}”` : `link “${item}”`, ...field].join(".") };
-  });
+  const checked = validateCharacter(
+    raw,
+    (part, index, field = []) => {
+      if (mark && part === mark.part && index === mark.index) return { path: [mark.as, ...field].join(".") };
+      if (via && part === "edges" && index === via.index) return { path: ["via", ...field].join(".") };
+      const item =
+        part === "moves"
+          ? c.moves[index]?.key
+          : part === "edges" && c.edges[index]
+            ? edgeKey(c.edges[index])
+            : undefined;
+      return item === undefined
+        ? {}
+        : { path: [part === "moves" ? `move “${item}”` : `link “${item}”`, ...field].join(".") };
+    },
+    options,
+  );
   if (checked.character === null) return { ok: false, problems: checked.problems };
   return { ok: true, character: checked.character, touched };
 }

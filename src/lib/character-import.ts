@@ -9,6 +9,7 @@ import {
   sizeProblem,
   type FileProblem,
   type ParseResult,
+  type ReadOptions,
 } from "@/lib/character-file";
 import type { ImportAnswer, ImportCounts } from "@/lib/dto";
 import { AppError } from "@/lib/errors";
@@ -51,15 +52,18 @@ export function streamCsv(
     size,
     onProgress,
     chunkSize = CHUNK_BYTES,
+    read,
   }: {
     delimiter: string;
     newline?: "\r\n" | "\n" | "\r";
     size: number;
     onProgress?: OnProgress;
     chunkSize?: number;
+    /** The game's way of measuring range, so a label in a numeric game is shown at its line. */
+    read?: ReadOptions;
   },
 ): Promise<ParseResult> {
-  const reader = createCsvReader();
+  const reader = createCsvReader(read);
   let shown = 0;
   return new Promise((resolve) => {
     const config = {
@@ -100,9 +104,11 @@ export async function checkCharacterFile(
   {
     onProgress,
     streamer = streamCsv,
+    read,
   }: {
     onProgress?: OnProgress;
     streamer?: (file: File, options: Parameters<typeof streamCsv>[1]) => Promise<ParseResult>;
+    read?: ReadOptions;
   } = {},
 ): Promise<ParseResult> {
   const tooBig = sizeProblem(file.size);
@@ -110,7 +116,7 @@ export async function checkCharacterFile(
   const head = new Uint8Array(await file.slice(0, HEAD_BYTES).arrayBuffer());
   const headText = new TextDecoder().decode(head);
   if (formatOf(file.name, headText) === "json") {
-    const result = await readCharacterFile(file);
+    const result = await readCharacterFile(file, read);
     onProgress?.(1);
     return result;
   }
@@ -121,6 +127,7 @@ export async function checkCharacterFile(
     newline: csvLineEnding(headText),
     size: file.size,
     onProgress,
+    read,
   });
 }
 

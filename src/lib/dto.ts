@@ -3,7 +3,7 @@
  * `src/server/db/queries/` return, route handlers answer with, and client
  * components render. Plain types only, so both sides may import them.
  */
-import type { FieldChange, Level, Outcome, StanceSheet } from "@/lib/engine";
+import type { FieldChange, Level, Outcome, RangeScale, StanceSheet } from "@/lib/engine";
 import type { GraphResponse } from "@/lib/explorer";
 import type { BoardDocument, BoardOrigin } from "@/lib/board";
 import type { BoardLinkView, PermalinkKind, PermalinkView, PermalinkVisibility, StanceLinkView } from "@/lib/permalink";
@@ -134,13 +134,15 @@ export type SharedViewDto = SharedExplorerViewDto | SharedBoardViewDto | SharedS
 
 /** One stance of a character in one Edition, as its sheet shows it (DESIGN.md, "Stance sheet"). */
 export interface StanceSheetDto {
-  game: { slug: string; name: string; fastest: number; launchAt: number };
+  game: { slug: string; name: string; fastest: number; launchAt: number; range: RangeScale };
   character: { id: number; slug: string; name: string };
   edition: { slug: string; name: string; status: "draft" | "published" };
   stance: { key: string; name: string };
   sheet: StanceSheet;
   /** By cancel edge id: the Explorer's root and path that end in that way in. */
   paths: Record<string, WayInPath>;
+  /** By stance move's node id: its range as the data gives it (read with `game.range`). */
+  ranges: Record<string, string | null>;
 }
 
 // Mix-up boards

@@ -7,11 +7,12 @@ import {
   type MoveGraph,
   type Outcome,
   type PathResult,
+  type RangeScale,
 } from "./engine";
 
 /** What GET /api/characters/[id]/graph answers, and the Explorer reads. */
 export interface GraphResponse {
-  game: { slug: string; name: string; fps: number; fastest: number; launchAt: number };
+  game: { slug: string; name: string; fps: number; fastest: number; launchAt: number; range: RangeScale };
   character: { id: number; slug: string; name: string };
   edition: EditionRef;
   editions: EditionRef[];

@@ -7,6 +7,7 @@ import {
   framesSaved,
   guardsFor,
   LEVELS,
+  reachesAt,
   startupWithin,
   type BlockClass,
   type BlockRules,
@@ -174,6 +175,8 @@ export interface MoveListView {
   stance: string;
   startupFrom: number | null;
   startupTo: number | null;
+  /** In a game that measures range in numbers: only strings whose first hit reaches this far. */
+  reach: number | null;
   sort: MoveListSort;
   dir: "asc" | "desc";
 }
@@ -184,11 +187,19 @@ export const DEFAULT_MOVE_LIST_VIEW: MoveListView = {
   stance: "any",
   startupFrom: null,
   startupTo: null,
+  reach: null,
   sort: "list",
   dir: "asc",
 };
 
 const frameCount = z.coerce.number().int().min(0).max(999).nullable().catch(null).default(null);
+/** A distance in the game's unit of range. */
+export const distanceSchema = z.coerce.number().finite().min(0).max(999.99).nullable().catch(null).default(null);
+
+/** A distance typed in a field or read from the address; null for nothing, an empty field or anything unreadable. */
+export function readDistance(value: unknown): number | null {
+  return typeof value === "string" && value.trim() !== "" ? distanceSchema.parse(value) : null;
+}
 
 /** The view from an address's search parameters; anything unreadable falls back to its default. */
 export const moveListViewSchema = z.object({
@@ -207,6 +218,7 @@ export const moveListViewSchema = z.object({
     .default("any"),
   startupFrom: frameCount,
   startupTo: frameCount,
+  reach: distanceSchema,
   sort: z.enum(SORTS).catch("list").default("list"),
   dir: z.enum(["asc", "desc"]).catch("asc").default("asc"),
 });
@@ -226,6 +238,7 @@ export function moveListSearch(current: URLSearchParams, view: MoveListView): st
   if (view.stance !== "any") params.set("stance", view.stance);
   if (view.startupFrom !== null) params.set("startupFrom", String(view.startupFrom));
   if (view.startupTo !== null) params.set("startupTo", String(view.startupTo));
+  if (view.reach !== null) params.set("reach", String(view.reach));
   if (view.sort !== "list") params.set("sort", view.sort);
   if (view.sort !== "list" && view.dir !== "asc") params.set("dir", view.dir);
   const search = params.toString();
@@ -238,11 +251,15 @@ export function hasMoveListFilters(view: MoveListView): boolean {
     view.ending !== "any" ||
     view.stance !== "any" ||
     view.startupFrom !== null ||
-    view.startupTo !== null
+    view.startupTo !== null ||
+    view.reach !== null
   );
 }
 
-/** Whether a string passes the filters: a hit of the level, an ending of the class, its stance, its first hit's startup. */
+/**
+ * Whether a string passes the filters: a hit of the level, an ending of the class, its stance, its
+ * first hit's startup, and its first hit reaching the distance (a string starts only if it connects).
+ */
 export function matchesView(row: StringRow, view: MoveListView): boolean {
   return (
     (view.level === "any" || row.levels.includes(view.level)) &&
@@ -251,7 +268,8 @@ export function matchesView(row: StringRow, view: MoveListView): boolean {
       (view.stance === NEUTRAL_SECTION
         ? row.section === NEUTRAL_SECTION
         : row.section === stanceSection(view.stance))) &&
-    startupWithin(row.startup, view.startupFrom, view.startupTo)
+    startupWithin(row.startup, view.startupFrom, view.startupTo) &&
+    (view.reach === null || reachesAt(row.root.range, view.reach))
   );
 }
 

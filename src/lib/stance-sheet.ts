@@ -3,6 +3,8 @@ import { pathKey } from "@/lib/explorer";
 
 /** The address parameter of the filter "only cancels that turn a punishable ending safe" ("1": on). */
 export const SAFE_ONLY_PARAM = "safe";
+/** The address parameter of the filter "stance moves that reach at d" (a distance in the game's unit). */
+export const REACH_PARAM = "reach";
 
 /** A stance node's id in the graph from the stance's key, as the character file names it. */
 export const STANCE_NODE_PREFIX = "stance:";

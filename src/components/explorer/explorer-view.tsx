@@ -211,6 +211,7 @@ export function ExplorerView({ characterId, root, pinned = false, share, editor,
                 path={selected}
                 graph={sub}
                 rules={rules}
+                range={data.game.range}
                 alternatives={alternatives}
                 onPickAlternative={pickAlternative}
               />

@@ -10,9 +10,12 @@ import {
   explainGap,
   explainOnBlock,
   explainOnHit,
+  explainRange,
   formatOutcome,
+  formatRange,
   type MoveGraph,
   type PathResult,
+  type RangeScale,
 } from "@/lib/engine";
 import { hitOnBlockBeforeCancel } from "@/lib/explorer";
 
@@ -32,12 +35,15 @@ function PathCardView({
   path,
   graph,
   rules,
+  range,
   alternatives,
   onPickAlternative,
 }: {
   path: PathResult;
   graph: MoveGraph;
   rules: BlockRules;
+  /** How the game measures range: each hit's range reads in it. */
+  range: RangeScale;
   alternatives: PathResult[];
   onPickAlternative: (p: PathResult) => void;
 }) {
@@ -75,6 +81,11 @@ function PathCardView({
               <span className="w-5 text-right font-mono text-xs text-ink-400">{i + 1}</span>
               <LevelBadge level={path.levels[i]!} />
               <span className="truncate text-ink-200">{n.name ?? n.input}</span>
+              {formatRange(n.range, range) !== null && (
+                <span className="shrink-0 font-mono text-xs text-ink-400" data-field="range">
+                  <Explained explain={explainRange(n.range, range)}>{formatRange(n.range, range)}</Explained>
+                </span>
+              )}
               <span className="ml-auto text-xs text-ink-400" data-field="guards">
                 <Explained explain={`A ${path.levels[i]} is stopped by: ${path.guards[i]!.join(", ")}.`}>
                   {path.guards[i]!.map((g) => GUARD_WORD[g]).join(" / ")}

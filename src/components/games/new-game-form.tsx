@@ -2,21 +2,31 @@
 
 import { zodResolver } from "@hookform/resolvers/zod";
 import { useRouter } from "next/navigation";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
-import { primaryButton, showRefusal, TextInput } from "@/components/forms/fields";
+import { control, described, Field, primaryButton, showRefusal, TextInput } from "@/components/forms/fields";
 import { newGameSchema } from "@/lib/authoring";
 import { sendJson } from "@/lib/fetcher";
 
-const FIELDS = ["name", "summary", "fps", "fastest", "launchAt", "edition"];
+const FIELDS = ["name", "summary", "fps", "fastest", "launchAt", "rangeKind", "rangeUnit", "edition"];
 
 /** A coach or owner starts a game of the team's own: its settings and the name of its first Edition. */
 export function NewGameForm({ team }: { team: string }) {
   const router = useRouter();
   const form = useForm<z.input<typeof newGameSchema>, unknown, z.output<typeof newGameSchema>>({
     resolver: zodResolver(newGameSchema),
-    defaultValues: { name: "", summary: "", fps: 60, fastest: 10, launchAt: 15, edition: "1.0" },
+    defaultValues: {
+      name: "",
+      summary: "",
+      fps: 60,
+      fastest: 10,
+      launchAt: 15,
+      rangeKind: "label",
+      rangeUnit: "",
+      edition: "1.0",
+    },
   });
+  const rangeKind = useWatch({ control: form.control, name: "rangeKind" });
   const { errors, isSubmitting } = form.formState;
 
   const submit = form.handleSubmit(async (values) => {
@@ -60,6 +70,20 @@ export function NewGameForm({ team }: { team: string }) {
         hint="The disadvantage from which a launcher is assumed to punish"
         type="number"
       />
+      <Field
+        id="game-range-kind"
+        label="Range is measured as"
+        hint="Numbers let the move list and stance sheets find what reaches at a distance"
+        error={errors.rangeKind}
+      >
+        <select {...form.register("rangeKind")} {...described("game-range-kind", errors.rangeKind)} className={control}>
+          <option value="label">labels (close, far…)</option>
+          <option value="number">numbers in a unit</option>
+        </select>
+      </Field>
+      {rangeKind === "number" && (
+        <TextInput {...input} name="rangeUnit" id="game-range-unit" label="Unit of range" hint="e.g. m" />
+      )}
       <TextInput {...input} name="summary" id="game-summary" label="Summary (optional)" />
       <div className="flex items-center gap-3 sm:col-span-2">
         <button type="submit" disabled={isSubmitting} className={primaryButton}>

@@ -15,6 +15,7 @@ import {
   type UploadOutcome,
 } from "@/lib/character-import";
 import type { ImportAnswer, ImportCounts, ImportSection } from "@/lib/dto";
+import type { RangeScale } from "@/lib/engine";
 
 interface Named {
   slug: string;
@@ -54,8 +55,20 @@ function refusedBy(file: File, sent: Extract<UploadOutcome, { ok: false }>): Sta
  * CSV streamed with a progress bar), then sent to the server for a preview of every change,
  * and written only when the coach presses Import.
  */
-export function CharacterImport({ game, character, edition }: { game: string; character: Named; edition: Named }) {
+export function CharacterImport({
+  game,
+  character,
+  edition,
+  range,
+}: {
+  game: string;
+  character: Named;
+  edition: Named;
+  /** The game's way of measuring range: in a numeric game a label is shown at its line before sending. */
+  range: RangeScale;
+}) {
   const [stage, setStage] = useState<Stage>({ kind: "idle" });
+  const { kind: rangeKind, unit: rangeUnit } = range;
   // Each chosen file gets a number; the answers for a file chosen before are dropped.
   const attempt = useRef(0);
   const resultHeading = useRef<HTMLHeadingElement>(null);
@@ -66,6 +79,7 @@ export function CharacterImport({ game, character, edition }: { game: string; ch
       const current = () => attempt.current === mine;
       setStage({ kind: "reading", file, progress: 0 });
       const local = await checkCharacterFile(file, {
+        read: { range: { kind: rangeKind, unit: rangeUnit } },
         onProgress: (progress) => current() && setStage({ kind: "reading", file, progress }),
       });
       if (!current()) return;
@@ -84,7 +98,7 @@ export function CharacterImport({ game, character, edition }: { game: string; ch
       if (!current()) return;
       setStage(sent.ok ? { kind: "preview", file, answer: sent.answer } : refusedBy(file, sent));
     },
-    [game, edition.slug, character.slug],
+    [game, edition.slug, character.slug, rangeKind, rangeUnit],
   );
 
   const apply = async (file: File, answer: ImportAnswer) => {

@@ -3,11 +3,12 @@
 import Link from "next/link";
 import { usePathname, useSearchParams } from "next/navigation";
 import { Fragment, useMemo, useState, type ReactNode } from "react";
-import type { MoveList } from "@/lib/dto";
+import type { MoveEntry, MoveList } from "@/lib/dto";
 import { BLOCK_CLASS_STYLE, BlockClassTag, type BlockRules } from "@/components/ui/block-class";
 import { ClearFilters, NoRows } from "@/components/ui/filter-form";
 import { Frames } from "@/components/ui/frames";
 import { LevelBadge } from "@/components/ui/level-badge";
+import { DistanceInput, useFollowedText } from "@/components/ui/number-field";
 import { SortableHeading } from "@/components/ui/sort-button";
 import type { QuickField } from "@/lib/edit-forms";
 import {
@@ -18,9 +19,12 @@ import {
   explainGap,
   explainOnBlock,
   explainOnHit,
+  explainRange,
+  formatRange,
   framesSavedLabel,
   gapJails,
   LEVELS,
+  type RangeScale,
 } from "@/lib/engine";
 import {
   DEFAULT_MOVE_LIST_VIEW,
@@ -117,9 +121,12 @@ export function MoveTable({
   stanceSheets,
   edition,
   editBase,
+  range,
 }: {
   list: MoveList;
   rules: BlockRules;
+  /** How the game measures range: with numbers, the list filters by what reaches a distance. */
+  range: RangeScale;
   /** The character's Explorer address, without the move. */
   exploreBase: string;
   /** Where the character's stance sheets are: each stance section links to its own. */
@@ -195,6 +202,16 @@ export function MoveTable({
             <StartupInput label="Startup to" value={view.startupTo} onChange={(n) => go({ startupTo: n })} />
           </span>
         </fieldset>
+        {range.kind === "number" && (
+          <DistanceInput
+            stacked
+            label="First hit reaches at"
+            title="Only strings whose first hit connects at this distance"
+            unit={range.unit}
+            value={view.reach}
+            onChange={(d) => go({ reach: d })}
+          />
+        )}
         <Choice
           label="Order"
           value={view.sort === "list" ? "list" : `${view.sort} ${view.dir}`}
@@ -288,6 +305,7 @@ export function MoveTable({
                       }}
                       exploreHref={`${exploreBase}/${encodeURIComponent(row.root.key)}?edition=${edition}`}
                       editBase={editBase}
+                      range={range}
                     />
                   ))}
                 </table>
@@ -309,13 +327,7 @@ function StartupInput({
   value: number | null;
   onChange: (n: number | null) => void;
 }) {
-  const [text, setText] = useState(value === null ? "" : String(value));
-  const [seen, setSeen] = useState(value);
-  if (seen !== value) {
-    // The address changed (Clear filters, back): the field follows it.
-    setSeen(value);
-    setText(value === null ? "" : String(value));
-  }
+  const [text, setText] = useFollowedText(value);
   return (
     <input
       type="number"
@@ -361,6 +373,7 @@ function StringRows({
   onToggle,
   exploreHref,
   editBase,
+  range,
 }: {
   id: string;
   row: StringRow;
@@ -369,6 +382,7 @@ function StringRows({
   onToggle: () => void;
   exploreHref: string;
   editBase: string | null;
+  range: RangeScale;
 }) {
   const { root } = row;
   const branches = row.steps.filter((s) => s.kind === "hit").length - row.mainLine.length;
@@ -397,6 +411,7 @@ function StringRows({
                 {root.input}
               </Link>
               <span className="block text-xs text-ink-400">{root.name}</span>
+              <Reach move={root} range={range} />
               <span className="block text-xs text-ink-400 sm:hidden">
                 startup {root.startup ?? "—"} · up to {row.bestDamage} damage
               </span>
@@ -433,7 +448,7 @@ function StringRows({
       {row.steps.map((step, n) => (
         <Fragment key={`${step.kind} ${step.kind === "hit" ? step.move.id : step.cancel.id}`}>
           {step.kind === "hit" ? (
-            <HitRow step={step} rules={rules} hidden={!open} id={`${id}-${n}`} editBase={editBase} />
+            <HitRow step={step} rules={rules} hidden={!open} id={`${id}-${n}`} editBase={editBase} range={range} />
           ) : (
             <CancelRow step={step} rules={rules} hidden={!open} id={`${id}-${n}`} />
           )}
@@ -444,6 +459,17 @@ function StringRows({
 }
 
 const indent = (depth: number) => ({ paddingLeft: `${0.75 + depth * 0.6}rem` });
+
+/** A hit's range as the game measures it ("reaches 1.2 m"), explained on hover; nothing when the data has none. */
+function Reach({ move, range }: { move: MoveEntry; range: RangeScale }) {
+  const text = formatRange(move.range, range);
+  if (text === null) return null;
+  return (
+    <span className="block text-[11px] text-ink-400" data-field="range" title={explainRange(move.range, range)}>
+      {range.kind === "number" ? `reaches ${text}` : text}
+    </span>
+  );
+}
 
 /** The three outcomes of a step, labelled, so a screen reader and a phone read them without the header. */
 function Outcomes({
@@ -481,12 +507,14 @@ function HitRow({
   hidden,
   id,
   editBase,
+  range,
 }: {
   step: HitStep;
   rules: BlockRules;
   hidden: boolean;
   id: string;
   editBase: string | null;
+  range: RangeScale;
 }) {
   const { move } = step;
   // A number as the list shows it; for a coach on a draft, a button that fixes it in place.
@@ -505,7 +533,7 @@ function HitRow({
       shown
     );
   const via = move.via;
-  const notes = [move.range, ...move.tags, move.notes].filter(Boolean).join(" · ");
+  const notes = [...move.tags, move.notes].filter(Boolean).join(" · ");
   const startup = move.startup ?? <span className="text-ink-400">—</span>;
   return (
     <tr data-move-key={move.key} id={id} hidden={hidden} className="border-t border-ink-850 bg-ink-900/40">
@@ -522,6 +550,7 @@ function HitRow({
             guess point
           </span>
         )}
+        <Reach move={move} range={range} />
         {notes && <span className="block text-[11px] text-ink-400">{notes}</span>}
         <span className="block text-xs text-ink-400 sm:hidden">
           startup <span data-field="startup">{fixable("startup", startup)}</span> · damage{" "}

@@ -8,6 +8,7 @@ import { BlockClassTag } from "@/components/ui/block-class";
 import { Explained } from "@/components/ui/explained";
 import { Frames } from "@/components/ui/frames";
 import { LevelBadge } from "@/components/ui/level-badge";
+import { DistanceInput } from "@/components/ui/number-field";
 import {
   explainAfterCancel,
   explainAutoGuard,
@@ -15,9 +16,12 @@ import {
   explainFramesSaved,
   explainOnBlock,
   explainOnHit,
+  explainRange,
   FOLLOW_UP_WORD,
+  formatRange,
   framesSavedLabel,
   gapJails,
+  reachesAt,
   turnsPunishableSafe,
   type StanceGridCell,
   type StanceMove,
@@ -25,7 +29,7 @@ import {
 } from "@/lib/engine";
 import type { StanceSheetDto } from "@/lib/dto";
 import { explorerHref, VIEW_BOUNDS } from "@/lib/permalink";
-import { SAFE_ONLY_PARAM } from "@/lib/stance-sheet";
+import { REACH_PARAM, SAFE_ONLY_PARAM } from "@/lib/stance-sheet";
 
 const th = "px-2 py-2 text-left font-medium text-ink-400 whitespace-nowrap";
 const td = "px-2 py-1.5 align-top whitespace-nowrap";
@@ -38,17 +42,21 @@ const td = "px-2 py-1.5 align-top whitespace-nowrap";
 export function StanceSheetView({
   data,
   safeOnly: initialSafeOnly,
+  reach: initialReach = null,
   linkToExplorer,
   actions,
 }: {
   data: StanceSheetDto;
   safeOnly: boolean;
+  /** In a game that measures range in numbers: only the stance's moves that reach this far. */
+  reach?: number | null;
   /** Rows open their path in the live Explorer (not on a shared link, which may outlive access). */
   linkToExplorer: boolean;
   /** Buttons beside the export (Share). */
   actions?: ReactNode;
 }) {
   const [safeOnly, setSafeOnly] = useState(initialSafeOnly);
+  const [reach, setReach] = useState(initialReach);
   const sheetRef = useRef<HTMLDivElement>(null);
   const rules = { fastest: data.game.fastest, launchAt: data.game.launchAt };
   const { sheet } = data;
@@ -56,12 +64,21 @@ export function StanceSheetView({
     ? sheet.waysIn.filter((w) => turnsPunishableSafe(w.raw.onBlock, w.cancelled.onBlock, rules))
     : sheet.waysIn;
 
+  const moves = reach === null ? sheet.moves : sheet.moves.filter((m) => reachesAt(data.ranges[m.move], reach));
+
+  const keep = (param: string, value: string | null) => {
+    const url = new URL(window.location.href);
+    if (value !== null) url.searchParams.set(param, value);
+    else url.searchParams.delete(param);
+    window.history.replaceState(null, "", url);
+  };
   const toggle = (on: boolean) => {
     setSafeOnly(on);
-    const url = new URL(window.location.href);
-    if (on) url.searchParams.set(SAFE_ONLY_PARAM, "1");
-    else url.searchParams.delete(SAFE_ONLY_PARAM);
-    window.history.replaceState(null, "", url);
+    keep(SAFE_ONLY_PARAM, on ? "1" : null);
+  };
+  const changeReach = (d: number | null) => {
+    setReach(d);
+    keep(REACH_PARAM, d === null ? null : String(d));
   };
 
   const exploreHref = (w: StanceWayIn) => {
@@ -99,6 +116,14 @@ export function StanceSheetView({
           />
           Only cancels that turn a punishable ending safe
         </label>
+        {data.game.range.kind === "number" && (
+          <DistanceInput
+            label="Stance moves that reach at"
+            unit={data.game.range.unit}
+            value={reach}
+            onChange={changeReach}
+          />
+        )}
         <div className="ml-auto flex items-center gap-2">
           {actions}
           <ExportSheetButton target={sheetRef} fileName={fileName} />
@@ -113,9 +138,9 @@ export function StanceSheetView({
           rules={rules}
           exploreHref={exploreHref}
         />
-        <Grid data={data} waysIn={waysIn} />
+        <Grid data={data} waysIn={waysIn} moves={moves} reach={reach} />
       </div>
-      <FromTheStance data={data} rules={rules} />
+      <FromTheStance data={data} rules={rules} moves={moves} reach={reach} />
     </div>
   );
 }
@@ -239,8 +264,25 @@ function WaysIn({
   );
 }
 
-function Grid({ data, waysIn }: { data: StanceSheetDto; waysIn: StanceWayIn[] }) {
-  const { moves, grid } = data.sheet;
+/** Why a list of the stance's moves is empty: none at all, or none that reaches the distance asked for. */
+function noMoves(data: StanceSheetDto, reach: number | null): string {
+  return data.sheet.moves.length === 0 || reach === null
+    ? `${data.stance.name} has no moves of its own in ${data.edition.name}.`
+    : `No move from ${data.stance.name} reaches at ${formatRange(String(reach), data.game.range)}. Clear the distance to see all ${data.sheet.moves.length}.`;
+}
+
+function Grid({
+  data,
+  waysIn,
+  moves,
+  reach,
+}: {
+  data: StanceSheetDto;
+  waysIn: StanceWayIn[];
+  moves: StanceMove[];
+  reach: number | null;
+}) {
+  const { grid } = data.sheet;
   const cells = new Map<string, StanceGridCell>(grid.map((c) => [`${c.cancel}\n${c.enter}`, c]));
   const byCancel = new Map(data.sheet.waysIn.map((w) => [w.cancel, w]));
   return (
@@ -251,7 +293,7 @@ function Grid({ data, waysIn }: { data: StanceSheetDto; waysIn: StanceWayIn[] })
       {waysIn.length === 0 || moves.length === 0 ? (
         <p className="rounded-lg border border-dashed border-ink-700 p-4 text-ink-300">
           {moves.length === 0
-            ? `${data.stance.name} has no moves of its own in ${data.edition.name}, so there is nothing to follow a cancel with.`
+            ? `${noMoves(data, reach)} There is nothing to follow a cancel with.`
             : "No way in to pair with the stance's moves."}
         </p>
       ) : (
@@ -342,21 +384,28 @@ function GridCell({
   );
 }
 
-function FromTheStance({ data, rules }: { data: StanceSheetDto; rules: { fastest: number; launchAt: number } }) {
-  const { moves } = data.sheet;
+function FromTheStance({
+  data,
+  rules,
+  moves,
+  reach,
+}: {
+  data: StanceSheetDto;
+  rules: { fastest: number; launchAt: number };
+  moves: StanceMove[];
+  reach: number | null;
+}) {
   return (
     <section aria-labelledby="from-stance" className="space-y-2">
       <h2 id="from-stance" className="text-sm font-semibold tracking-wider text-ink-400 uppercase">
         From the stance
       </h2>
       {moves.length === 0 ? (
-        <p className="rounded-lg border border-dashed border-ink-700 p-4 text-ink-300">
-          {data.stance.name} has no moves of its own in {data.edition.name}.
-        </p>
+        <p className="rounded-lg border border-dashed border-ink-700 p-4 text-ink-300">{noMoves(data, reach)}</p>
       ) : (
         <div className="overflow-x-auto rounded-lg border border-ink-800">
           <table className="min-w-full text-sm">
-            <HeaderRow labels={["Input", "Level", "Startup", "Damage", "On block"]} />
+            <HeaderRow labels={["Input", "Level", "Startup", "Damage", "On block", "Range"]} />
             <tbody>
               {moves.map((m) => (
                 <tr key={m.enter} data-stance-move={m.move} className="border-t border-ink-850">
@@ -373,6 +422,11 @@ function FromTheStance({ data, rules }: { data: StanceSheetDto; rules: { fastest
                       <Frames value={m.onBlock} />
                     </Explained>
                     <BlockClassTag onBlock={m.onBlock} rules={rules} />
+                  </td>
+                  <td className={`${td} font-mono`}>
+                    <Explained explain={explainRange(data.ranges[m.move], data.game.range)} field="range">
+                      {formatRange(data.ranges[m.move], data.game.range) ?? "—"}
+                    </Explained>
                   </td>
                 </tr>
               ))}

@@ -4,7 +4,7 @@ import { duplicateSlugs } from "./json";
 import { capProblems, type FileProblem, type ParseResult } from "./problems";
 import { type PortableCharacter, type PortableEdge, type PortableMove, type PortableOutcome } from "./schema";
 import { stripBom } from "./text";
-import { validateCharacter, type Locate, type Part, type RawCharacter, type Where } from "./validate";
+import { validateCharacter, type Locate, type Part, type RawCharacter, type ReadOptions, type Where } from "./validate";
 
 /**
  * Framefork's CSV format: one row per thing a coach writes down, told apart by the `row`
@@ -168,7 +168,7 @@ export interface CsvReader {
  * a browser can feed it from `Papa.parse(file, { step })` and show progress as rows come.
  * Pass `skipEmptyLines: false`: the reader counts blank lines itself to keep line numbers true.
  */
-export function createCsvReader(): CsvReader {
+export function createCsvReader(options: ReadOptions = {}): CsvReader {
   let nextLine = 1;
   let header: { line: number; names: string[] } | null = null;
   const rows: Row[] = [];
@@ -199,7 +199,7 @@ export function createCsvReader(): CsvReader {
     finish() {
       if (header === null) return { ok: false, problems: [{ message: "the file is empty" }] };
       if (problems.length > 0) return { ok: false, problems: capProblems(problems) };
-      return readRows(header, rows);
+      return readRows(header, rows, options);
     },
   };
 }
@@ -223,10 +223,10 @@ export function csvDelimiter(start: string): "," | ";" | "\t" {
 export const csvParseConfig = (delimiter: string) => ({ header: false, skipEmptyLines: false, delimiter }) as const;
 
 /** Parses a character or a whole Edition from CSV text (a string, on the server). */
-export function parseCharactersCsv(input: string): ParseResult {
+export function parseCharactersCsv(input: string, options: ReadOptions = {}): ParseResult {
   const text = stripBom(input);
   if (text.trim() === "") return { ok: false, problems: [{ message: "the file is empty" }] };
-  const reader = createCsvReader();
+  const reader = createCsvReader(options);
   Papa.parse<string[]>(text, { ...csvParseConfig(csvDelimiter(text)), step: (r) => reader.push(r) });
   return reader.finish();
 }
@@ -264,7 +264,7 @@ const FIELD_COLUMN: Record<string, CsvColumn> = {
   kind: "row",
 };
 
-function readRows(header: { line: number; names: string[] }, rows: Row[]): ParseResult {
+function readRows(header: { line: number; names: string[] }, rows: Row[], options: ReadOptions): ParseResult {
   const problems: FileProblem[] = [];
   const known = new Set<string>([...CSV_COLUMNS, "character"]);
   const index = new Map<CsvColumn, number>();
@@ -548,7 +548,7 @@ function readRows(header: { line: number; names: string[] }, rows: Row[]): Parse
       const w: Where = { line: row?.line };
       return column === undefined ? w : { ...w, column };
     };
-    const r = validateCharacter(b.raw, locate);
+    const r = validateCharacter(b.raw, locate, options);
     if (r.character) {
       characters.push(r.character);
       characterLines.push(first.line);

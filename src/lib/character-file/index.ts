@@ -15,6 +15,7 @@ import { createCsvReader, exportCharacterCsv, exportEditionCsv, parseCharactersC
 import { exportCharacterJson, exportEditionJson, parseCharactersJson } from "./json";
 import type { ParseResult } from "./problems";
 import { decodeText, encodingProblem, sizeProblem } from "./text";
+import type { ReadOptions } from "./validate";
 
 export {
   CHARACTER_FORMAT,
@@ -56,7 +57,7 @@ export {
   type CsvStep,
 } from "./csv";
 export { MAX_JSON_DEPTH } from "./json";
-export { validateCharacter } from "./validate";
+export { validateCharacter, type ReadOptions } from "./validate";
 export { decodeText, encodingProblem, sizeProblem };
 export {
   createCsvReader,
@@ -79,22 +80,27 @@ export function formatOf(name: string, text: string): FileFormat {
 }
 
 /** A file's bytes (already read) as characters, or the problems with it. */
-export function parseCharacterFile(name: string, bytes: Uint8Array): ParseResult {
+export function parseCharacterFile(name: string, bytes: Uint8Array, options: ReadOptions = {}): ParseResult {
   const decoded = decodeText(bytes);
   if (!decoded.ok) return { ok: false, problems: [decoded.problem] };
-  return formatOf(name, decoded.text) === "json" ? parseCharactersJson(decoded.text) : parseCharactersCsv(decoded.text);
+  return formatOf(name, decoded.text) === "json"
+    ? parseCharactersJson(decoded.text, options)
+    : parseCharactersCsv(decoded.text, options);
 }
 
 /**
  * A file as a browser's `File` or a request's form field gives it: its size is checked
  * before a byte is read, so an oversized upload is refused without holding it in memory.
  */
-export async function readCharacterFile(file: {
-  name: string;
-  size: number;
-  arrayBuffer(): Promise<ArrayBuffer>;
-}): Promise<ParseResult> {
+export async function readCharacterFile(
+  file: {
+    name: string;
+    size: number;
+    arrayBuffer(): Promise<ArrayBuffer>;
+  },
+  options: ReadOptions = {},
+): Promise<ParseResult> {
   const tooBig = sizeProblem(file.size);
   if (tooBig) return { ok: false, problems: [tooBig] };
-  return parseCharacterFile(file.name, new Uint8Array(await file.arrayBuffer()));
+  return parseCharacterFile(file.name, new Uint8Array(await file.arrayBuffer()), options);
 }

@@ -2,7 +2,7 @@ import { z } from "zod";
 import { capProblems, coachErrorMap, formatPath, type FileProblem, type ParseResult } from "./problems";
 import { CHARACTER_FORMAT, EDITION_FORMAT, FORMAT_VERSION, type PortableCharacter } from "./schema";
 import { jsonNestingDepth, stripBom } from "./text";
-import { validateCharacter, type Locate } from "./validate";
+import { validateCharacter, type Locate, type ReadOptions } from "./validate";
 
 /**
  * Framefork's JSON format. One character:
@@ -38,7 +38,7 @@ function fail(problems: FileProblem[]): ParseResult {
 }
 
 /** Parses a character or an Edition file (one or several characters) from JSON text. */
-export function parseCharactersJson(input: string): ParseResult {
+export function parseCharactersJson(input: string, options: ReadOptions = {}): ParseResult {
   const text = stripBom(input);
   if (text.trim() === "") return fail([{ message: "the file is empty" }]);
   if (jsonNestingDepth(text, MAX_JSON_DEPTH) > MAX_JSON_DEPTH) {
@@ -90,7 +90,7 @@ export function parseCharactersJson(input: string): ParseResult {
     const locate: Locate = (part, index, field = []) => ({
       path: formatPath([...prefix(i), part, ...(part === "character" ? [] : [index]), ...field]),
     });
-    const r = validateCharacter(raw, locate);
+    const r = validateCharacter(raw, locate, options);
     if (r.character) characters.push(r.character);
     else problems.push(...r.problems);
   });

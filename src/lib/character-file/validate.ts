@@ -1,4 +1,5 @@
 import type { z } from "zod";
+import { rangeProblem, type RangeScale } from "../engine/range";
 import { graphIssues } from "../engine/schema";
 import { coachErrorMap, formatProblem, type FileProblem } from "./problems";
 import {
@@ -18,6 +19,12 @@ import {
 } from "./schema";
 
 export type Part = "character" | "stances" | "moves" | "edges";
+
+/** What a file is read against beyond its own format: the game's way of measuring range. */
+export interface ReadOptions {
+  /** Given for a game that measures range in numbers: each move's range must then be one. */
+  range?: RangeScale;
+}
 export type Where = Omit<FileProblem, "message">;
 
 /**
@@ -61,6 +68,7 @@ function where(w: Where): string {
 export function validateCharacter(
   raw: RawCharacter,
   locate: Locate,
+  options: ReadOptions = {},
 ): { character: PortableCharacter; problems: [] } | { character: null; problems: FileProblem[] } {
   const problems: FileProblem[] = [];
   const report = (w: Where, message: string) => problems.push({ ...w, message });
@@ -114,6 +122,8 @@ export function validateCharacter(
     if (m.stance !== null && !stanceAt.has(m.stance)) {
       report(locate("moves", index, ["stance"]), `no stance has the key "${m.stance}"`);
     }
+    const range = options.range ? rangeProblem(m.range, options.range) : null;
+    if (range !== null) report(locate("moves", index, ["range"]), range);
   });
 
   const edges: (PortableEdge & { index: number })[] = [];

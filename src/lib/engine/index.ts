@@ -84,4 +84,5 @@ export {
   formatRange,
   explainRange,
   type RangeKind,
+  type RangeScale,
 } from "./range";

@@ -1,4 +1,4 @@
-import type { Locator, Page } from "@playwright/test";
+import { expect, type Locator, type Page } from "@playwright/test";
 
 /** The Explorer: /games/[game]/[character]/explore/[move]. */
 export class ExplorerPage {
@@ -14,6 +14,17 @@ export class ExplorerPage {
 
   node(id: string): Locator {
     return this.graph.locator(`[data-node-id="${id}"]`);
+  }
+
+  /**
+   * Selects the path to a node with a click, as a player does, and waits until the path overlay
+   * marks it. A click that lands while a slow phone still lays the page out is tried again.
+   */
+  async select(id: string) {
+    await expect(async () => {
+      await this.node(id).click({ timeout: 5_000 });
+      await expect(this.pathMark(id)).toBeAttached({ timeout: 2_000 });
+    }).toPass({ timeout: 20_000 });
   }
 
   /** The ring the path overlay draws around a node of the selected path. */

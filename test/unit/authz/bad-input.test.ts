@@ -19,7 +19,7 @@ import { setSession } from "./session-mock";
 import { closeDb, getDb } from "@/server/db";
 import { listMembers, listMyTeams } from "@/server/db/queries/teams";
 import { auditLog, boards, characters, editions, games, invites, permalinks, users } from "@/server/db/schema";
-import { boardSave, newStanceLink, newBoard, VIEW, world, type World, newLink, newFollowUp } from "./world";
+import { boardSave, newStanceLink, newBoard, newGame, VIEW, world, type World, newLink, newFollowUp } from "./world";
 
 vi.mock("@/server/auth", () => import("./session-mock"));
 vi.mock("@/server/mail", async (original) => ({
@@ -148,8 +148,8 @@ const ROUTES: BodyRoute[] = [
     name: "POST /api/teams/[team]/games",
     handler: createGame as Handler,
     params: (w) => ({ team: w.team.slug }),
-    good: () => ({ name: "Night Circuit", fps: 60, fastest: 10, launchAt: 15, edition: "1.0" }),
-    text: ["name", "edition"],
+    good: () => newGame("Night Circuit"),
+    text: ["name", "edition", "rangeKind", "rangeUnit"],
     stored: storedOfGames,
   },
   {

@@ -4,7 +4,7 @@ import type { SessionUser } from "@/server/auth";
 import { missingRows, pathParams, routeHandlers, routeUrl, serverActions, type Action } from "./inventory";
 import { tableChecksums, runOnPrivateDatabase } from "./private-database";
 import { setSession } from "./session-mock";
-import { boardSave, newStanceLink, newBoard, VIEW, world, type World, newLink, newFollowUp } from "./world";
+import { boardSave, newStanceLink, newBoard, newGame, VIEW, world, type World, newLink, newFollowUp } from "./world";
 import { ONE_MOVE_PATHS_REQUEST } from "../../fixtures/paths-request";
 import { runAfterAnswer } from "../auth/request-mock";
 
@@ -200,7 +200,7 @@ const ROUTES: Record<string, FuzzRow | { overHttp: string }> = {
   "DELETE /api/permalinks/[slug]": {},
   "POST /api/invites/accept": { good: () => ({ token: w.pending.token }) },
   "POST /api/teams/[team]/games": {
-    good: () => ({ name: "Fuzz Rumble", fps: 60, fastest: 10, launchAt: 15, edition: "1.0", summary: "x" }),
+    good: () => ({ ...newGame("Fuzz Rumble"), summary: "x" }),
   },
   "POST /api/games/[game]/characters": { good: () => ({ name: "Fuzz Fighter", summary: "x" }) },
   "POST /api/games/[game]/editions": { good: () => ({ name: "0.2", releasedOn: "2026-12-01", notes: "x" }) },

@@ -200,6 +200,17 @@ export const newStanceLink = (w: Pick<World, "team" | "demoCharacterId">, visibi
 });
 
 /** The body of PUT /api/teams/[team]/boards/[board]: the first version, retitled. */
+/** A good body for POST /api/teams/[team]/games: every setting given, range in numbers. */
+export const newGame = (name: string) => ({
+  name,
+  fps: 60,
+  fastest: 10,
+  launchAt: 15,
+  rangeKind: "number",
+  rangeUnit: "m",
+  edition: "1.0",
+});
+
 export const boardSave = () => ({ version: 1, title: "Pressure, second look", document: boardDocument() });
 
 /** A draft Edition of the team's game (the next one, started by its owner), for the changes only a draft takes. */

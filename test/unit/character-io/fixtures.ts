@@ -1,3 +1,4 @@
+import type { NewGame } from "@/lib/authoring";
 import { and, count, eq } from "drizzle-orm";
 import type { PortableCharacter, PortableMove } from "@/lib/character-file";
 import { getDb } from "@/server/db";
@@ -8,13 +9,17 @@ import { auditLog, characters, edges, moves, stances } from "@/server/db/schema"
 import { makeUser } from "../teams/fixtures";
 
 /** A coach's team with a game of its own: its first Edition is a draft, and it has one character. */
-export async function teamWithDraft(character: { slug: string; name: string; summary: string | null }) {
+export async function teamWithDraft(
+  character: { slug: string; name: string; summary: string | null },
+  /** The game's settings beyond its name, e.g. a numeric range. */
+  settings: Omit<NewGame, "name"> = {},
+) {
   const coach = await makeUser("coach");
   const team = await createTeam({ name: `Import Crew ${coach.id.slice(0, 6)}`, ownerId: coach.id });
   const { game, edition } = await createGame({
     teamId: team.id,
     actorId: coach.id,
-    input: { name: `Import Game ${coach.id.slice(0, 6)}`, edition: "1.0" },
+    input: { name: `Import Game ${coach.id.slice(0, 6)}`, edition: "1.0", ...settings },
   });
   const [made] = await getDb()
     .insert(characters)

@@ -56,13 +56,18 @@ const after = (from: MoveEntry, input: string, gapOnBlock = 0) => ({
 
 // Tarrow-like, invented: 1 ,2 then a guess of ,1 (high) ,3 (mid) or ,4 (low), or ~b into Drift.
 function sample(): MoveList {
-  const a = hit("1", "high", 7, [1, 8, 8], { startup: 10 });
+  const a = hit("1", "high", 7, [1, 8, 8], { startup: 10, range: "1.2" });
   const b = hit("1,2", "high", 9, [-3, 5, 5], after(a, ",2"));
   const c = hit("1,2,1", "high", 8, [-4, 6, 7], after(b, ",1", 2));
   const d = hit("1,2,3", "mid", 14, [-8, 4, { state: "knockdown" }], after(b, ",3", 3));
   const e = hit("1,2,4", "low", 12, [-13, 3, 3], after(b, ",4", 5));
-  const lash = hit("DRF:2", "mid", 13, [-2, 7, 7], { startup: 11, stance: drift, via: { kind: "enter", input: ":2" } });
-  const jab = hit("d+1", "special-mid", 5, [-5, 6, 6], { startup: 10 });
+  const lash = hit("DRF:2", "mid", 13, [-2, 7, 7], {
+    startup: 11,
+    range: "2.4",
+    stance: drift,
+    via: { kind: "enter", input: ":2" },
+  });
+  const jab = hit("d+1", "special-mid", 5, [-5, 6, 6], { startup: 10, range: "0.9" });
   const toss = hit("1+3", "throw", 35, [{ state: "throw" }, 2, 2], { startup: 12 });
   const cancel: CancelEntry = {
     id: 100,
@@ -210,6 +215,14 @@ describe("the view", () => {
     expect(keys({ level: "throw", ending: "plus" })).toEqual([]);
   });
 
+  it("keeps the strings whose first hit reaches the distance; a string with no range never does", () => {
+    expect(keys({ reach: 0 })).toEqual(["1", "d+1", "DRF:2"]);
+    expect(keys({ reach: 1 })).toEqual(["1", "DRF:2"]);
+    expect(keys({ reach: 1.2 })).toEqual(["1", "DRF:2"]);
+    expect(keys({ reach: 1.21 })).toEqual(["DRF:2"]);
+    expect(keys({ reach: 3 })).toEqual([]);
+  });
+
   it("sorts fastest, least damage, best ending first, ties in list order; desc turns it round", () => {
     expect(keys({ sort: "startup" })).toEqual(["1", "d+1", "DRF:2", "1+3"]);
     expect(keys({ sort: "startup", dir: "desc" })).toEqual(["1+3", "DRF:2", "1", "d+1"]);
@@ -226,17 +239,20 @@ describe("the view", () => {
       stance: "drift",
       startupFrom: 10,
       startupTo: 14,
+      reach: 1.5,
       sort: "damage",
       dir: "desc",
     };
     const search = moveListSearch(new URLSearchParams("edition=1-0&sort=startup"), view);
     expect(search).toBe(
-      "?edition=1-0&level=low&ending=safe&stance=drift&startupFrom=10&startupTo=14&sort=damage&dir=desc",
+      "?edition=1-0&level=low&ending=safe&stance=drift&startupFrom=10&startupTo=14&reach=1.5&sort=damage&dir=desc",
     );
     expect(readMoveListView(new URLSearchParams(search))).toEqual(view);
     expect(moveListSearch(new URLSearchParams("level=mid"), DEFAULT_MOVE_LIST_VIEW)).toBe("");
     expect(
-      readMoveListView(new URLSearchParams("level=sideways&ending=1&startupFrom=-3&startupTo=abc&sort=x&stance=<b>")),
+      readMoveListView(
+        new URLSearchParams("level=sideways&ending=1&startupFrom=-3&startupTo=abc&reach=-1&sort=x&stance=<b>"),
+      ),
     ).toEqual(DEFAULT_MOVE_LIST_VIEW);
   });
 });

@@ -7,6 +7,7 @@ import { getDb } from "../index";
 import { characters } from "../schema";
 import { recordAudit, type AuditAction, type Executor } from "./audit";
 import { lockDraft } from "./authoring";
+import { gameRangeScale } from "./games";
 import {
   collidingKeys,
   compareCharacter,
@@ -97,7 +98,7 @@ async function commit(
   edit: CharacterEdit,
   audit: { action: AuditAction; detail: Record<string, string | number> },
 ): Promise<{ loaded: Loaded; touched: { moves: string[]; edges: string[] } }> {
-  const result = applyEdit(loaded.character, edit);
+  const result = applyEdit(loaded.character, edit, { range: await gameRangeScale(tx, scope.gameId) });
   if (!result.ok) throw refused(result.problems);
   const next = result.character;
   const colliding = [

@@ -1,6 +1,6 @@
 import "server-only";
 import type { GraphResponse } from "@/lib/explorer";
-import { getCharacterById, listCharacters, listEditions } from "./games";
+import { getCharacterById, listCharacters, listEditions, rangeScaleOf } from "./games";
 import { getCharacterGraph } from "./moves";
 
 export type ExplorerData =
@@ -34,7 +34,14 @@ export async function getExplorerData({
   return {
     ok: true,
     data: {
-      game: { slug: game.slug, name: game.name, fps: game.fps, fastest: game.fastest, launchAt: game.launchAt },
+      game: {
+        slug: game.slug,
+        name: game.name,
+        fps: game.fps,
+        fastest: game.fastest,
+        launchAt: game.launchAt,
+        range: rangeScaleOf(game),
+      },
       character: { id: character.id, slug: character.slug, name: character.name },
       edition: chosen,
       editions,

@@ -1,7 +1,9 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, isNull, or } from "drizzle-orm";
+import type { RangeKind, RangeScale } from "@/lib/engine";
 import { AppError } from "@/lib/errors";
 import { getDb } from "../index";
+import type { Executor } from "./audit";
 import { characters, editions, games, memberships } from "../schema";
 
 export interface GameSummary {
@@ -12,6 +14,9 @@ export interface GameSummary {
   fps: number;
   fastest: number;
   launchAt: number;
+  /** How the game measures range (labels, or numbers in `rangeUnit`). */
+  rangeKind: RangeKind;
+  rangeUnit: string | null;
   /** The owning team; null for a public game, which everyone reads. */
   teamId: number | null;
 }
@@ -32,6 +37,20 @@ export interface CharacterSummary {
   summary: string | null;
 }
 
+/** A game's way of measuring range, as the engine's range functions take it. */
+export function rangeScaleOf(game: Pick<GameSummary, "rangeKind" | "rangeUnit">): RangeScale {
+  return { kind: game.rangeKind, unit: game.rangeUnit };
+}
+
+/** A game's way of measuring range, read inside a caller's transaction; a label scale for an unknown game. */
+export async function gameRangeScale(db: Executor, gameId: number): Promise<RangeScale> {
+  const [game] = await db
+    .select({ rangeKind: games.rangeKind, rangeUnit: games.rangeUnit })
+    .from(games)
+    .where(eq(games.id, gameId));
+  return game ? rangeScaleOf(game) : { kind: "label", unit: null };
+}
+
 const gameColumns = {
   id: games.id,
   slug: games.slug,
@@ -40,6 +59,8 @@ const gameColumns = {
   fps: games.fps,
   fastest: games.fastest,
   launchAt: games.launchAt,
+  rangeKind: games.rangeKind,
+  rangeUnit: games.rangeUnit,
   teamId: games.teamId,
 };
 

@@ -1,10 +1,12 @@
 import "server-only";
 import { and, eq, sql } from "drizzle-orm";
 import { portableMoveSchema, type PortableMove } from "@/lib/character-file";
+import { rangeProblem } from "@/lib/engine";
 import { AppError, VersionConflict } from "@/lib/errors";
 import { getDb } from "../index";
 import { moves, stances } from "../schema";
 import { lockDraft } from "./authoring";
+import { gameRangeScale } from "./games";
 import { recordAudit } from "./audit";
 import { fieldChanges, portableRows } from "./character-io";
 
@@ -56,6 +58,10 @@ export async function saveMove({
         "Someone saved this move after you opened it. Compare their values with yours and choose which to keep.",
         before,
       );
+    const range = rangeProblem(parsed.range, await gameRangeScale(tx, gameId));
+    if (range !== null) {
+      throw new AppError("bad_request", `Nothing was saved: ${range}.`, [{ path: ["range"], message: range }]);
+    }
     const changed = fieldChanges(before.move, { ...before.move, ...parsed });
     if (changed.length === 0) return before;
     await tx

@@ -1,8 +1,14 @@
 import "server-only";
-import { stanceSheet } from "@/lib/engine";
+import { stanceSheet, type MoveGraph } from "@/lib/engine";
 import { stanceNodeIdOf, wayInPaths } from "@/lib/stance-sheet";
 import type { StanceSheetDto } from "@/lib/dto";
 import { getExplorerData } from "./explorer";
+
+/** A move node's range as the data gives it, or null. */
+function rangeOf(graph: MoveGraph, id: string): string | null {
+  const node = graph.nodes.find((n) => n.id === id);
+  return node?.kind === "move" && node.range !== undefined ? String(node.range) : null;
+}
 
 export type StanceSheetResult =
   { ok: true; data: StanceSheetDto } | { ok: false; missing: "character" | "edition" | "stance" };
@@ -31,12 +37,13 @@ export async function getStanceSheet({
   return {
     ok: true,
     data: {
-      game: { slug: game.slug, name: game.name, fastest: game.fastest, launchAt: game.launchAt },
+      game: { slug: game.slug, name: game.name, fastest: game.fastest, launchAt: game.launchAt, range: game.range },
       character,
       edition: { slug: e.slug, name: e.name, status: e.status },
       stance: { key: stanceKey, name: stance.name },
       sheet,
       paths: wayInPaths(graph, sheet),
+      ranges: Object.fromEntries(sheet.moves.map((m) => [m.move, rangeOf(graph, m.move)])),
     },
   };
 }

@@ -133,13 +133,13 @@ const tarrow: DemoCharacter = {
         root("uf+4", first(15, hit("Rising Toe", "mid", 15, [-13, LAUNCH, LAUNCH], { tags: ["launcher"] }))),
         root("1+3", first(12, hit("Harbour Toss", "throw", 35, [THROWN(), kd(-2), kd(-2)]))),
         // Stance moves.
-        fromStance("drift", ":2", first(11, hit("Drift Lash", "mid", 13, [-2, 7, 7])), [
+        fromStance("drift", ":2", first(11, hit("Drift Lash", "mid", 13, [-2, 7, 7], { range: 2.4 })), [
           follow(",1", { gap: 1, combo: true }, hit("Drift Lash Jab", "high", 8, [0, 8, 8]), [
             cancel("~b", "drift", [1, 6, 6], ["high"]),
           ]),
         ]),
-        fromStance("drift", ":4", first(17, hit("Drift Heel", "low", 14, [-15, 4, KD]))),
-        fromStance("drift", ":1+2", first(20, hit("Drift Surge", "unblockable", 40, [KD, KD, KD]))),
+        fromStance("drift", ":4", first(17, hit("Drift Heel", "low", 14, [-15, 4, KD], { range: 1.6 }))),
+        fromStance("drift", ":1+2", first(20, hit("Drift Surge", "unblockable", 40, [KD, KD, KD], { range: 1.1 }))),
         fromStance("ember", ":1", first(9, hit("Ember Jab", "special-mid", 6, [-2, 7, 7]))),
         fromStance(
           "ember",

@@ -31,7 +31,8 @@ export default async function GamePage({ params }: Props) {
         <h1 className="text-2xl font-semibold">{game.name}</h1>
         {game.summary && <p className="max-w-3xl text-ink-300">{game.summary}</p>}
         <p className="font-mono text-xs text-ink-400">
-          {game.fps} fps · fastest attack {game.fastest}f · launch punish from -{game.launchAt}
+          {game.fps} fps · fastest attack {game.fastest}f · launch punish from -{game.launchAt} · range{" "}
+          {game.rangeKind === "number" ? `in ${game.rangeUnit ?? "units"}` : "as labels"}
         </p>
       </header>
       <section aria-labelledby="characters" className="space-y-3">

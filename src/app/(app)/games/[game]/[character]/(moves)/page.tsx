@@ -4,7 +4,7 @@ import { Breadcrumb } from "@/components/ui/breadcrumb";
 import { MoveTable } from "@/components/moves/move-table";
 import { auth } from "@/server/auth";
 import { atLeast, getRole } from "@/server/authz";
-import { listEditions } from "@/server/db/queries/games";
+import { listEditions, rangeScaleOf } from "@/server/db/queries/games";
 import { getMoveList } from "@/server/db/queries/moves";
 import { loadCharacter } from "../../../data";
 
@@ -95,6 +95,7 @@ export default async function CharacterPage({ params, searchParams }: Props) {
         <MoveTable
           list={list}
           rules={{ fastest: game.fastest, launchAt: game.launchAt }}
+          range={rangeScaleOf(game)}
           exploreBase={`/games/${game.slug}/${character.slug}/explore`}
           stanceSheets={{ gameSlug: game.slug, characterSlug: character.slug }}
           edition={edition.slug}

@@ -6,7 +6,7 @@ import { CharacterImport } from "@/components/import/character-import";
 import { Breadcrumb } from "@/components/ui/breadcrumb";
 import { AppError } from "@/lib/errors";
 import { auth } from "@/server/auth";
-import { listEditions } from "@/server/db/queries/games";
+import { listEditions, rangeScaleOf } from "@/server/db/queries/games";
 import { loadGameForEdit } from "@/server/games-access";
 import { loadCharacter } from "../../../data";
 
@@ -113,6 +113,7 @@ export default async function ImportPage({ params, searchParams }: Props) {
         game={game.slug}
         character={{ slug: character.slug, name: character.name }}
         edition={{ slug: edition.slug, name: edition.name }}
+        range={rangeScaleOf(game)}
       />
     </>,
   );

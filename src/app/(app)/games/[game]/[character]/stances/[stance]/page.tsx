@@ -4,7 +4,8 @@ import { notFound } from "next/navigation";
 import { Breadcrumb } from "@/components/ui/breadcrumb";
 import { ShareStanceButton } from "@/components/stances/share-stance";
 import { StanceSheetView } from "@/components/stances/stance-sheet-view";
-import { SAFE_ONLY_PARAM } from "@/lib/stance-sheet";
+import { readDistance } from "@/lib/move-list";
+import { REACH_PARAM, SAFE_ONLY_PARAM } from "@/lib/stance-sheet";
 import { atLeast } from "@/lib/roles";
 import { decodeSegment } from "@/lib/segment";
 import { auth } from "@/server/auth";
@@ -68,6 +69,7 @@ export default async function StancePage(props: Props) {
       <StanceSheetView
         data={data}
         safeOnly={search[SAFE_ONLY_PARAM] === "1"}
+        reach={readDistance(search[REACH_PARAM])}
         linkToExplorer
         actions={
           shareTeams && edition.status === "published" ? (

@@ -2,6 +2,7 @@ import { formatProblem, MAX_FILE_BYTES, parseCharacterFile, sizeProblem, type Fi
 import { AppError } from "@/lib/errors";
 import { requireUser } from "@/server/auth";
 import { importCharacter } from "@/server/db/queries/character-io";
+import { rangeScaleOf } from "@/server/db/queries/games";
 import { characterOf, editionOf, loadGameForEdit } from "@/server/games-access";
 import { handle, parseWith, readUpload } from "@/server/http";
 import { editionCharacterParamsSchema } from "../../../../../../schema";
@@ -46,7 +47,9 @@ export const POST = handle(async (request: Request, ctx: Ctx) => {
 
   const file = await readUpload(request, { field: "file", maxBytes: MAX_FILE_BYTES, tooLargeMessage: TOO_LARGE });
   if (sizeProblem(file.size)) throw new AppError("payload_too_large", TOO_LARGE);
-  const parsed = parseCharacterFile(file.name, new Uint8Array(await file.arrayBuffer()));
+  const parsed = parseCharacterFile(file.name, new Uint8Array(await file.arrayBuffer()), {
+    range: rangeScaleOf(game),
+  });
   if (!parsed.ok) return refused(parsed.problems);
   const mine = parsed.characters.find((c) => c.character.slug === character.slug) ?? parsed.characters[0]!;
 
