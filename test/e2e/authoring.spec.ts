@@ -22,7 +22,7 @@ test("a coach starts a game, adds a character, publishes the first Edition and s
 }) => {
   const coachEmail = `coach-${tag()}@example.test`;
   const teamName = `Lantern Yard ${tag()}`;
-  await signUpAs(page, "Ysolde Marr", coachEmail, "/teams");
+  await signUpAs(page, "Coach Ysomarr-11", coachEmail, "/teams");
   await new TeamsPage(page).create(teamName);
 
   // Mistakes show at their field, in words, and nothing is made.
@@ -43,9 +43,9 @@ test("a coach starts a game, adds a character, publishes the first Edition and s
   await expect(page.getByText("draft", { exact: true })).toBeVisible();
 
   const character = page.getByRole("form", { name: "Add a character" });
-  await character.getByLabel("Name").fill("Corin Ash");
+  await character.getByLabel("Name").fill("Player Ashcorin-6");
   await character.getByRole("button", { name: "Add character" }).click();
-  await expect(page.getByRole("link", { name: "Corin Ash", exact: true })).toBeVisible();
+  await expect(page.getByRole("link", { name: "Player Ashcorin-6", exact: true })).toBeVisible();
 
   // Publishing asks first, then freezes the draft.
   await page.getByRole("button", { name: "Publish…" }).click();
@@ -69,10 +69,10 @@ test("a coach starts a game, adds a character, publishes the first Edition and s
   ]);
 
   // A player of the team reads the game, drafts included, and is offered no change.
-  const player = await joinAsPlayer(browser, teamName, "Tam Okoro");
+  const player = await joinAsPlayer(browser, teamName, "Coach Okorbit");
   await player.goto(gameUrl);
   await expect(player.getByRole("heading", { level: 1, name: gameName })).toBeVisible();
-  await expect(player.getByRole("link", { name: "Corin Ash", exact: true })).toBeVisible();
+  await expect(player.getByRole("link", { name: "Player Ashcorin-6", exact: true })).toBeVisible();
   await expect(player.getByRole("heading", { name: "Edit this game" })).toHaveCount(0);
   await expect(player.getByRole("button", { name: /Publish/ })).toHaveCount(0);
   await player.goto("/teams");

@@ -45,11 +45,11 @@ describe.each(DEMO_CHARACTERS.map((c) => [c.name, c] as const))("demo character 
   test.each(EDITIONS.map((e) => e.slug))("edition %s is written in the demo game's own notation", (edition) => {
     const g = graph(character, edition);
     // The notation documented at the top of demo.ts: buttons n v t r c (pressed together written
-    // together), directions press. ebb. sink. rise., hits joined by "-", cancels "~" + direction,
+    // together), directions press ebb sink rise joined by "+", hits joined by ".", cancels "~" + direction,
     // stance moves "<code>:<input>" with a lower-case code.
-    const hit = "(?:(?:press|ebb|sink|rise)\\.)?[nvtrc]{1,2}";
+    const hit = "(?:(?:press|ebb|sink|rise)\\+)?[nvtrc]{1,2}";
     const codes = g.data.stances.map((s) => s.abbreviation).join("|");
-    const move = new RegExp(`^(?:(?:${codes}):)?${hit}(?:-${hit})*$`);
+    const move = new RegExp(`^(?:(?:${codes}):)?${hit}(?:\\.${hit})*$`);
     for (const m of g.moves) expect(m.key, m.hit.name).toMatch(move);
     for (const e of g.edges.filter((x) => x.kind === "cancel")) expect(e.input).toMatch(/^~(press|ebb|sink)$/);
     for (const s of g.data.stances) expect(s.abbreviation).toMatch(/^[a-z]+$/);
@@ -118,12 +118,12 @@ describe("the demo scenario as a whole, read through the engine", () => {
 
 describe("postureOf reads the demo notation", () => {
   test("down moves come out of a crouch too, rising moves only out of one, the rest from standing", () => {
-    expect(postureOf("sink.r")).toBe("any");
-    expect(postureOf("sink.n-v")).toBe("any");
-    expect(postureOf("rise.t")).toBe("crouching");
-    expect(postureOf("press.t-t-v")).toBe("standing");
-    expect(postureOf("ebb.n")).toBe("standing");
-    expect(postureOf("v-v-t")).toBe("standing");
+    expect(postureOf("sink+r")).toBe("any");
+    expect(postureOf("sink+n.v")).toBe("any");
+    expect(postureOf("rise+t")).toBe("crouching");
+    expect(postureOf("press+t.t.v")).toBe("standing");
+    expect(postureOf("ebb+n")).toBe("standing");
+    expect(postureOf("v.v.t")).toBe("standing");
     expect(postureOf("drift:v")).toBe("standing");
   });
 

@@ -67,12 +67,12 @@ export interface CharacterData {
 
 /**
  * The demo game's rule for where a move can be done from: down-direction
- * moves (`sink.`) also come out of a crouch, rising (`rise.`) moves only out of one,
+ * moves (`sink+`) also come out of a crouch, rising (`rise+`) moves only out of one,
  * everything else from standing.
  */
 export function postureOf(input: string): "standing" | "crouching" | "any" {
-  if (/^sink\./.test(input)) return "any";
-  if (/^rise\./.test(input)) return "crouching";
+  if (/^sink\+/.test(input)) return "any";
+  if (/^rise\+/.test(input)) return "crouching";
   return "standing";
 }
 
