@@ -5,6 +5,9 @@ import { rng } from "./generate";
 
 const LEVELS: Level[] = ["high", "mid", "low", "mid", "special-mid"];
 const STANCES = ["s1", "s2", "s3", "s4"];
+/** Follow-up buttons and stance inputs in the demo game's notation (src/server/db/seed/demo.ts). */
+const FOLLOW = ["n", "v", "t"];
+const FROM_STANCE = ["n", "v", "t", "r", "c", "nv", "nt", "nr", "vt", "vr", "tr"];
 
 /**
  * An invented character for the UI bench: one string that branches three
@@ -20,13 +23,13 @@ export function benchCharacter(seed = 7): DemoCharacter {
   let cancels = 0;
   const tree = (depth: number, label: string): Step[] => {
     if (depth === 5) return [];
-    const steps: Step[] = [1, 2, 3].map((b) =>
-      follow(`,${b}`, { gap: int(-2, 6), combo: r() < 0.5 }, h(`${label}-${b}`), tree(depth + 1, `${label}-${b}`)),
+    const steps: Step[] = FOLLOW.map((b) =>
+      follow(`.${b}`, { gap: int(-2, 6), combo: r() < 0.5 }, h(`${label}-${b}`), tree(depth + 1, `${label}-${b}`)),
     );
     if (depth >= 2 && depth <= 3 && r() < 0.4) {
       steps.push(
         cancel(
-          "~b",
+          "~ebb",
           STANCES[cancels++ % STANCES.length]!,
           [int(-6, 3), int(0, 8), int(2, 10)],
           r() < 0.3 ? ["high"] : [],
@@ -37,12 +40,12 @@ export function benchCharacter(seed = 7): DemoCharacter {
   };
 
   const stanceMoves: Root[] = STANCES.flatMap((s) =>
-    Array.from({ length: 11 }, (_, i) =>
+    FROM_STANCE.map((input, i) =>
       fromStance(
         s,
-        `:${i + 1}`,
+        `:${input}`,
         first(int(10, 20), h(`${s}-${i}`)),
-        [1, 2, 3].map((b) => follow(`,${b}`, { gap: int(-1, 5), combo: r() < 0.5 }, h(`${s}-${i}-${b}`))),
+        FOLLOW.map((b) => follow(`.${b}`, { gap: int(-1, 5), combo: r() < 0.5 }, h(`${s}-${i}-${b}`))),
       ),
     ),
   );
@@ -52,8 +55,8 @@ export function benchCharacter(seed = 7): DemoCharacter {
     name: "Bench Grid",
     summary: "Generated for the Explorer speed bench.",
     data: () => ({
-      stances: STANCES.map((key, i) => ({ key, name: `Grid Stance ${i + 1}`, abbreviation: `G${i + 1}` })),
-      roots: [root("1", first(10, h("grid")), tree(1, "grid")), ...stanceMoves],
+      stances: STANCES.map((key, i) => ({ key, name: `Grid Stance ${i + 1}`, abbreviation: `grid${i + 1}` })),
+      roots: [root("n", first(11, h("grid")), tree(1, "grid")), ...stanceMoves],
     }),
   };
 }

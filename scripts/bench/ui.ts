@@ -264,7 +264,7 @@ async function main() {
       ],
     });
     const page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
-    const url = `${BASE}/games/vesper-circuit/bench-grid/explore/1`;
+    const url = `${BASE}/games/vesper-circuit/bench-grid/explore/n`;
 
     const layouts: number[] = [];
     let jsBytes = 0;

@@ -109,7 +109,7 @@ export const newStanceSchema = z
     abbreviation: z
       .string()
       .trim()
-      .min(1, { error: "Give the stance a short label, like DRF." })
+      .min(1, { error: "Give the stance a short label, like drift." })
       .max(12, { error: "A stance's label can be at most 12 characters." }),
     notes: summary,
   })

@@ -203,5 +203,5 @@ export function showValue(value: unknown): string {
   return JSON.stringify(value);
 }
 
-/** A connection's key (`1>1,2`, or `1,2~b>lantern` for a cancel) with an arrow a reader follows. */
+/** A connection's key (`n>n.v`, or `n.v~ebb>lantern` for a cancel) with an arrow a reader follows. */
 export const connectionLabel = (key: string) => key.replace(/>(?=[^>]*$)/, " → ");

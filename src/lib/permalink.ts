@@ -17,7 +17,7 @@ export const VIEW_BOUNDS = {
   fastest: { min: 1, max: 30 },
 } as const;
 
-/** Move and edge keys are plain text (`1,2>1,2,3`, `DRF:2`); control characters never belong in them. */
+/** Move and edge keys are plain text (`n.v>n.v.t`, `drift:v`); control characters never belong in them. */
 const plainText = (what: string, max: number) =>
   z
     .string({ error: `${what} must be text.` })

@@ -114,9 +114,9 @@ test("a password change ends the other session at once; the browser that changed
   browser,
 }) => {
   const email = newEmail("change");
-  await signUpAndConfirm(first, { name: "Ines Farrow", email, password: PASSWORD });
+  await signUpAndConfirm(first, { name: "Player Farrowdeep-2", email, password: PASSWORD });
   const second = await newPage(browser);
-  await signIn(second, email, PASSWORD, "Ines Farrow");
+  await signIn(second, email, PASSWORD, "Player Farrowdeep-2");
 
   await first.goto("/account");
   const form = first.getByRole("form", { name: "Change your password" });
@@ -126,15 +126,15 @@ test("a password change ends the other session at once; the browser that changed
   await expect(first.getByRole("main").getByRole("status")).toContainText("Your password is changed.");
 
   await expectSignedOut(second);
-  await expectSignedIn(first, "Ines Farrow");
-  await signIn(second, email, "a-new-and-longer-password", "Ines Farrow");
+  await expectSignedIn(first, "Player Farrowdeep-2");
+  await signIn(second, email, "a-new-and-longer-password", "Player Farrowdeep-2");
 });
 
 test("a password reset ends every session at once", async ({ page: first, browser }) => {
   const email = newEmail("reset");
-  await signUpAndConfirm(first, { name: "Oren Dahl", email, password: PASSWORD });
+  await signUpAndConfirm(first, { name: "Player Dahlwisp", email, password: PASSWORD });
   const second = await newPage(browser);
-  await signIn(second, email, PASSWORD, "Oren Dahl");
+  await signIn(second, email, PASSWORD, "Player Dahlwisp");
 
   const elsewhere = await newPage(browser);
   const reset = new PasswordResetPages(elsewhere);
@@ -151,9 +151,9 @@ test("a password reset ends every session at once", async ({ page: first, browse
 
 test("sign out everywhere ends this session and the other one", async ({ page: first, browser }) => {
   const email = newEmail("everywhere");
-  await signUpAndConfirm(first, { name: "Pia Lund", email, password: PASSWORD });
+  await signUpAndConfirm(first, { name: "Player Lundpixel", email, password: PASSWORD });
   const second = await newPage(browser);
-  await signIn(second, email, PASSWORD, "Pia Lund");
+  await signIn(second, email, PASSWORD, "Player Lundpixel");
 
   await first.goto("/account");
   await first.getByRole("button", { name: "Sign out everywhere" }).click();
@@ -166,18 +166,18 @@ test("sign out everywhere ends this session and the other one", async ({ page: f
   await expectSignedOut(second);
   await expectSignedOut(first);
   // Signing in again works as before.
-  await signIn(second, email, PASSWORD, "Pia Lund");
+  await signIn(second, email, PASSWORD, "Player Lundpixel");
 });
 
 test("a member removed from a team loses it in their open session at once", async ({ page: owner, browser }) => {
-  await signUpAndConfirm(owner, { name: "Runa Voss", email: newEmail("owner"), password: PASSWORD }, "/teams");
+  await signUpAndConfirm(owner, { name: "Player Runavox", email: newEmail("owner"), password: PASSWORD }, "/teams");
   const teamName = `Night Shift ${randomUUID().slice(0, 4)}`;
   await new TeamsPage(owner).create(teamName);
   const slug = new URL(owner.url()).pathname.split("/").at(-1)!;
 
   const memberEmail = newEmail("member");
   const member = await newPage(browser);
-  await signUpAndConfirm(member, { name: "Sol Amari", email: memberEmail, password: PASSWORD });
+  await signUpAndConfirm(member, { name: "Player Solvaneth", email: memberEmail, password: PASSWORD });
   // Membership straight from the database: this test is about removal, not invites.
   await query(
     "insert into memberships (team_id, user_id, role) select t.id, u.id, 'player' from teams t, users u where t.slug = ? and u.email = ?",
@@ -197,14 +197,14 @@ test("a member removed from a team loses it in their open session at once", asyn
   await expect(member.getByRole("heading", { level: 1, name: teamName })).toHaveCount(0);
   await member.goto("/teams");
   await expect(member.getByText(teamName)).toHaveCount(0);
-  await expect(new AccountArea(member).user("Sol Amari")).toBeVisible();
+  await expect(new AccountArea(member).user("Player Solvaneth")).toBeVisible();
 });
 
 test("a confirmation link opened after it expired says what to do", async ({ page }) => {
   const email = newEmail("late");
   const signUp = new SignUpPage(page);
   await signUp.goto();
-  await signUp.signUp({ name: "Mae Tolliver", email, password: PASSWORD });
+  await signUp.signUp({ name: "Player Brisklet", email, password: PASSWORD });
   const link = linkIn(await waitForMailAbout(email, CONFIRM_SUBJECT));
   await query(
     "update email_confirmations c join users u on u.id = c.user_id set c.expires_at = utc_timestamp() - interval 1 minute where u.email = ?",

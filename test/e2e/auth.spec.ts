@@ -35,39 +35,39 @@ async function signOut(page: Page) {
 
 test("a new player signs up, signs out and signs in again", async ({ page }) => {
   const email = newEmail("player");
-  await signUp(page, "Rin Ashby", email);
+  await signUp(page, "Player Corvalis", email);
 
   // The account is in MariaDB with an argon2id hash, never the password itself.
   const [row] = await query<{ password_hash: string; name: string }>(
     "select password_hash, name from users where email = ?",
     [email],
   );
-  expect(row?.name).toBe("Rin Ashby");
+  expect(row?.name).toBe("Player Corvalis");
   expect(row?.password_hash).toMatch(/^\$argon2id\$/);
 
   await signOut(page);
   const signIn = new SignInPage(page);
   await signIn.goto();
   await signIn.signIn(email.toUpperCase(), PASSWORD);
-  await expect(new AccountArea(page).user("Rin Ashby")).toBeVisible();
+  await expect(new AccountArea(page).user("Player Corvalis")).toBeVisible();
 });
 
 test("sign-in takes a callbackUrl on this site and ignores one elsewhere", async ({ page }) => {
   const email = newEmail("back");
-  await signUp(page, "Oda Brenn", email, PASSWORD, "/games");
+  await signUp(page, "Coach Ferrowyn", email, PASSWORD, "/games");
   await expect(page).toHaveURL(/\/games$/);
   await signOut(page);
 
   const signIn = new SignInPage(page);
   await signIn.goto("https://elsewhere.example.test/phish");
   await signIn.signIn(email, PASSWORD);
-  await expect(new AccountArea(page).user("Oda Brenn")).toBeVisible();
+  await expect(new AccountArea(page).user("Coach Ferrowyn")).toBeVisible();
   await expect(page).toHaveURL(/127\.0\.0\.1:\d+\/$/);
 });
 
 test("a wrong password and an unknown e-mail get the same message", async ({ page }) => {
   const email = newEmail("wrong");
-  await signUp(page, "Tam Ivers", email);
+  await signUp(page, "Player Iverlune", email);
   await signOut(page);
 
   const signIn = new SignInPage(page);
@@ -85,10 +85,10 @@ test("sign-up refuses a short password beside the field, and answers a taken e-m
   const email = newEmail("taken");
   const signUpPage = new SignUpPage(page);
   await signUpPage.goto();
-  await signUpPage.signUp({ name: "Lio Marsh", email, password: "short" });
+  await signUpPage.signUp({ name: "Player Marshglint", email, password: "short" });
   await expect(signUpPage.form.getByText("Use at least 10 characters for your password.")).toBeVisible();
 
-  await signUp(page, "Lio Marsh", email);
+  await signUp(page, "Player Marshglint", email);
   await signOut(page);
   // Someone else tries the same address: the same page as for a new address, and the account's
   // owner (not the visitor) learns it already exists.
@@ -108,12 +108,12 @@ test("sign-up refuses a short password beside the field, and answers a taken e-m
   const signIn = new SignInPage(page);
   await signIn.goto();
   await signIn.signIn(email, PASSWORD);
-  await expect(new AccountArea(page).user("Lio Marsh")).toBeVisible();
+  await expect(new AccountArea(page).user("Player Marshglint")).toBeVisible();
 });
 
 test("a forgotten password is reset through the e-mailed link, once", async ({ page }) => {
   const email = newEmail("reset");
-  await signUp(page, "Vey Caldera", email);
+  await signUp(page, "Coach Calderix", email);
   await signOut(page);
 
   const reset = new PasswordResetPages(page);
@@ -140,7 +140,7 @@ test("a forgotten password is reset through the e-mailed link, once", async ({ p
   await signIn.signIn(email, PASSWORD);
   await expect(signIn.alert).toHaveText(MISMATCH);
   await signIn.signIn(email, "a-brand-new-password");
-  await expect(new AccountArea(page).user("Vey Caldera")).toBeVisible();
+  await expect(new AccountArea(page).user("Coach Calderix")).toBeVisible();
 
   // The same link a second time says it was used and offers a new one.
   await page.goto(link);
@@ -200,8 +200,8 @@ test("a player signs in with an e-mailed link, which works only once", async ({ 
 
 test("a signed-in player changes their password from the account page", async ({ page }) => {
   const email = newEmail("change");
-  await signUp(page, "Kit Dorran", email);
-  await page.getByRole("link", { name: "Kit Dorran" }).click();
+  await signUp(page, "Player Kestrix-4", email);
+  await page.getByRole("link", { name: "Player Kestrix-4" }).click();
   const form = page.getByRole("form", { name: "Change your password" });
   await form.getByLabel("Current password").fill("not-my-password");
   await form.getByLabel("New password").fill("another-long-password");
@@ -219,7 +219,7 @@ test("a signed-in player changes their password from the account page", async ({
   const signIn = new SignInPage(page);
   await signIn.goto();
   await signIn.signIn(email, "another-long-password");
-  await expect(new AccountArea(page).user("Kit Dorran")).toBeVisible();
+  await expect(new AccountArea(page).user("Player Kestrix-4")).toBeVisible();
 });
 
 test("pages carry the security headers", async ({ request }) => {

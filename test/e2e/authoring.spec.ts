@@ -22,16 +22,20 @@ test("a coach starts a game, adds a character, publishes the first Edition and s
 }) => {
   const coachEmail = `coach-${tag()}@example.test`;
   const teamName = `Lantern Yard ${tag()}`;
-  await signUpAs(page, "Ysolde Marr", coachEmail, "/teams");
+  await signUpAs(page, "Coach Ysomarr-11", coachEmail, "/teams");
   await new TeamsPage(page).create(teamName);
 
   // Mistakes show at their field, in words, and nothing is made.
   const form = page.getByRole("form", { name: "Start a game" });
   await form.getByLabel("Frames per second").fill("0");
+  // Range in numbers asks for its unit.
+  await form.getByLabel("Range is measured as").selectOption("number");
   // Enter in a field sends the form, as the keyboard does.
   await form.getByLabel("Frames per second").press("Enter");
   await expect(form.getByText("Give the game a name.")).toBeVisible();
   await expect(form.getByText("Frames per second must be at least 1.")).toBeVisible();
+  await expect(form.getByText(/Name the unit the game measures range in/)).toBeVisible();
+  await form.getByLabel("Unit of range").fill("m");
 
   const gameName = `Tidewire ${tag()}`;
   await form.getByLabel("Game name").fill(gameName);
@@ -41,11 +45,12 @@ test("a coach starts a game, adds a character, publishes the first Edition and s
   await expect(page.getByRole("heading", { level: 1, name: gameName })).toBeVisible();
   await expect(page.getByText("0.9", { exact: true })).toBeVisible();
   await expect(page.getByText("draft", { exact: true })).toBeVisible();
+  await expect(page.getByText(/range in m/)).toBeVisible();
 
   const character = page.getByRole("form", { name: "Add a character" });
-  await character.getByLabel("Name").fill("Corin Ash");
+  await character.getByLabel("Name").fill("Player Ashcorin-6");
   await character.getByRole("button", { name: "Add character" }).click();
-  await expect(page.getByRole("link", { name: "Corin Ash", exact: true })).toBeVisible();
+  await expect(page.getByRole("link", { name: "Player Ashcorin-6", exact: true })).toBeVisible();
 
   // Publishing asks first, then freezes the draft.
   await page.getByRole("button", { name: "Publish…" }).click();
@@ -69,10 +74,10 @@ test("a coach starts a game, adds a character, publishes the first Edition and s
   ]);
 
   // A player of the team reads the game, drafts included, and is offered no change.
-  const player = await joinAsPlayer(browser, teamName, "Tam Okoro");
+  const player = await joinAsPlayer(browser, teamName, "Coach Okorbit");
   await player.goto(gameUrl);
   await expect(player.getByRole("heading", { level: 1, name: gameName })).toBeVisible();
-  await expect(player.getByRole("link", { name: "Corin Ash", exact: true })).toBeVisible();
+  await expect(player.getByRole("link", { name: "Player Ashcorin-6", exact: true })).toBeVisible();
   await expect(player.getByRole("heading", { name: "Edit this game" })).toHaveCount(0);
   await expect(player.getByRole("button", { name: /Publish/ })).toHaveCount(0);
   await player.goto("/teams");

@@ -4,19 +4,19 @@ import { query } from "./db";
 import { signUpAs } from "./pages/team-pages";
 
 // The "What changed" page. The demo's two Editions differ (src/server/db/seed/demo.ts): in 1-1
-// Velka's 4,4 follows 4 with no gap and combos on hit, so the paths through it become natural
-// combos that jail; Tarrow's d+4 ends at -13 instead of -12.
+// Quessaline's r.r follows r with no gap and combos on hit, so the paths through it become natural
+// combos that jail; Tarrow's sink+r ends at -13 instead of -12.
 
-const velka = "/games/vesper-circuit/velka";
+const quessaline = "/games/vesper-circuit/quessaline";
 
 const pathRows = (page: Page) => page.getByTestId("changed-paths").locator("tbody tr");
 
-test("a player reads what 1-1 changed for Velka, sorts and filters the paths, and opens one in the Explorer", async ({
+test("a player reads what 1-1 changed for Quessaline, sorts and filters the paths, and opens one in the Explorer", async ({
   page,
 }) => {
-  await page.goto(velka);
-  await page.getByRole("link", { name: /What changed for Velka in 1\.1/ }).click();
-  await expect(page).toHaveURL(/\/velka\/changes\?to=1-1$/);
+  await page.goto(quessaline);
+  await page.getByRole("link", { name: /What changed for Quessaline in 1\.1/ }).click();
+  await expect(page).toHaveURL(/\/quessaline\/changes\?to=1-1$/);
   await expect(page.getByRole("heading", { level: 1 })).toContainText("What changed");
   // Defaults: the Edition shown, compared with the one before it.
   await expect(page.getByRole("combobox", { name: "From Edition" })).toHaveValue("1-0");
@@ -34,7 +34,7 @@ test("a player reads what 1-1 changed for Velka, sorts and filters the paths, an
 
   // The link itself, field by field.
   const link = page.getByTestId("changes-link").locator("li").first();
-  await expect(link).toContainText("4,4");
+  await expect(link).toContainText("r.r");
   await expect(link.locator('[data-field="gapOnBlock"]')).toContainText("3");
   await expect(link.locator('[data-field="gapOnBlock"]')).toContainText("0");
   await expect(link.locator('[data-field="comboOnHit"]')).toContainText(/no\s*→?\s*becomes\s*yes|no.*yes/);
@@ -58,35 +58,35 @@ test("a player reads what 1-1 changed for Velka, sorts and filters the paths, an
   expect(desc).toEqual([...asc].reverse());
   expect([...asc].sort()).toEqual([...initial].sort());
 
-  // Filtering by text: only 4,4 itself.
+  // Filtering by text: only r.r itself.
   const search = page.getByRole("searchbox", { name: "Input contains" });
-  await search.fill("4,4~");
-  await expect(page).toHaveURL(/q=4%2C4%7E|q=4%2C4~/);
+  await search.fill("r.r~");
+  await expect(page).toHaveURL(/q=r.r%7E|q=r.r~/);
   await expect(rows.first()).toBeVisible();
-  for (const text of await inputs()) expect(text).toContain("4,4~");
+  for (const text of await inputs()) expect(text).toContain("r.r~");
   await search.fill("");
   await expect(page).not.toHaveURL(/q=/);
   await expect(rows).toHaveCount(count);
-  // Filtering by kind of change: nothing was added for Velka.
+  // Filtering by kind of change: nothing was added for Quessaline.
   await page.getByRole("combobox", { name: "Change" }).selectOption("added");
   await expect(page.getByText("No changed path matches these filters.")).toBeVisible();
   await page.getByRole("button", { name: "Clear filters" }).first().click();
   await expect(rows).toHaveCount(count);
 
-  // The row for 4,4 opens that path in the Explorer, in 1-1.
-  await search.fill("4,4");
-  await expect(page).toHaveURL(/q=4%2C4(&|$)/);
-  const row = rows.filter({ has: page.locator('td[data-field="input"]', { hasText: /^4,4$/ }) });
+  // The row for r.r opens that path in the Explorer, in 1-1.
+  await search.fill("r.r");
+  await expect(page).toHaveURL(/q=r.r(&|$)/);
+  const row = rows.filter({ has: page.locator('td[data-field="input"]', { hasText: /^r.r$/ }) });
   await expect(row.locator('td[data-field="naturalCombo"]')).toContainText(/no.*yes/);
-  await row.getByRole("link", { name: "4,4", exact: true }).click();
-  await expect(page).toHaveURL(/\/velka\/explore\/4\?edition=1-1&path=/);
-  await expect(page.getByTestId("path-card").locator('[data-field="input"]').first()).toHaveText("4,4");
+  await row.getByRole("link", { name: "r.r", exact: true }).click();
+  await expect(page).toHaveURL(/\/quessaline\/explore\/r\?edition=1-1&path=/);
+  await expect(page.getByTestId("path-card").locator('[data-field="input"]').first()).toHaveText("r.r");
 });
 
 test("the picker compares any two Editions, and the same Edition on both sides says so", async ({ page }) => {
   await page.goto("/games/vesper-circuit/tarrow/changes");
   await expect(page.getByTestId("changes-summary")).toContainText("1 move changed");
-  await expect(page.getByTestId("changes-move")).toContainText("d+4");
+  await expect(page.getByTestId("changes-move")).toContainText("sink+r");
   await expect(page.getByTestId("changes-move").locator('[data-field="onBlock"]')).toContainText(/-12.*-13/);
 
   await page.getByRole("combobox", { name: "From Edition" }).selectOption("1-1");

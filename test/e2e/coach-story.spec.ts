@@ -30,7 +30,7 @@ test("a coach brings a character in from a file, adds a cancel in the Explorer, 
 }) => {
   const teamName = `Pier Nine ${tag()}`;
   const gameName = `Lampwick ${tag()}`;
-  await signUpAs(page, "Odile Brandt", `coach-${tag()}@example.test`, "/teams");
+  await signUpAs(page, "Coach Quillon-9", `coach-${tag()}@example.test`, "/teams");
   await new TeamsPage(page).create(teamName);
 
   // A game and its first character.
@@ -47,8 +47,8 @@ test("a coach brings a character in from a file, adds a cancel in the Explorer, 
 
   // The example file with one bad row: the preview names its line and nothing is written.
   const upload = new ImportPage(page);
-  const badRow = 'move,"2,1","2,1",Hook Lamp Jab,middle,';
-  const bad = example.replace('move,"2,1","2,1",Hook Lamp Jab,mid,', badRow);
+  const badRow = "move,v.n,v.n,Hook Lamp Jab,middle,";
+  const bad = example.replace("move,v.n,v.n,Hook Lamp Jab,mid,", badRow);
   await upload.choose({ name: "merrith.csv", mimeType: "text/csv", buffer: Buffer.from(bad) });
   await expect(upload.problems.first()).toContainText(`line ${lineOf(bad, badRow)}`);
   await expect(upload.problems.first()).toContainText("middle");
@@ -60,18 +60,18 @@ test("a coach brings a character in from a file, adds a cancel in the Explorer, 
 
   // A string in the Explorer; a cancel added from its first hit.
   const game = gameUrl.split("/").pop()!;
-  await page.goto(`/games/${game}/merrith/explore/2?edition=0-9`);
+  await page.goto(`/games/${game}/merrith/explore/v?edition=0-9`);
   const explorer = new ExplorerPage(page);
-  await explorer.node("2").click();
+  await explorer.select("v");
   await page.keyboard.press("c");
-  const cancel = page.getByRole("form", { name: "A cancel from 2" });
+  const cancel = page.getByRole("form", { name: "A cancel from v" });
   await cancel.getByLabel("Into the stance").selectOption({ label: "Low Wick" });
-  await cancel.getByLabel("Cancel input").fill("~d");
+  await cancel.getByLabel("Cancel input").fill("~sink");
   await cancel.getByLabel("On block", { exact: true }).fill("-4");
   await cancel.getByLabel("On hit", { exact: true }).fill("2");
   await cancel.getByLabel("On counter hit", { exact: true }).fill("2");
   await cancel.getByRole("button", { name: "Add cancel" }).click();
-  await expect(page.getByTestId("draft-editor").getByRole("status")).toHaveText("Added the cancel 2~d>wick.");
+  await expect(page.getByTestId("draft-editor").getByRole("status")).toHaveText("Added the cancel v~sink>wick.");
   await expect(explorer.node("stance:wick")).toBeVisible();
   await expect(explorer.field("onBlock")).toContainText("-4");
 
@@ -83,28 +83,28 @@ test("a coach brings a character in from a file, adds a cancel in the Explorer, 
   await next.getByLabel("Name").fill("1.0");
   await next.getByRole("button", { name: "Start the draft" }).click();
   await expect(page.getByRole("heading", { name: "Publish 1.0" })).toBeVisible();
-  await page.goto(`/games/${game}/merrith/explore/2?edition=1-0`);
-  await explorer.node("2").click();
+  await page.goto(`/games/${game}/merrith/explore/v?edition=1-0`);
+  await explorer.select("v");
   await page.keyboard.press("e");
-  const edit = page.getByRole("form", { name: "Edit 2" });
+  const edit = page.getByRole("form", { name: "Edit v" });
   await edit.getByLabel("On block", { exact: true }).fill("-12");
   await edit.getByRole("button", { name: "Save move" }).click();
-  await expect(page.getByTestId("draft-editor").getByRole("status")).toHaveText("Saved 2.");
+  await expect(page.getByTestId("draft-editor").getByRole("status")).toHaveText("Saved v.");
   await page.goto(gameUrl);
   await page.getByRole("button", { name: "Publish…" }).click();
   await page.getByRole("button", { name: "Yes, publish 1.0" }).click();
   await expect(page.getByRole("form", { name: "Start the next Edition" })).toBeVisible();
 
   // A player of the team reads what changed, and finds no way to change anything.
-  const player = await joinAsPlayer(browser, teamName, "Kasimir Oyelaran");
+  const player = await joinAsPlayer(browser, teamName, "Player Kasimirix Oyelarune");
   await player.goto(`/games/${game}/merrith/changes?from=0-9&to=1-0`);
   await expect(player.getByTestId("changes-summary")).toContainText("1 move changed");
-  const changed = player.getByTestId("changes-move").locator('[data-item="2"] [data-field="onBlock"]');
+  const changed = player.getByTestId("changes-move").locator('[data-item="v"] [data-field="onBlock"]');
   await expect(changed).toContainText("-3");
   await expect(changed).toContainText("-12");
   await expect(player.getByTestId("changed-paths").locator("tbody tr").first()).toBeVisible();
-  await player.goto(`/games/${game}/merrith/explore/2?edition=1-0`);
-  await expect(new ExplorerPage(player).node("2")).toBeVisible();
+  await player.goto(`/games/${game}/merrith/explore/v?edition=1-0`);
+  await expect(new ExplorerPage(player).node("v")).toBeVisible();
   await expect(player.getByTestId("draft-editor")).toHaveCount(0);
   await player.goto(gameUrl);
   await expect(player.getByRole("heading", { name: "Edit this game" })).toHaveCount(0);

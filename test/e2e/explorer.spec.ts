@@ -19,23 +19,23 @@ const signed = (n: number) => (n > 0 ? `+${n}` : String(n));
 
 test("a player opens a string from the move list, picks a node and reads its path", async ({ page }) => {
   await page.goto("/games/vesper-circuit/tarrow");
-  await page.getByRole("link", { name: "2", exact: true }).click();
-  await expect(page).toHaveURL(/\/explore\/2\?/);
+  await page.getByRole("link", { name: "v", exact: true }).click();
+  await expect(page).toHaveURL(/\/explore\/v\?/);
 
   const explorer = new ExplorerPage(page);
   await expect(explorer.emptyCard).toBeVisible();
-  await explorer.node("2,2,3").click();
+  await explorer.select("v.v.t");
 
-  const raw = await onBlock("2,2,3");
-  await expect(explorer.field("input")).toContainText("2,2,3");
+  const raw = await onBlock("v.v.t");
+  await expect(explorer.field("input")).toContainText("v.v.t");
   await expect(explorer.field("onBlock")).toHaveText(signed(raw));
-  await expect(explorer.field("blockClass")).toHaveText("punishable"); // -14 with a 10-frame fastest attack
+  await expect(explorer.field("blockClass")).toHaveText("punishable"); // -14 with the demo's 11-frame fastest attack
   await expect(explorer.field("naturalCombo")).toContainText("yes");
 
-  // The cancel into Ember Guard: its own outcome, and the frames it saves over stopping at 2,2,3.
-  await explorer.node("stance:ember").click();
-  const cancelled = await cancelOnBlock("2,2,3~f>ember");
-  await expect(explorer.field("input")).toContainText("2,2,3~f");
+  // The cancel into Ember Guard: its own outcome, and the frames it saves over stopping at v.v.t.
+  await explorer.select("stance:ember");
+  const cancelled = await cancelOnBlock("v.v.t~press>ember");
+  await expect(explorer.field("input")).toContainText("v.v.t~press");
   await expect(explorer.field("onBlock")).toHaveText(signed(cancelled));
   await expect(explorer.field("framesSaved")).toContainText(`${cancelled - raw}f`);
   await expect(explorer.field("blockClass")).toHaveText("safe");
@@ -47,14 +47,14 @@ test("a figure explains itself on focus and on hover (a tap on a phone), and hid
   hasTouch,
 }) => {
   const explorer = new ExplorerPage(page);
-  await page.goto("/games/vesper-circuit/tarrow/explore/2");
-  await explorer.node("2,2,3").click();
+  await page.goto("/games/vesper-circuit/tarrow/explore/v");
+  await explorer.select("v.v.t");
   const why = explorer.explanation("onBlock");
   await expect(why).toBeHidden();
 
   await explorer.field("onBlock").locator("xpath=..").focus();
   await expect(why).toBeVisible();
-  await expect(why).toContainText(`${signed(await onBlock("2,2,3"))} on block`);
+  await expect(why).toContainText(`${signed(await onBlock("v.v.t"))} on block`);
   // The figure's accessible description is the same text.
   await expect(explorer.field("onBlock").locator("xpath=..")).toHaveAccessibleDescription(/./);
 
@@ -68,8 +68,8 @@ test("a figure explains itself on focus and on hover (a tap on a phone), and hid
 
 test("the selected path and the options survive a reload, and an option recomputes at once", async ({ page }) => {
   const explorer = new ExplorerPage(page);
-  await page.goto("/games/vesper-circuit/tarrow/explore/2");
-  await explorer.node("2,2,3").click();
+  await page.goto("/games/vesper-circuit/tarrow/explore/v");
+  await explorer.select("v.v.t");
   await expect(explorer.field("blockClass")).toHaveText("punishable");
 
   // With the opponent's fastest attack at 15 frames, -14 is no longer punishable.
@@ -78,19 +78,19 @@ test("the selected path and the options survive a reload, and an option recomput
   await expect(page).toHaveURL(/fastest=15/);
 
   await page.reload();
-  await expect(explorer.field("input")).toContainText("2,2,3");
+  await expect(explorer.field("input")).toContainText("v.v.t");
   await expect(explorer.field("blockClass")).toHaveText("safe");
 });
 
 test("an Edition switch shows that Edition's numbers for the same path", async ({ page }) => {
   const explorer = new ExplorerPage(page);
-  await page.goto("/games/vesper-circuit/tarrow/explore/2");
-  await explorer.node("stance:ember").click();
-  await expect(explorer.field("onBlock")).toHaveText(signed(await cancelOnBlock("2,2,3~f>ember", "1-1")));
+  await page.goto("/games/vesper-circuit/tarrow/explore/v");
+  await explorer.select("stance:ember");
+  await expect(explorer.field("onBlock")).toHaveText(signed(await cancelOnBlock("v.v.t~press>ember", "1-1")));
 
   await page.getByRole("combobox", { name: "Edition" }).selectOption("1-0");
   await expect(page).toHaveURL(/edition=1-0/);
-  await expect(explorer.field("onBlock")).toHaveText(signed(await cancelOnBlock("2,2,3~f>ember", "1-0")));
+  await expect(explorer.field("onBlock")).toHaveText(signed(await cancelOnBlock("v.v.t~press>ember", "1-0")));
 });
 
 test("an unknown move is a 404", async ({ page }) => {
@@ -102,8 +102,8 @@ test("a blocked low leaves the defender crouching, and the card lists the punish
   page,
 }) => {
   const explorer = new ExplorerPage(page);
-  await page.goto("/games/vesper-circuit/tarrow/explore/1");
-  await explorer.node("1,2,4").click(); // ends in a low at -13
+  await page.goto("/games/vesper-circuit/tarrow/explore/n");
+  await explorer.select("n.v.r"); // ends in a low, punishable on block
   await expect(explorer.field("defenderStance")).toHaveText("crouching");
 
   const panel = page.getByTestId("punish-panel");
@@ -119,20 +119,21 @@ test("a blocked low leaves the defender crouching, and the card lists the punish
   const listed = await panel
     .locator("[data-testid=punishers] [data-option]")
     .evaluateAll((els) => els.map((e) => e.getAttribute("data-option")));
-  const expected = startups.filter((m) => m.startup <= 13 && m.from_posture !== "standing").map((m) => m.input);
+  const behind = -(await onBlock("n.v.r"));
+  const expected = startups.filter((m) => m.startup <= behind && m.from_posture !== "standing").map((m) => m.input);
   expect(listed.sort()).toEqual(expected.sort());
   expect(listed.length).toBeGreaterThan(0);
 
   // Against another opponent the list is theirs.
-  await panel.getByRole("combobox", { name: "Opponent" }).selectOption({ label: "Velka" });
+  await panel.getByRole("combobox", { name: "Opponent" }).selectOption({ label: "Quessaline" });
   await expect(page).toHaveURL(/vs=\d+/);
-  await expect(panel.getByTestId("punish-verdict")).toContainText("Velka");
+  await expect(panel.getByTestId("punish-verdict")).toContainText("Quessaline");
 });
 
 test("a long follow-up list shows the best 8 first and unfolds to all of them", async ({ page }) => {
   const explorer = new ExplorerPage(page);
-  await page.goto("/games/vesper-circuit/tarrow/explore/1");
-  await explorer.node("1").click(); // the first hit alone: after it, ten of the character's moves are guaranteed or frame traps
+  await page.goto("/games/vesper-circuit/tarrow/explore/n");
+  await explorer.select("n"); // the first hit alone: after it, ten of the character's moves are guaranteed or frame traps
   const list = page.locator("[data-follow-ups='a hit']");
   const rows = list.locator("[data-option]");
   const more = list.getByRole("button", { name: /^Show all \d+$/ });
@@ -153,7 +154,7 @@ test("a long follow-up list shows the best 8 first and unfolds to all of them", 
 
 test("the table of all paths filters, and selecting a row selects the path in the graph and back", async ({ page }) => {
   const explorer = new ExplorerPage(page);
-  await page.goto("/games/vesper-circuit/tarrow/explore/2");
+  await page.goto("/games/vesper-circuit/tarrow/explore/v");
   const table = page.getByTestId("paths-table");
   const rows = table.locator("tr[data-path-key]");
   await expect(rows.first()).toBeVisible();
@@ -166,30 +167,30 @@ test("the table of all paths filters, and selecting a row selects the path in th
   expect(inStance.length).toBeGreaterThan(0);
   expect(new Set(inStance.map((t) => t.trim()))).toEqual(new Set(["stance"]));
 
-  await rows.filter({ hasText: "2,2,3~f" }).first().click();
-  await expect(explorer.field("input")).toContainText("2,2,3~f");
+  await rows.filter({ hasText: "v.v.t~press" }).first().click();
+  await expect(explorer.field("input")).toContainText("v.v.t~press");
   await expect(explorer.pathMark("stance:ember")).toHaveCount(1);
 
   await table.getByLabel(/stance only/i).uncheck();
-  await explorer.node("2,2").click();
-  await expect(table.locator('tr[aria-selected="true"]')).toContainText("2,2");
+  await explorer.select("v.v");
+  await expect(table.locator('tr[aria-selected="true"]')).toContainText("v.v");
 });
 
 test("the graph works from the keyboard: arrows move, Enter selects, Escape clears", async ({ page }) => {
   const explorer = new ExplorerPage(page);
-  await page.goto("/games/vesper-circuit/tarrow/explore/2");
+  await page.goto("/games/vesper-circuit/tarrow/explore/v");
   const canvas = page.getByRole("group", { name: /Move graph/ });
   await canvas.focus();
   await page.keyboard.press("ArrowRight");
-  await expect(explorer.focusMark).toHaveAttribute("data-focus-node", "2,2");
+  await expect(explorer.focusMark).toHaveAttribute("data-focus-node", "v.v");
   await page.keyboard.press("Enter");
-  await expect(explorer.field("input")).toHaveText("2,2");
+  await expect(explorer.field("input")).toHaveText("v.v");
 
   await page.keyboard.press("ArrowRight");
   const first = await explorer.focusMark.getAttribute("data-focus-node");
   await page.keyboard.press("ArrowDown");
   const second = await explorer.focusMark.getAttribute("data-focus-node");
-  expect(new Set([first, second])).toEqual(new Set(["2,2,3", "2,2,1+2"]));
+  expect(new Set([first, second])).toEqual(new Set(["v.v.t", "v.v.nv"]));
   await page.keyboard.press("Enter");
   await expect(explorer.field("input")).toHaveText(second!);
 
@@ -198,11 +199,11 @@ test("the graph works from the keyboard: arrows move, Enter selects, Escape clea
 });
 
 test("the graph exports as a PNG", async ({ page }) => {
-  await page.goto("/games/vesper-circuit/tarrow/explore/2");
+  await page.goto("/games/vesper-circuit/tarrow/explore/v");
   const download = page.waitForEvent("download");
   await page.getByRole("button", { name: "Export PNG" }).click();
   const file = await download;
-  expect(file.suggestedFilename()).toMatch(/^framefork-tarrow-2-1-1\.png$/);
+  expect(file.suggestedFilename()).toMatch(/^framefork-tarrow-v-1-1\.png$/);
   const path = await file.path();
   const { readFileSync } = await import("node:fs");
   const bytes = readFileSync(path);
@@ -212,26 +213,26 @@ test("the graph exports as a PNG", async ({ page }) => {
 
 test("the Path card reads each hit's level and the path's damage from the data", async ({ page }) => {
   const explorer = new ExplorerPage(page);
-  await page.goto("/games/vesper-circuit/tarrow/explore/1");
-  // On a phone 1,2,3 lies off the first view, a pan away: the click goes to the node itself.
-  await explorer.node("1,2,3").dispatchEvent("click");
+  await page.goto("/games/vesper-circuit/tarrow/explore/n");
+  // On a phone n.v.t lies off the first view, a pan away: the click goes to the node itself.
+  await explorer.node("n.v.t").dispatchEvent("click");
   const rows = await query<{ key: string; level: string; damage: number }>(
     `select m.\`key\`, m.level, m.damage from moves m join characters c on c.id = m.character_id join editions e on e.id = m.edition_id
-     where c.slug = 'tarrow' and e.slug = '1-1' and m.\`key\` in ('1', '1,2', '1,2,3')`,
+     where c.slug = 'tarrow' and e.slug = '1-1' and m.\`key\` in ('n', 'n.v', 'n.v.t')`,
   );
   const byKey = new Map(rows.map((r) => [r.key, r]));
   const levels = await explorer.card
     .locator("ol [data-level]")
     .evaluateAll((els) => els.map((e) => e.getAttribute("data-level")));
-  expect(levels).toEqual(["1", "1,2", "1,2,3"].map((k) => byKey.get(k)?.level));
-  const damage = ["1", "1,2", "1,2,3"].reduce((sum, k) => sum + (byKey.get(k)?.damage ?? 0), 0);
+  expect(levels).toEqual(["n", "n.v", "n.v.t"].map((k) => byKey.get(k)?.level));
+  const damage = ["n", "n.v", "n.v.t"].reduce((sum, k) => sum + (byKey.get(k)?.damage ?? 0), 0);
   await expect(explorer.field("damage")).toHaveText(String(damage));
 });
 
 test("a safe ending says so plainly in the punish panel", async ({ page }) => {
   const explorer = new ExplorerPage(page);
-  await page.goto("/games/vesper-circuit/tarrow/explore/1");
-  await explorer.node("1,2").click(); // -3 on block
+  await page.goto("/games/vesper-circuit/tarrow/explore/n");
+  await explorer.select("n.v"); // -3 on block
   const panel = page.getByTestId("punish-panel");
   await panel.getByRole("combobox", { name: "Opponent" }).selectOption({ label: "Brannoch" });
   await expect(panel.getByTestId("punish-verdict")).toContainText(/^Safe/);
@@ -239,7 +240,7 @@ test("a safe ending says so plainly in the punish panel", async ({ page }) => {
 });
 
 test("sorting the table by damage puts the most damaging path first", async ({ page }) => {
-  await page.goto("/games/vesper-circuit/tarrow/explore/2");
+  await page.goto("/games/vesper-circuit/tarrow/explore/v");
   const table = page.getByTestId("paths-table");
   await expect(table.locator("tr[data-path-key]").first()).toBeVisible();
   await table.getByRole("button", { name: /^Damage/ }).click();
@@ -252,8 +253,8 @@ test("sorting the table by damage puts the most damaging path first", async ({ p
 test("on a phone the Path card leads, and the graph follows as a view to pan", async ({ browser }) => {
   const page = await browser.newPage({ viewport: { width: 390, height: 844 } });
   const explorer = new ExplorerPage(page);
-  await page.goto("/games/vesper-circuit/tarrow/explore/2");
-  await explorer.node("2,2").click();
+  await page.goto("/games/vesper-circuit/tarrow/explore/v");
+  await explorer.select("v.v");
   await expect(explorer.card).toBeVisible();
   const graph = await explorer.graph.boundingBox();
   const card = await explorer.card.boundingBox();
@@ -296,9 +297,9 @@ for (const [who, size] of [
     test.skip(testInfo.project.name !== "desktop", "each screen size is set here: one project is enough");
     const page = await browser.newPage({ viewport: size });
     const explorer = new ExplorerPage(page);
-    // Velka's 1 is the demo's widest string: it loops between two stances.
-    await page.goto("/games/vesper-circuit/velka/explore/1");
-    await expect(explorer.node("1")).toBeVisible();
+    // Quessaline's n is the demo's widest string: it loops between two stances.
+    await page.goto("/games/vesper-circuit/quessaline/explore/n");
+    await expect(explorer.node("n")).toBeVisible();
     const first = await smallestNodeText(page);
     expect(first.seen).toBeGreaterThan(0);
     expect(first.smallest).toBeGreaterThanOrEqual(12);
@@ -328,8 +329,8 @@ test("the Explorer has no serious or critical accessibility violations", async (
   // axe reads every node of the graph: on a busy machine that alone can take half a minute.
   test.setTimeout(60_000);
   const explorer = new ExplorerPage(page);
-  await page.goto("/games/vesper-circuit/tarrow/explore/2");
-  await explorer.node("2,2,3").click();
+  await page.goto("/games/vesper-circuit/tarrow/explore/v");
+  await explorer.select("v.v.t");
   await expect(explorer.card).toBeVisible();
   const { default: AxeBuilder } = await import("@axe-core/playwright");
   const results = await new AxeBuilder({ page }).analyze();

@@ -79,7 +79,7 @@ test("while MariaDB is stopped, pages, routes and forms say the database is not 
     "/",
     "/games",
     "/games/vesper-circuit/tarrow",
-    "/games/vesper-circuit/tarrow/explore/1",
+    "/games/vesper-circuit/tarrow/explore/n",
     "/teams",
     "/s/AAAAAAAAAAAAAAAAAAAAAAAA",
     "/sign-in",

@@ -203,7 +203,7 @@ async function privateGameWithPublicLink() {
   );
   const [edition] = await query<{ id: number }>("select id from editions where game_id = ? and slug = 'a'", [game!.id]);
   await query(
-    "insert into characters (game_id, slug, name) values (?, 'marrow', 'Marrow Kite'), (?, 'thistle', 'Thistle Dunmore')",
+    "insert into characters (game_id, slug, name) values (?, 'marrow', 'Marrow Kite'), (?, 'thistle', 'Thistlewhirr Dunmorrow-Q')",
     [game!.id, game!.id],
   );
   const [pinned] = await query<{ id: number }>("select id from characters where game_id = ? and slug = 'marrow'", [
@@ -233,7 +233,7 @@ test("a public link into a private game sends the browser its one character and 
   const html = await res.text();
   expect(html).toContain("Marrow Kite");
   expect(html).toContain("Sealed Build");
-  expect(html).not.toContain("Thistle Dunmore");
+  expect(html).not.toContain("Thistlewhirr Dunmorrow-Q");
   expect(html).not.toContain("Sealed Rebuild");
 });
 

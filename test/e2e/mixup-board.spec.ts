@@ -5,7 +5,7 @@ import { ExplorerPage } from "./pages/explorer-page";
 import { joinAsPlayer, signUpAs, TeamsPage } from "./pages/team-pages";
 
 // A coach's Mix-up board from first click to a shared link: made at the demo's mid/low guess
-// point (Tarrow's 1,2), a cell overridden, a child situation added, solved, a note written,
+// point (Tarrow's n.v), a cell overridden, a child situation added, solved, a note written,
 // saved, reloaded and shared; a player opens the link read-only; a second coach saving an old
 // copy is shown both versions.
 
@@ -35,27 +35,27 @@ test("a coach makes a board at a guess point, solves it, teaches it and shares i
   browser,
 }) => {
   const teamName = `Tide Room ${tag()}`;
-  await signUpAs(page, "Ysolde Marrow", `coach-${tag()}@example.test`, "/teams");
+  await signUpAs(page, "Player Ysomarrow", `coach-${tag()}@example.test`, "/teams");
   await new TeamsPage(page).create(teamName);
 
-  // The guess point: after 1,2 the string goes on into a mid (1,2,3) or a low (1,2,4).
-  await page.goto("/games/vesper-circuit/tarrow/explore/1");
+  // The guess point: after n.v the string goes on into a mid (n.v.t) or a low (n.v.r).
+  await page.goto("/games/vesper-circuit/tarrow/explore/n");
   const explorer = new ExplorerPage(page);
-  await explorer.node("1,2").click();
-  await expect(explorer.field("input")).toHaveText("1,2");
+  await explorer.select("n.v");
+  await expect(explorer.field("input")).toHaveText("n.v");
   await page.getByRole("button", { name: "Make a board" }).click();
   const dialog = page.getByRole("dialog");
-  await dialog.getByLabel("Title").fill("Tarrow's 1,2 split");
+  await dialog.getByLabel("Title").fill("Tarrow's n.v split");
   await dialog.getByRole("button", { name: "Make the board" }).click();
   await expect(page).toHaveURL(/\/teams\/[^/]+\/boards\/\d+$/);
   const boardUrl = page.url();
 
   // Filled from the engine: a blocked low leaves the defender crouching; a high ducked whiffs.
-  await cell(page, "1,2,4", "Crouch guard").click();
+  await cell(page, "n.v.r", "Crouch guard").click();
   await expect(page.getByTestId("cell-source")).toContainText("crouching");
-  await cell(page, "1,2,1", "Crouch guard").click();
+  await cell(page, "n.v.n", "Crouch guard").click();
   await expect(page.getByTestId("cell-source")).toContainText(/duck|whiff/i);
-  await cell(page, "1,2,3", "Crouch guard").click();
+  await cell(page, "n.v.t", "Crouch guard").click();
   await expect(page.getByTestId("cell-source")).toContainText("From the engine");
 
   // Solved on every change: both mixes and a value.
@@ -66,9 +66,9 @@ test("a coach makes a board at a guess point, solves it, teaches it and shares i
   const valueBefore = await page.getByTestId("board-value").textContent();
 
   // An override: the cell is marked, and the value moves.
-  await cell(page, "1,2,4", "Stand guard").click();
+  await cell(page, "n.v.r", "Stand guard").click();
   await page.getByTestId("cell-payoff").fill("60");
-  await expect(cell(page, "1,2,4", "Stand guard")).toHaveAttribute("data-overridden", "true");
+  await expect(cell(page, "n.v.r", "Stand guard")).toHaveAttribute("data-overridden", "true");
   await expect(page.getByTestId("board-value")).not.toHaveText(valueBefore ?? "");
 
   // A child situation after the cancel into the stance, filled by hand.
@@ -93,7 +93,7 @@ test("a coach makes a board at a guess point, solves it, teaches it and shares i
   await page.getByRole("navigation", { name: "Situations" }).getByRole("button", { name: "In the back-step" }).click();
   await expect(page.getByLabel("Coach's note")).toHaveValue("Mix the two: the back-step keeps your turn.");
   await page.getByRole("navigation", { name: "Situations" }).getByRole("button").first().click();
-  await expect(cell(page, "1,2,4", "Stand guard")).toHaveAttribute("data-overridden", "true");
+  await expect(cell(page, "n.v.r", "Stand guard")).toHaveAttribute("data-overridden", "true");
 
   // Shared, and the board is on the team page.
   await page.getByRole("button", { name: "Share" }).click();
@@ -102,7 +102,7 @@ test("a coach makes a board at a guess point, solves it, teaches it and shares i
   await page.getByRole("dialog").getByRole("button", { name: "Close" }).click();
 
   // A player of the team opens the link: read-only, note and numbers there.
-  const player = await joinAsPlayer(browser, teamName, "Pell Orrin");
+  const player = await joinAsPlayer(browser, teamName, "Player Orrinax");
   await player.goto(link);
   await expect(player.getByTestId("board")).toBeVisible();
   await expect(player.getByRole("button", { name: "Save" })).toHaveCount(0);
@@ -117,26 +117,26 @@ test("a coach makes a board at a guess point, solves it, teaches it and shares i
 
   // The team page lists the board for the player too.
   await player.goto(boardUrl.replace(/\/boards\/\d+$/, ""));
-  await expect(player.getByTestId("board-list")).toContainText("Tarrow's 1,2 split");
+  await expect(player.getByTestId("board-list")).toContainText("Tarrow's n.v split");
   await page.goto(boardUrl.replace(/\/boards\/\d+$/, ""));
-  await expect(page.getByTestId("team-log")).toContainText("saved the Mix-up board “Tarrow's 1,2 split” (version 2)");
+  await expect(page.getByTestId("team-log")).toContainText("saved the Mix-up board “Tarrow's n.v split” (version 2)");
   await page.goto(boardUrl);
 
   // A second coach opens the board, the first saves, the second saves an old copy.
   const second = await (await browser.newContext()).newPage();
   const secondEmail = `coach-${tag()}@example.test`;
-  await signUpAs(second, "Brannoch Vey", secondEmail, "/teams");
+  await signUpAs(second, "Player Brannowisp", secondEmail, "/teams");
   await query(
     `insert into memberships (team_id, user_id, role)
      select t.id, u.id, 'coach' from teams t, users u where t.name = ? and u.email = ?`,
     [teamName, secondEmail],
   );
   await second.goto(boardUrl);
-  await page.getByLabel("Board title").fill("Tarrow's 1,2 split (first coach)");
+  await page.getByLabel("Board title").fill("Tarrow's n.v split (first coach)");
   await page.getByRole("button", { name: "Save" }).click();
   await expect(page.getByTestId("save-state")).toHaveText("Saved · version 3");
 
-  await second.getByLabel("Board title").fill("Tarrow's 1,2 split (second coach)");
+  await second.getByLabel("Board title").fill("Tarrow's n.v split (second coach)");
   await second.getByRole("button", { name: "Save" }).click();
   const conflict = second.getByTestId("board-conflict");
   await expect(conflict).toBeVisible();

@@ -164,8 +164,8 @@ test("a visitor goes from the landing page to a character's move list read from 
 test("a string reads as its start, its levels and how it ends; each step shows only what it adds", async ({ page }) => {
   const list = new MoveListPage(page);
   await page.goto("/games/vesper-circuit/tarrow");
-  // Tarrow's 1 (demo data): 1 +1; ,2 -3; ,1 -4; ,3 -8; ,4 -13; ~b into Drift -1 (fastest attack 10).
-  const one = list.string("1");
+  // Tarrow's n (demo data): n +1; -v -3; -n -4; -t -8; -r -13; ~ebb into Drift -1 (fastest attack 11).
+  const one = list.string("n");
   await expect(one.locator('[data-field="levels"] [data-level]')).toHaveCount(3);
   await expect(one.locator('[data-field="endings"] li')).toHaveText([
     "1 plus",
@@ -173,37 +173,37 @@ test("a string reads as its start, its levels and how it ends; each step shows o
     "1 safe via cancel",
     "1 punishable",
   ]);
-  await list.open("1");
-  await expect(list.row("1,2").getByRole("rowheader")).toContainText(",2");
-  await expect(list.row("1,2").getByRole("rowheader")).not.toContainText("1,2");
-  await expect(list.row("1,2").getByRole("rowheader")).toContainText("guess point");
-  await expect(list.row("1,2,4").locator('[data-field="gapOnBlock"]')).toHaveText("gap 5");
-  await expect(list.row("1,2").locator('[data-field="gapOnBlock"]')).toHaveText("jail · combo");
-  const cancel = page.locator('tr[data-cancel-key="1,2~b>drift"]');
-  await expect(cancel.getByRole("rowheader")).toContainText("~b");
+  await list.open("n");
+  await expect(list.row("n.v").getByRole("rowheader")).toContainText(".v");
+  await expect(list.row("n.v").getByRole("rowheader")).not.toContainText("n.v");
+  await expect(list.row("n.v").getByRole("rowheader")).toContainText("guess point");
+  await expect(list.row("n.v.r").locator('[data-field="gapOnBlock"]')).toHaveText("gap 5");
+  await expect(list.row("n.v").locator('[data-field="gapOnBlock"]')).toHaveText("jail · combo");
+  const cancel = page.locator('tr[data-cancel-key="n.v~ebb>drift"]');
+  await expect(cancel.getByRole("rowheader")).toContainText("~ebb");
   await expect(cancel.locator('[data-field="framesSaved"]')).toHaveText("saves 2f");
   // The button says whether the string is open, and closes it again from the keyboard.
-  const button = one.getByRole("button", { name: "Steps of 1" });
+  const button = one.getByRole("button", { name: "Steps of n" });
   await expect(button).toHaveAttribute("aria-expanded", "true");
   await button.focus();
   await page.keyboard.press("Enter");
   await expect(button).toHaveAttribute("aria-expanded", "false");
-  await expect(list.row("1,2")).toBeHidden();
+  await expect(list.row("n.v")).toBeHidden();
 });
 
 test("switching the edition shows that edition's frame data", async ({ page }) => {
   const list = new MoveListPage(page);
   await page.goto("/games/vesper-circuit/tarrow");
-  const [newer] = (await movesOf("tarrow", "1-1")).filter((m) => m.key === "d+4");
-  const [older] = (await movesOf("tarrow", "1-0")).filter((m) => m.key === "d+4");
+  const [newer] = (await movesOf("tarrow", "1-1")).filter((m) => m.key === "sink+r");
+  const [older] = (await movesOf("tarrow", "1-0")).filter((m) => m.key === "sink+r");
   expect(newer?.on_block).not.toEqual(older?.on_block);
 
-  await list.open("d+4");
-  await expect(list.field("d+4", "onBlock")).toHaveText(signed(Number(newer?.on_block)));
+  await list.open("sink+r");
+  await expect(list.field("sink+r", "onBlock")).toHaveText(signed(Number(newer?.on_block)));
   await list.chooseEdition("1.0 Launch");
   await expect(page).toHaveURL(/edition=1-0/);
-  await list.open("d+4");
-  await expect(list.field("d+4", "onBlock")).toHaveText(signed(Number(older?.on_block)));
+  await list.open("sink+r");
+  await expect(list.field("sink+r", "onBlock")).toHaveText(signed(Number(older?.on_block)));
 });
 
 test("filters and the order live in the address, survive a reload, and an empty result offers the way back", async ({
@@ -261,7 +261,7 @@ test("filters and the order live in the address, survive a reload, and an empty 
 
   // One stance only: its section alone.
   await list.filters.getByLabel("Done from").selectOption({ label: "Drift" });
-  await expect(page.locator("section:has(tr[data-string-key]) h2")).toHaveText(["From Drift (DRF)"]);
+  await expect(page.locator("section:has(tr[data-string-key]) h2")).toHaveText(["From Drift (drift)"]);
 
   // Nothing matches: say so, and put the filters back.
   await page.goto("/games/vesper-circuit/tarrow?level=throw&ending=plus");
@@ -306,7 +306,7 @@ test("on a 390 px phone every row shows its input, its levels and its ending on 
 
 test("the open list has no serious accessibility problem", async ({ page }, testInfo) => {
   const list = new MoveListPage(page);
-  await page.goto("/games/vesper-circuit/velka");
+  await page.goto("/games/vesper-circuit/quessaline");
   await list.openAll();
   await expectNoSeriousAxe(page, "every string open");
   // Each figure is in a real table cell under its header; a phone keeps startup and damage under the input.

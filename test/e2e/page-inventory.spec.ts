@@ -106,7 +106,7 @@ const membersOnly = (stranger: Answer = 404): Record<Visitor, Answer> => ({
 const signedIn: Record<Visitor, Answer> = { ...all(200), anonymous: "sign-in" };
 const signedOut: Record<Visitor, Answer> = { ...all("home"), anonymous: 200 };
 
-const demoMove = "/games/vesper-circuit/tarrow/explore/2";
+const demoMove = "/games/vesper-circuit/tarrow/explore/v";
 const privateCharacter = `/games/${data.gameSlug}/hidden-lantern`;
 
 /**
@@ -163,12 +163,12 @@ const PAGES: Record<string, Target[]> = {
     },
     {
       what: "what changed, with a view of the paths that cannot be read",
-      path: "/games/vesper-circuit/velka/changes?change=all&q=%25E0&sort=damage&dir=up&page=-1&page=2",
+      path: "/games/vesper-circuit/quessaline/changes?change=all&q=%25E0&sort=damage&dir=up&page=-1&page=2",
       expect: all(200),
     },
     {
       what: "what changed, filtered and sorted past the first page",
-      path: "/games/vesper-circuit/velka/changes?from=1-0&to=1-1&change=jails&q=4&sort=onHit&dir=desc&page=9",
+      path: "/games/vesper-circuit/quessaline/changes?from=1-0&to=1-1&change=jails&q=4&sort=onHit&dir=desc&page=9",
       expect: all(200),
     },
     {
@@ -493,7 +493,7 @@ async function makeTeamA() {
      join editions e on e.game_id = g.id where g.slug = 'vesper-circuit' and c.slug = 'tarrow' and e.slug = '1-1'`,
   );
   const view = JSON.stringify({
-    root: "2",
+    root: "v",
     path: null,
     options: { maxDepth: 8, maxStanceVisits: 1, fastest: 10 },
     opponent: null,

@@ -141,9 +141,9 @@ test("a player shares a stance sheet; anyone with the link reads the same figure
   const { sheet } = await engineSheet(page);
   const teamName = `Sheet Crew ${randomUUID().slice(0, 6)}`;
   await query("delete from rate_limits");
-  await signUpAs(page, "Oda Vantree", `owner-${randomUUID().slice(0, 8)}@example.test`, "/teams");
+  await signUpAs(page, "Coach Vantreelo", `owner-${randomUUID().slice(0, 8)}@example.test`, "/teams");
   await new TeamsPage(page).create(teamName);
-  const player = await joinAsPlayer(browser, teamName, "Ressa Quill");
+  const player = await joinAsPlayer(browser, teamName, "Player Ressaquill-5");
 
   await player.goto(SHEET);
   await player.getByRole("button", { name: "Share" }).click();

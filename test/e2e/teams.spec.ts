@@ -29,7 +29,7 @@ test("an owner invites a player by e-mail; the player accepts from the mail and 
   const playerEmail = newEmail("player");
   const teamName = `Harbor Lights ${randomUUID().slice(0, 4)}`;
 
-  await signUpAs(page, "Mara Quell", ownerEmail, "/teams");
+  await signUpAs(page, "Player Quellborn-7", ownerEmail, "/teams");
   await expect(page.getByTestId("no-teams")).toBeVisible();
   const team = await new TeamsPage(page).create(teamName);
   await expect(team.member(ownerEmail)).toContainText("owner");
@@ -48,7 +48,7 @@ test("an owner invites a player by e-mail; the player accepts from the mail and 
   await player.getByRole("link", { name: "Create an account to accept" }).click();
   // The address the invite went to is filled in.
   await expect(player.getByRole("form", { name: "Create your account" }).getByLabel("E-mail")).toHaveValue(playerEmail);
-  await player.getByRole("form", { name: "Create your account" }).getByLabel("Name").fill("Jun Okada");
+  await player.getByRole("form", { name: "Create your account" }).getByLabel("Name").fill("Player Okadrune");
   await player.getByRole("form", { name: "Create your account" }).getByLabel("Password").fill("frame-trap-drills");
   await player.getByRole("button", { name: "Create account" }).click();
   // The address is proven through the mail; its link leads back to the invite, signed in.
@@ -70,7 +70,7 @@ test("an owner invites a player by e-mail; the player accepts from the mail and 
   await page.reload();
   await expect(team.member(playerEmail)).toContainText("player");
   await expect(team.log).toContainText(`invited ${playerEmail} as player`);
-  await expect(team.log).toContainText("Jun Okada");
+  await expect(team.log).toContainText("Player Okadrune");
 });
 
 test("a player shares a permalink; a stranger opens the public one, is refused the team-only one; a revoked link is a 404", async ({
@@ -78,7 +78,7 @@ test("a player shares a permalink; a stranger opens the public one, is refused t
   browser,
 }) => {
   const playerEmail = newEmail("sharer");
-  await signUpAs(page, "Ivo Stratt", playerEmail);
+  await signUpAs(page, "Player Strattlebee", playerEmail);
   // The team and the player's place in it come straight from the database: this test is about sharing.
   const [player] = await query<{ id: string }>("select id from users where email = ?", [playerEmail]);
   const slug = `share-crew-${randomUUID().slice(0, 6)}`;
@@ -87,9 +87,9 @@ test("a player shares a permalink; a stranger opens the public one, is refused t
   await query("insert into memberships (team_id, user_id, role) values (?, ?, 'player')", [team!.id, player!.id]);
 
   const explorer = new ExplorerPage(page);
-  await page.goto("/games/vesper-circuit/tarrow/explore/2");
-  await explorer.node("2,2").click();
-  await expect(explorer.field("input")).toContainText("2,2");
+  await page.goto("/games/vesper-circuit/tarrow/explore/v");
+  await explorer.select("v.v");
+  await expect(explorer.field("input")).toContainText("v.v");
 
   const share = async (who: "Anyone with the link" | "Team only") => {
     await page.getByRole("button", { name: "Share" }).click();
@@ -113,8 +113,8 @@ test("a player shares a permalink; a stranger opens the public one, is refused t
   const shown = await stranger.goto(open);
   expect(shown?.status()).toBe(200);
   const strangerView = new ExplorerPage(stranger);
-  await expect(strangerView.pathMark("2,2")).toHaveCount(1);
-  await expect(strangerView.field("input")).toContainText("2,2");
+  await expect(strangerView.pathMark("v.v")).toHaveCount(1);
+  await expect(strangerView.field("input")).toContainText("v.v");
   await expect(stranger.getByText(/Pinned to edition/)).toBeVisible();
   // Link previews get a PNG of it.
   const image = await stranger.locator('meta[property="og:image"]').getAttribute("content");
@@ -131,7 +131,7 @@ test("a player shares a permalink; a stranger opens the public one, is refused t
     "href",
     `/sign-in?callbackUrl=${encodeURIComponent(new URL(teamOnly).pathname)}`,
   );
-  await signUpAs(stranger, "Pell Vantor", newEmail("stranger"));
+  await signUpAs(stranger, "Player Vantorel", newEmail("stranger"));
   const refused = await stranger.goto(teamOnly);
   expect(refused?.status()).toBe(404);
   await expect(stranger.getByRole("heading", { name: "This link is not available" })).toBeVisible();
@@ -151,7 +151,7 @@ test("a player shares a permalink; a stranger opens the public one, is refused t
 });
 
 test("a team name that looks like a script or SQL is shown as the text it is", async ({ page }) => {
-  await signUpAs(page, "Ada Vell", newEmail("text"), "/teams");
+  await signUpAs(page, "Coach Vellumora", newEmail("text"), "/teams");
   const name = `<img src=x onerror="window.ffInjected=1"> Crew'); DROP TABLE teams;--`;
   await new TeamsPage(page).create(name);
   await expect(page.getByRole("heading", { level: 1 })).toHaveText(name);
@@ -187,7 +187,7 @@ test("the sign-up, team, invite and shared pages have no serious or critical acc
 });
 
 test("past the hourly limit on invites, the invite form says so and how long to wait", async ({ page }) => {
-  await signUpAs(page, "Ivo Stratt", newEmail("limit"), "/teams");
+  await signUpAs(page, "Player Strattlebee", newEmail("limit"), "/teams");
   const team = await new TeamsPage(page).create(`Busy Roster ${randomUUID().slice(0, 4)}`);
   const { origin, pathname } = new URL(page.url());
   // A whole roster sent at once (through the API, as the form does), up to the limit for one sender.

@@ -331,7 +331,7 @@ export function ChangedPathsTable({
             value={text}
             maxLength={100}
             onChange={(e) => setText(e.target.value)}
-            placeholder="e.g. 1,2"
+            placeholder="e.g. n.v"
             className={`${control} w-32 font-mono`}
           />
         </label>

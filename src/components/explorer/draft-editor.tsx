@@ -294,7 +294,7 @@ function MoveFields({
   const errors = form.formState.errors;
   return (
     <div className="grid grid-cols-2 gap-2">
-      <TextInput form={form} name="input" id={`${prefix}-input`} label="Input" hint="e.g. 1,2 or LC.3" />
+      <TextInput form={form} name="input" id={`${prefix}-input`} label="Input" hint="e.g. n.v or drift:t" />
       <TextInput form={form} name="name" id={`${prefix}-name`} label="Name" />
       {withKey && (
         <TextInput form={form} name="key" id={`${prefix}-key`} label="Key (optional)" hint="Defaults to the input" />
@@ -672,7 +672,7 @@ function NewCancel({
       {making && (
         <div className="grid grid-cols-3 gap-2">
           <TextInput form={form} name="stanceName" id="new-stance-name" label="Stance name" />
-          <TextInput form={form} name="stanceLabel" id="new-stance-label" label="Short label" hint="e.g. DRF" />
+          <TextInput form={form} name="stanceLabel" id="new-stance-label" label="Short label" hint="e.g. drift" />
           <TextInput
             form={form}
             name="stanceKey"

@@ -18,7 +18,7 @@ export interface StanceWayIn {
   cancel: string;
   /** The cancelled move's id. */
   from: string;
-  /** The cancelled move's input and the cancel's, e.g. "1,2~b". */
+  /** The cancelled move's input and the cancel's, e.g. "n.v~ebb". */
   input: string;
   raw: { onBlock: Outcome; blockClass: BlockClass };
   cancelled: { onBlock: Outcome; blockClass: BlockClass; onHit: Outcome; onCounterHit: Outcome };

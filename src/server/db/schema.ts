@@ -138,7 +138,7 @@ export const moves = mysqlTable(
       .references(() => characters.id, { onDelete: "cascade" }),
     /** Stable across editions. */
     key: varchar("key", { length: 64 }).notNull(),
-    /** The whole notation to reach this hit, e.g. `1,2,4` or `DRF 3`. */
+    /** The whole notation to reach this hit, e.g. the demo's `n.v.r` or `drift:v`. */
     input: varchar("input", { length: 64 }).notNull(),
     name: varchar("name", { length: 120 }).notNull(),
     level: mysqlEnum("level", LEVELS).notNull(),

@@ -3,6 +3,7 @@ import { GET } from "@/app/api/characters/[id]/graph/route";
 import { explorePaths, graphSchema, type MoveGraph } from "@/lib/engine";
 import { closeDb } from "@/server/db";
 import { getCharacterBySlug, getGameBySlug } from "@/server/db/queries/games";
+import { DEMO_GAME } from "@/server/db/seed/demo";
 
 // Reads the seeded test database that `npm test` prepares.
 afterAll(closeDb);
@@ -28,20 +29,20 @@ describe("GET /api/characters/[id]/graph", () => {
       game: { fastest: number };
     };
     expect(body.edition.slug).toBe("1-1");
-    expect(body.game.fastest).toBe(10);
+    expect(body.game.fastest).toBe(DEMO_GAME.fastest);
     expect(graphSchema.safeParse(body.graph).success).toBe(true);
-    expect(body.roots).toContain("1");
-    expect(body.roots).not.toContain("1,2");
+    expect(body.roots).toContain("n");
+    expect(body.roots).not.toContain("n.v");
 
-    // 2,2,3 cancelled into Ember Guard: -14 → -3 in 1.1, 11 frames saved.
-    const cancelled = explorePaths(body.graph, "2").find((p) => p.input === "2,2,3~f");
+    // v.v.t cancelled into Ember Guard: -14 → -3 in 1.1, 11 frames saved.
+    const cancelled = explorePaths(body.graph, "v").find((p) => p.input === "v.v.t~press");
     expect(cancelled).toMatchObject({ endsIn: "stance", onBlock: -3, framesSaved: 11, blockClass: "safe" });
   });
 
   test("an older Edition by slug has its own numbers", async () => {
     const res = await get(await tarrowId(), "?edition=1-0");
     const body = (await res.json()) as { graph: MoveGraph };
-    const cancelled = explorePaths(body.graph, "2").find((p) => p.input === "2,2,3~f");
+    const cancelled = explorePaths(body.graph, "v").find((p) => p.input === "v.v.t~press");
     expect(cancelled?.onBlock).toBe(-4);
   });
 

@@ -44,7 +44,7 @@ async function outboxTo(address: string) {
 }
 
 /** An account made through the sign-up form, its mail still unread. */
-async function signUpAs(email: string, password = PASSWORD, name = "Sera Holloway") {
+async function signUpAs(email: string, password = PASSWORD, name = "Coach Hollowvane") {
   await answer(signUp, { name, email, password });
   await runAfterAnswer();
   const [user] = await getDb().select().from(users).where(eq(users.email, email));
@@ -101,7 +101,7 @@ describe("an account works only once its address is proven", () => {
     const cookie = jar.get(sessionCookie().name);
     const claims = await decode({ token: cookie!, secret: process.env.NEXTAUTH_SECRET! });
     expect(claims).toMatchObject({ sub: user.id, sv: after!.sessionVersion });
-    expect(await userForToken(claims)).toEqual({ id: user.id, email, name: "Sera Holloway" });
+    expect(await userForToken(claims)).toEqual({ id: user.id, email, name: "Coach Hollowvane" });
 
     expect(await authorizePassword({ email, password: PASSWORD }, someIp())).toMatchObject({ id: user.id });
     expect(await answer(confirmEmail, { token })).toMatchObject({ ok: false, code: "conflict" });

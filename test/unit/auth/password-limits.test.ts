@@ -27,7 +27,7 @@ async function newAccount(): Promise<string> {
   // A proven account: these tests are about counting passwords, not about proving addresses.
   await getDb()
     .insert(users)
-    .values({ email, name: "Ada Lorne", passwordHash: await hashPassword(PASSWORD), emailVerified: new Date() });
+    .values({ email, name: "Coach Lornavex", passwordHash: await hashPassword(PASSWORD), emailVerified: new Date() });
   made.push(email);
   return email;
 }
@@ -117,7 +117,7 @@ describe("password limits", () => {
   test("a wrong current password when changing it counts like a wrong sign-in, for that address only", async () => {
     const email = await newAccount();
     const user = await findUserByEmail({ email });
-    setSession({ id: user!.id, email, name: "Ada Lorne" });
+    setSession({ id: user!.id, email, name: "Coach Lornavex" });
     actionAddress = newAddress();
     const change = async (currentPassword: string) => {
       const form = new FormData();

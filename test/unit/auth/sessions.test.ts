@@ -41,11 +41,11 @@ async function account({ proven = true } = {}) {
     .values({
       id,
       email,
-      name: "Teo Marr",
+      name: "Player Marrtesk",
       passwordHash: await hashPassword(PASSWORD),
       emailVerified: proven ? new Date() : null,
     });
-  const user = { id, email, name: "Teo Marr" };
+  const user = { id, email, name: "Player Marrtesk" };
   return { user, token: claimsFor({ ...user, sessionVersion: 0 }) };
 }
 
@@ -68,8 +68,8 @@ describe("every request checks its session against the database", () => {
   test("a current token is the user, with the name and e-mail the database has now", async () => {
     const { user, token } = await account();
     expect(await whoIs(token)).toEqual(user);
-    await db.update(users).set({ name: "Teo Marr-Vale" }).where(eq(users.id, user.id));
-    expect(await whoIs({ ...token, name: "stale" })).toEqual({ ...user, name: "Teo Marr-Vale" });
+    await db.update(users).set({ name: "Player Marrvane-Tesk" }).where(eq(users.id, user.id));
+    expect(await whoIs({ ...token, name: "stale" })).toEqual({ ...user, name: "Player Marrvane-Tesk" });
   });
 
   test("a token under an older version, of a deleted user, or of an unproven address is nobody", async () => {

@@ -66,16 +66,16 @@ describe("a team's game", () => {
       teamId: ctx.teamId,
       gameId: game.id,
       actorId: ctx.coachId,
-      input: { name: "Ona Vell" },
+      input: { name: "Player Vantorix" },
     });
     const b = await createCharacter({
       teamId: ctx.teamId,
       gameId: game.id,
       actorId: ctx.coachId,
-      input: { name: "Ona Vell" },
+      input: { name: "Player Vantorix" },
     });
-    expect(a.slug).toBe("ona-vell");
-    expect(b.slug).toMatch(/^ona-vell-[0-9a-f]{6}$/);
+    expect(a.slug).toBe("player-vantorix");
+    expect(b.slug).toMatch(/^player-vantorix-[0-9a-f]{6}$/);
   });
 });
 
@@ -124,7 +124,7 @@ describe("Editions", () => {
       teamId: ctx.teamId,
       gameId: game.id,
       actorId: ctx.coachId,
-      input: { name: "Pell" },
+      input: { name: "Pellowix" },
     });
     const stance = { key: "veil", name: "Veil", abbreviation: "VL" };
     const args = {

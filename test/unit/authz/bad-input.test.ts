@@ -156,7 +156,7 @@ const ROUTES: BodyRoute[] = [
     name: "POST /api/games/[game]/characters",
     handler: createCharacter as Handler,
     params: (w) => ({ game: w.teamGame.slug }),
-    good: () => ({ name: "Wren Falloway", summary: "Keeps you out." }),
+    good: () => ({ name: "Player Glimmerdusk", summary: "Keeps you out." }),
     text: ["name", "summary"],
     stored: storedOfGames,
   },
@@ -301,7 +301,7 @@ test("a team name with a line break, a control or a text-direction character is 
 
 test("sign-up refuses a display name with a line break or a text-direction character, and makes no account", async () => {
   const { signUp } = await import("@/app/(auth)/actions");
-  for (const name of ["Mara\nQuell", "Mara\u202EllueQ"]) {
+  for (const name of ["Player\nQuellborn", "Player\u202EQuellborn"]) {
     const email = `name-check-${randomUUID().slice(0, 8)}@example.test`;
     const form = new FormData();
     for (const [k, v] of Object.entries({ name, email, password: "long enough password" })) form.set(k, v);

@@ -145,12 +145,12 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
   "POST /api/games/[game]/characters": [
     {
       what: "add a character to the team's game",
-      call: (w) => ({ params: { game: w.teamGame.slug }, body: { name: "Wren Falloway" } }),
+      call: (w) => ({ params: { game: w.teamGame.slug }, body: { name: "Player Glimmerdusk" } }),
       expect: atLeastCoach(201),
     },
     {
       what: "add a character to the demo game (read-only)",
-      call: () => ({ params: { game: "vesper-circuit" }, body: { name: "Wren Falloway" } }),
+      call: () => ({ params: { game: "vesper-circuit" }, body: { name: "Player Glimmerdusk" } }),
       expect: { ...all(403), anonymous: 401 },
     },
   ],

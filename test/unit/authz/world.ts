@@ -13,7 +13,7 @@ import { characters, edges, editions, games, memberships, moves } from "@/server
 import { makeUser } from "../teams/fixtures";
 
 export const VIEW = {
-  root: "2",
+  root: "v",
   path: null,
   options: { maxDepth: 8, maxStanceVisits: 1, fastest: 10 },
   opponent: null,

@@ -51,7 +51,7 @@ describe("the example character, Merrith", () => {
     expect(json.moves.filter((m) => m.stance === "lantern").length).toBeGreaterThanOrEqual(2);
     const graph = toMoveGraph(json);
     const longest = Math.max(
-      ...explorePaths(graph, "1", { maxDepth: 3 })
+      ...explorePaths(graph, "n", { maxDepth: 3 })
         .filter(
           (p) => p.endsIn === "move" && p.edges.every((id) => graph.edges.find((e) => e.id === id)?.kind === "follow"),
         )
@@ -59,7 +59,7 @@ describe("the example character, Merrith", () => {
     );
     expect(longest).toBe(3);
     // A path from a string through a cancel into Lantern and on into a stance move.
-    const through = explorePaths(graph, "1", { maxDepth: 3 }).map((p) => p.nodes.join(" "));
-    expect(through).toContain("1 1,2 stance:lantern LNT:1");
+    const through = explorePaths(graph, "n", { maxDepth: 3 }).map((p) => p.nodes.join(" "));
+    expect(through).toContain("n n.v stance:lantern lantern:n");
   });
 });

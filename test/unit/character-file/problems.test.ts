@@ -473,15 +473,15 @@ describe("a JSON file with mistakes: every problem with its path", () => {
     const e = example();
     (e.edges as unknown[]).push({
       kind: "follow",
-      from: "1,2,3",
-      to: "1",
-      input: ",1",
+      from: "n.v.t",
+      to: "n",
+      input: ".n",
       gapOnBlock: 2,
       comboOnHit: false,
       comboOnCounterHit: false,
     });
     expect(problems(e)).toEqual([
-      `edges[${(e.edges as unknown[]).length - 1}]: these hits follow each other in a loop: 1 → 1,2 → 1,2,3 → 1; a string can only come back to a hit through a stance`,
+      `edges[${(e.edges as unknown[]).length - 1}]: these hits follow each other in a loop: n → n.v → n.v.t → n; a string can only come back to a hit through a stance`,
     ]);
   });
 

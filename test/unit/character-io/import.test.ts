@@ -14,7 +14,7 @@ import { importInto, move, rowCounts, teamWithDraft } from "./fixtures";
 afterAll(closeDb);
 
 const base = (ms: PortableMove[]): PortableCharacter => ({
-  character: { slug: "tess-arrow", name: "Tess Arrow", summary: "Keeps out." },
+  character: { slug: "arrowquint", name: "Player Arrowquint", summary: "Keeps out." },
   stances: [],
   moves: ms,
   edges: [],
@@ -65,10 +65,10 @@ describe("importCharacter", () => {
   test("the name and summary of the character stay the game's: the preview says the file's differ", async () => {
     const t = await teamWithDraft(base([]).character);
     const scope = { editionId: t.edition.id, characterId: t.characterId };
-    const file = { ...base([move("1")]), character: { slug: "tess-arrow", name: "Tess A.", summary: null } };
+    const file = { ...base([move("1")]), character: { slug: "arrowquint", name: "Player A.", summary: null } };
     const r = await importInto(t, file);
     expect(r.ok && r.preview.kept).toEqual([
-      { field: "name", before: "Tess Arrow", after: "Tess A." },
+      { field: "name", before: "Player Arrowquint", after: "Player A." },
       { field: "summary", before: "Keeps out.", after: null },
     ]);
     expect((await loadPortableCharacter(scope))?.character).toEqual(base([]).character);

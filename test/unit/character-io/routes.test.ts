@@ -25,9 +25,9 @@ import { move, rowCounts, teamWithDraft, type Target } from "./fixtures";
 vi.mock("@/server/auth", () => import("../authz/session-mock"));
 afterAll(closeDb);
 
-const SLUG = "ona-vell";
+const SLUG = "vantorix";
 const ONA: PortableCharacter = {
-  character: { slug: SLUG, name: "Ona Vell", summary: null },
+  character: { slug: SLUG, name: "Player Vantorix", summary: null },
   stances: [{ key: "low-guard", name: "Low Guard", abbreviation: "LG", notes: null }],
   moves: [move("1"), move("1,2", { startup: null }), move("LG:2", { stance: "low-guard" })],
   edges: [

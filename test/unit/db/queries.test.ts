@@ -3,6 +3,7 @@ import { closeDb } from "@/server/db";
 import { getCharacterBySlug, getGameBySlug, listCharacters, listEditions, listGames } from "@/server/db/queries/games";
 import { getMoveList } from "@/server/db/queries/moves";
 import { checkDatabase } from "@/server/db/queries/health";
+import { DEMO_GAME } from "@/server/db/seed/demo";
 
 // These read the seeded test database that `npm test` prepares.
 afterAll(closeDb);
@@ -20,7 +21,12 @@ describe("game queries", () => {
   test("list the demo game with its frame-rate settings", async () => {
     const games = await listGames();
     const game = games.find((g) => g.slug === "vesper-circuit");
-    expect(game).toMatchObject({ name: "Vesper Circuit", fps: 60, fastest: 10, launchAt: 15 });
+    expect(game).toMatchObject({
+      name: "Vesper Circuit",
+      fps: DEMO_GAME.fps,
+      fastest: DEMO_GAME.fastest,
+      launchAt: DEMO_GAME.launchAt,
+    });
   });
 
   test("editions come newest first", async () => {
@@ -32,7 +38,7 @@ describe("game queries", () => {
   test("characters are listed by name; unknown slugs give null", async () => {
     const { game } = await demo();
     const cast = await listCharacters({ gameId: game.id });
-    expect(cast.map((c) => c.name)).toEqual(["Brannoch", "Tarrow", "Velka"]);
+    expect(cast.map((c) => c.name)).toEqual(["Brannoch", "Quessaline", "Tarrow"]);
     expect(await getCharacterBySlug({ gameId: game.id, slug: "nobody" })).toBeNull();
     expect(await getGameBySlug({ slug: "no-such-game" })).toBeNull();
   });
@@ -53,34 +59,34 @@ describe("getMoveList", () => {
     expect(list.stances.map((s) => s.name)).toEqual(["Drift", "Ember Guard"]);
 
     const byKey = new Map(list.moves.map((m) => [m.key, m]));
-    const jab = byKey.get("1");
+    const jab = byKey.get("n");
     expect(jab).toMatchObject({
-      input: "1",
+      input: "n",
       level: "high",
-      startup: 10,
+      startup: 11,
       onBlock: 1,
       via: null,
       depth: 0,
       stance: null,
     });
-    expect(byKey.get("1,2,3")).toMatchObject({
+    expect(byKey.get("n.v.t")).toMatchObject({
       level: "mid",
       onCounterHit: { state: "knockdown" },
       depth: 2,
-      via: { kind: "follow", input: ",3", gapOnBlock: 3, comboOnHit: false, comboOnCounterHit: true },
+      via: { kind: "follow", input: ".t", gapOnBlock: 3, comboOnHit: false, comboOnCounterHit: true },
     });
-    const stanceMove = byKey.get("DRF:2");
+    const stanceMove = byKey.get("drift:v");
     expect(stanceMove?.stance?.name).toBe("Drift");
-    expect(stanceMove?.via).toEqual({ kind: "enter", input: ":2" });
+    expect(stanceMove?.via).toEqual({ kind: "enter", input: ":v" });
 
-    const cancel = list.cancels.find((c) => c.key === "2,2,3~f>ember");
+    const cancel = list.cancels.find((c) => c.key === "v.v.t~press>ember");
     expect(cancel).toMatchObject({
-      input: "~f",
+      input: "~press",
       onBlock: -3,
       autoGuard: ["high", "mid"],
       stance: { name: "Ember Guard" },
     });
-    expect(cancel?.fromId).toBe(byKey.get("2,2,3")?.id);
+    expect(cancel?.fromId).toBe(byKey.get("v.v.t")?.id);
 
     // Rows are DTOs: no database-only columns leak out.
     expect(Object.keys(jab ?? {})).not.toContain("editionId");
@@ -91,7 +97,7 @@ describe("getMoveList", () => {
     const [newer, older] = await Promise.all(
       editions.map((e) => getMoveList({ characterId: tarrow.id, editionId: e.id })),
     );
-    const shin = (l: typeof newer) => l?.moves.find((m) => m.key === "d+4")?.onBlock;
+    const shin = (l: typeof newer) => l?.moves.find((m) => m.key === "sink+r")?.onBlock;
     expect(shin(newer)).toBe(-13);
     expect(shin(older)).toBe(-12);
   });

@@ -304,25 +304,25 @@ describe("cellPayoff and explainCell on each kind of cell", () => {
 });
 
 describe("fillSituation on the demo game", () => {
-  // Tarrow's 1,2 (Vesper Circuit 1.0, invented data) splits into a high, a mid and a low, and
-  // Velka's neutral moves answer it.
+  // Tarrow's n.v (Vesper Circuit 1.0, invented data) splits into a high, a mid and a low, and
+  // Quessaline's neutral moves answer it.
   const tarrow = toMoveGraph(DEMO_CHARACTERS.find((c) => c.slug === "tarrow")!.data("1-0"));
-  const velka = toMoveGraph(DEMO_CHARACTERS.find((c) => c.slug === "velka")!.data("1-0"));
-  const entered = new Set(velka.edges.filter((e) => e.kind !== "cancel").map((e) => e.to));
-  const opponent: OpponentMove[] = velka.nodes.flatMap((n) =>
+  const quessaline = toMoveGraph(DEMO_CHARACTERS.find((c) => c.slug === "quessaline")!.data("1-0"));
+  const entered = new Set(quessaline.edges.filter((e) => e.kind !== "cancel").map((e) => e.to));
+  const opponent: OpponentMove[] = quessaline.nodes.flatMap((n) =>
     n.kind === "move" && !entered.has(n.id) && n.startup !== undefined
       ? [{ id: n.id, input: n.input, startup: n.startup, damage: n.damage, from: postureOf(n.input) }]
       : [],
   );
 
   test("a mid/low guess point of an explored path: each cell is what the engine says of that path", () => {
-    const paths = explorePaths(tarrow, "1");
+    const paths = explorePaths(tarrow, "n");
     const through = paths.find((p) => p.mixupPoints.length > 0)!;
     const point = through.mixupPoints[0]!;
     const at = paths.find((p) => p.nodes[p.nodes.length - 1] === point && p.endsIn === "move")!;
-    expect(at.input).toBe("1,2");
+    expect(at.input).toBe("n.v");
     const s = fillSituation(tarrow, at, { opponent });
-    expect(s.rows).toEqual(["1,2,1", "1,2,3", "1,2,4", "1,2~b", "Stop"]);
+    expect(s.rows).toEqual(["n.v.n", "n.v.t", "n.v.r", "n.v~ebb", "Stop"]);
     expect(s.cols.slice(0, 2)).toEqual(["Stand guard", "Crouch guard"]);
 
     for (const [i, label] of s.rows.entries()) {
@@ -358,8 +358,8 @@ describe("fillSituation on the demo game", () => {
     expect(low).toMatchObject({ kind: "blocked", defenderStance: "crouching", onBlock: -13 });
     const punisher = (low as { punisher: { input: string } | null }).punisher!;
     expect(opponent.find((m) => m.input === punisher.input)!.from).not.toBe("standing");
-    // From standing, Velka's throw (12f, 32 damage) would have punished -13: crouching rules it out.
-    expect(punishersFor(-13, "standing", opponent)[0]!.input).toBe("2+4");
-    expect(s.cells[0]![1]).toEqual({ kind: "whiff", input: "1,2,1" });
+    // From standing, Quessaline's throw (12f, 32 damage) would have punished -13: crouching rules it out.
+    expect(punishersFor(-13, "standing", opponent)[0]!.input).toBe("c");
+    expect(s.cells[0]![1]).toEqual({ kind: "whiff", input: "n.v.n" });
   });
 });

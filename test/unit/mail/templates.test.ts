@@ -20,7 +20,7 @@ describe("mail templates", () => {
     for (const mail of [
       signInLinkMail({ url }),
       passwordResetMail({ url, expiresInMinutes: 30 }),
-      inviteMail({ teamName: "Night Owls", inviterName: "Ada", role: "coach", url, expiresInDays: 7 }),
+      inviteMail({ teamName: "Night Owls", inviterName: "Coach Lornavex", role: "coach", url, expiresInDays: 7 }),
       confirmAddressMail({ url, expiresInHours: 24 }),
       accountExistsMail({ url }),
     ]) {
@@ -56,7 +56,7 @@ describe("mail templates", () => {
     // Rows written before names were checked may hold these; the mail must not carry them.
     const mail = inviteMail({
       teamName: "Night\u202EpuorG\u202C Crew",
-      inviterName: "Mara\r\nBcc: someone@example.test\u200B",
+      inviterName: "Quellborn\r\nBcc: someone@example.test\u200B",
       role: "player",
       url: "http://127.0.0.1:3000/invites/abc",
       expiresInDays: 7,
@@ -64,8 +64,8 @@ describe("mail templates", () => {
     // Line feeds are the templates' own, between paragraphs; nothing else of these categories is left.
     for (const part of [mail.subject, mail.text, mail.html])
       expect(part.replaceAll("\n", "")).not.toMatch(/[\p{Cc}\p{Cf}\u2028\u2029]/u);
-    expect(mail.subject).toBe("Mara Bcc: someone@example.test invited you to NightpuorG Crew on Framefork");
-    expect(mail.text).toContain("Mara Bcc: someone@example.test invited you to join the team NightpuorG Crew");
+    expect(mail.subject).toBe("Quellborn Bcc: someone@example.test invited you to NightpuorG Crew on Framefork");
+    expect(mail.text).toContain("Quellborn Bcc: someone@example.test invited you to join the team NightpuorG Crew");
     // Emoji sequences and letters of other scripts stay as they are.
     const kept = inviteMail({
       teamName: "👩‍💻 می‌خواهم",

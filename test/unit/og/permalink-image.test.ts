@@ -27,13 +27,13 @@ describe("summarizeSharedView", () => {
     const made = await share("link");
     const loaded = await loadSharedView({ slug: made.slug, viewerId: null });
     if (loaded.status !== "ok" || loaded.view.kind !== "explorer") throw new Error(loaded.status);
-    // The seed's 2,2,3 is -14 on block in 1-1; with fastest 10 and launchAt 15, -15 < -14 <= -10 is punishable (DESIGN.md's block classes).
+    // The seed's v.v.t is -14 on block in 1-1; with the demo's fastest 11 and launchAt 16, -16 < -14 <= -11 is punishable (DESIGN.md's block classes).
     expect(summarizeSharedView(loaded.view)).toEqual({
       kind: "path",
-      title: "Tarrow · 2,2,3 · edition 1-1",
-      input: "2,2,3",
+      title: "Tarrow · v.v.t · edition 1-1",
+      input: "v.v.t",
       levels: loaded.view.data.graph.nodes.flatMap((n) =>
-        ["2", "2,2", "2,2,3"].includes(n.id) && n.kind === "move" ? [n.level] : [],
+        ["v", "v.v", "v.v.t"].includes(n.id) && n.kind === "move" ? [n.level] : [],
       ),
       onBlock: "-14",
       blockClass: "punishable",
@@ -53,8 +53,8 @@ describe("renderPermalinkImage", () => {
     const image = await png(
       await renderPermalinkImage({
         kind: "path",
-        title: "T · 1,2 · edition 1-1",
-        input: "1,2",
+        title: "T · n.v · edition 1-1",
+        input: "n.v",
         levels: ["high", "mid"],
         onBlock: "-3",
         blockClass: "safe",
@@ -66,7 +66,7 @@ describe("renderPermalinkImage", () => {
 
   test("renders a 1200×630 PNG of a stance sheet, unlike the generic card, with or without a way in", async () => {
     const generic = (await png(await renderPermalinkImage({ kind: "private" }))).bytes;
-    for (const best of [{ input: "1,2~b", onBlock: "-1", blockClass: "safe" }, null]) {
+    for (const best of [{ input: "n.v~ebb", onBlock: "-1", blockClass: "safe" }, null]) {
       const image = await png(
         await renderPermalinkImage({
           kind: "stance",

@@ -5,6 +5,7 @@ import { closeDb, getDb } from "@/server/db";
 import { getCharacterBySlug, getGameBySlug } from "@/server/db/queries/games";
 import { memberships, teams, users, type Role } from "@/server/db/schema";
 import type { PermalinkView } from "@/lib/permalink";
+import { DEMO_GAME } from "@/server/db/seed/demo";
 
 /** Throwaway people and teams for one test file, inserted directly and removed after. */
 export function makePeople() {
@@ -51,9 +52,9 @@ export async function tarrow() {
 }
 
 export const stringView = (over: Partial<PermalinkView> = {}): PermalinkView => ({
-  root: "2",
-  path: "2>2,2|2,2>2,2,3",
-  options: { maxDepth: 8, maxStanceVisits: 1, fastest: 10 },
+  root: "v",
+  path: "v>v.v|v.v>v.v.t",
+  options: { maxDepth: 8, maxStanceVisits: 1, fastest: DEMO_GAME.fastest },
   opponent: null,
   ...over,
 });

@@ -66,7 +66,7 @@ describe("createPermalink", () => {
   test("writes the permalink and its audit entry, with a title from the path's input", async () => {
     const made = await make();
     expect(made).toMatchObject({
-      title: "Tarrow · 2,2,3 · edition 1-1",
+      title: "Tarrow · v.v.t · edition 1-1",
       visibility: "link",
       teamId: team,
       characterId,
@@ -112,22 +112,22 @@ describe("createPermalink", () => {
   });
 
   test("the root alone is a view, titled by the root's input", async () => {
-    const made = await make({ view: stringView({ root: "d+4", path: null }) });
-    expect(made.title).toBe("Tarrow · d+4 · edition 1-1");
+    const made = await make({ view: stringView({ root: "sink+r", path: null }) });
+    expect(made.title).toBe("Tarrow · sink+r · edition 1-1");
   });
 });
 
 describe("pinned to an Edition", () => {
   test("a link made on 1-0 keeps 1-0's numbers although 1-1 is the newest", async () => {
-    const made = await make({ editionSlug: "1-0", view: stringView({ root: "d+4", path: "" }) });
+    const made = await make({ editionSlug: "1-0", view: stringView({ root: "sink+r", path: "" }) });
     const loaded = await loadSharedView({ slug: made.slug, viewerId: null });
     if (loaded.status !== "ok" || loaded.view.kind !== "explorer") throw new Error(`expected ok, got ${loaded.status}`);
     expect(loaded.view.edition.slug).toBe("1-0");
     expect(loaded.view.data.edition.slug).toBe("1-0");
     // The shared view knows its own Edition only (the game's newest is 1-1).
     expect(loaded.view.data.editions.map((e) => e.slug)).toEqual(["1-0"]);
-    const shin = loaded.view.data.graph.nodes.find((n) => n.id === "d+4");
-    // The demo's d+4 is -12 on block in 1-0 and -13 in 1-1 (test/unit/db/queries.test.ts reads both).
+    const shin = loaded.view.data.graph.nodes.find((n) => n.id === "sink+r");
+    // The demo's sink+r is -12 on block in 1-0 and -13 in 1-1 (test/unit/db/queries.test.ts reads both).
     expect(shin?.kind === "move" && shin.onBlock).toBe(-12);
     expect((await getPermalinkBySlug({ slug: made.slug }))?.edition.slug).toBe("1-0");
   });

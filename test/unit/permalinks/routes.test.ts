@@ -50,7 +50,7 @@ describe("POST /api/permalinks", () => {
     expect(res.status).toBe(201);
     const { permalink } = (await res.json()) as { permalink: { path: string; title: string } };
     expect(permalink.path).toMatch(/^\/s\/[A-Za-z0-9_-]{24}$/);
-    expect(permalink.title).toBe("Tarrow · 2,2,3 · edition 1-1");
+    expect(permalink.title).toBe("Tarrow · v.v.t · edition 1-1");
   });
 
   test("a bad body is 400 before anything else; signed out is 401; a viewer 403; an outsider 404", async () => {

@@ -11,7 +11,7 @@ import { makePeople, stringView } from "./fixtures";
 // shows one character in one Edition, and must carry nothing else of the game.
 const people = makePeople();
 const ctx = { team: 0, player: "", pinned: 0, opponent: 0 };
-const CAST = ["Quill Ardent", "Sable Wren", "Orrin Vale"] as const;
+const CAST = ["Player Ardentquill", "Player Sablequill", "Player Valewright-3"] as const;
 const EDITIONS = [
   { slug: "1-0", name: "Closed Trial" },
   { slug: "1-1", name: "Closed Trial Two" },
@@ -61,22 +61,23 @@ async function shared(opponent: number | null) {
 describe("a public link into a private game", () => {
   test("carries the pinned character in the pinned Edition, and no other character or Edition", async () => {
     const view = await shared(null);
-    expect(view.data.cast.map((c) => c.name)).toEqual(["Quill Ardent"]);
+    expect(view.data.cast.map((c) => c.name)).toEqual(["Player Ardentquill"]);
     expect(view.data.editions.map((e) => e.name)).toEqual(["Closed Trial"]);
     expect(view.data.graph.nodes.length).toBeGreaterThan(0);
     expect(view.opponent).toBeNull();
     // What the page hands to the browser is this object: none of it names the rest.
     const sent = JSON.stringify(view);
-    for (const hidden of ["Sable Wren", "Orrin Vale", "Closed Trial Two"]) expect(sent).not.toContain(hidden);
+    for (const hidden of ["Player Sablequill", "Player Valewright-3", "Closed Trial Two"])
+      expect(sent).not.toContain(hidden);
   });
 
   test("shared with an opponent, carries that opponent's moves too, and still nobody else", async () => {
     const view = await shared(ctx.opponent);
-    expect(view.data.cast.map((c) => c.name).sort()).toEqual(["Quill Ardent", "Sable Wren"]);
-    expect(view.opponent?.character.name).toBe("Sable Wren");
+    expect(view.data.cast.map((c) => c.name).sort()).toEqual(["Player Ardentquill", "Player Sablequill"]);
+    expect(view.opponent?.character.name).toBe("Player Sablequill");
     expect(view.opponent?.editions.map((e) => e.slug)).toEqual(["1-0"]);
     expect(view.opponent?.graph.nodes.length).toBeGreaterThan(0);
     const sent = JSON.stringify(view);
-    for (const hidden of ["Orrin Vale", "Closed Trial Two"]) expect(sent).not.toContain(hidden);
+    for (const hidden of ["Player Valewright-3", "Closed Trial Two"]) expect(sent).not.toContain(hidden);
   });
 });

@@ -15,8 +15,8 @@ import {
 import { newSlug, SLUG_BYTES } from "@/server/permalinks";
 
 const good: PermalinkView = {
-  root: "2",
-  path: "2>2,2|2,2>2,2,3",
+  root: "v",
+  path: "v>v.v|v.v>v.v.t",
   options: { maxDepth: 8, maxStanceVisits: 1, fastest: 10 },
   opponent: null,
 };
@@ -57,7 +57,7 @@ describe("permalinkViewSchema", () => {
     ["fractional stance re-entries", { ...good, options: { ...good.options, maxStanceVisits: 1.5 } }, /whole number/],
     ["fastest as text", { ...good, options: { ...good.options, fastest: "10; drop table" } }, /must be a number/],
     ["an opponent as a script", { ...good, opponent: "<script>alert(1)</script>" }, /opponent must be a character id/],
-    ["a control character in the path", { ...good, path: "2>2,2\u0000" }, /control characters/],
+    ["a control character in the path", { ...good, path: "v>v.v\u0000" }, /control characters/],
     ["an extra field", { ...good, edition: "1-0" }, /Unrecognized key/i],
   ])("refuses %s with a clear message", (_what, view, message) => {
     const parsed = permalinkViewSchema.safeParse(view);
@@ -108,8 +108,8 @@ describe("views and the Explorer", () => {
 
   test("the live Explorer's address opens the same view (its own search-param parser reads it back)", () => {
     const view: PermalinkView = {
-      root: "1,2",
-      path: "1>1,2|1,2~b>drift",
+      root: "drift:v",
+      path: "drift:v>drift:v.n|drift:v.n~ebb>drift",
       options: { maxDepth: 5, maxStanceVisits: 2, fastest: 12 },
       opponent: 9,
     };
@@ -121,7 +121,7 @@ describe("views and the Explorer", () => {
       gameFastest: 10,
     });
     const url = new URL(href, "http://localhost");
-    expect(url.pathname).toBe("/games/vesper-circuit/tarrow/explore/1%2C2");
+    expect(url.pathname).toBe("/games/vesper-circuit/tarrow/explore/drift%3Av");
     expect(parseExplorerSearch(Object.fromEntries(url.searchParams))).toEqual({
       edition: "1-0",
       path: view.path,
@@ -138,7 +138,7 @@ describe("views and the Explorer", () => {
       view: { ...good, path: null },
       gameFastest: 10,
     });
-    expect(plain).toBe("/games/g/c/explore/2?edition=1-1");
+    expect(plain).toBe("/games/g/c/explore/v?edition=1-1");
     expect(VIEW_BOUNDS.maxDepth.default).toBe(8);
   });
 });

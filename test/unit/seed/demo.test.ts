@@ -1,7 +1,9 @@
 import { describe, expect, test } from "vitest";
-import { DEMO_CHARACTERS, EDITIONS } from "@/server/db/seed/demo";
+import { DEMO_CHARACTERS, DEMO_GAME, EDITIONS } from "@/server/db/seed/demo";
 import { classifyBlock, explorePaths, parseGraph } from "@/lib/engine";
-import { flatten, toMoveGraph, type EdgeRow } from "@/server/db/seed/dsl";
+import { flatten, postureOf, toMoveGraph, type EdgeRow } from "@/server/db/seed/dsl";
+
+const RULES = { fastest: DEMO_GAME.fastest, launchAt: DEMO_GAME.launchAt };
 
 function graph(character: (typeof DEMO_CHARACTERS)[number], edition: (typeof EDITIONS)[number]["slug"]) {
   const data = character.data(edition);
@@ -40,6 +42,27 @@ describe.each(DEMO_CHARACTERS.map((c) => [c.name, c] as const))("demo character 
     expect(g.edges.some((e) => (e.cancel?.autoGuard.length ?? 0) > 0)).toBe(true);
   });
 
+  test.each(EDITIONS.map((e) => e.slug))("edition %s is written in the demo game's own notation", (edition) => {
+    const g = graph(character, edition);
+    // The notation documented at the top of demo.ts: buttons n v t r c (pressed together written
+    // together), directions press ebb sink rise joined by "+", hits joined by ".", cancels "~" + direction,
+    // stance moves "<code>:<input>" with a lower-case code.
+    const hit = "(?:(?:press|ebb|sink|rise)\\+)?[nvtrc]{1,2}";
+    const codes = g.data.stances.map((s) => s.abbreviation).join("|");
+    const move = new RegExp(`^(?:(?:${codes}):)?${hit}(?:\\.${hit})*$`);
+    for (const m of g.moves) expect(m.key, m.hit.name).toMatch(move);
+    for (const e of g.edges.filter((x) => x.kind === "cancel")) expect(e.input).toMatch(/^~(press|ebb|sink)$/);
+    for (const s of g.data.stances) expect(s.abbreviation).toMatch(/^[a-z]+$/);
+  });
+
+  test.each(EDITIONS.map((e) => e.slug))("edition %s gives every hit a reach in metres", (edition) => {
+    for (const m of graph(character, edition).moves) {
+      expect(m.hit.range, m.key).toBeTypeOf("number");
+      expect(m.hit.range, m.key).toBeGreaterThanOrEqual(0.5);
+      expect(m.hit.range, m.key).toBeLessThanOrEqual(4);
+    }
+  });
+
   test.each(EDITIONS.map((e) => e.slug))("edition %s is a graph the engine accepts", (edition) => {
     const parsed = parseGraph(toMoveGraph(character.data(edition)));
     expect(parsed.error?.issues ?? []).toEqual([]);
@@ -54,7 +77,7 @@ describe("the demo scenario as a whole, read through the engine", () => {
       const targets = new Set(g.edges.map((edge) => edge.to));
       const roots = g.nodes.filter((n) => n.kind === "move" && !targets.has(n.id));
       const moveById = new Map(g.nodes.map((n) => [n.id, n]));
-      return roots.flatMap((r) => explorePaths(g, r.id).map((p) => ({ ...p, moveById })));
+      return roots.flatMap((r) => explorePaths(g, r.id, RULES).map((p) => ({ ...p, moveById })));
     }),
   );
 
@@ -75,7 +98,7 @@ describe("the demo scenario as a whole, read through the engine", () => {
   test("has a cancel that turns a punishable ending safe, and one that turns minus into plus", () => {
     const cancels = paths.filter((p) => p.endsIn === "stance" && p.framesSaved !== null);
     const before = (p: (typeof cancels)[number]) => (p.onBlock as number) - (p.framesSaved as number);
-    expect(cancels.some((p) => p.blockClass === "safe" && classifyBlock(before(p)) === "punishable")).toBe(true);
+    expect(cancels.some((p) => p.blockClass === "safe" && classifyBlock(before(p), RULES) === "punishable")).toBe(true);
     expect(cancels.some((p) => p.blockClass === "plus" && before(p) < 0)).toBe(true);
   });
 
@@ -90,5 +113,26 @@ describe("the demo scenario as a whole, read through the engine", () => {
       return a !== b;
     });
     expect(differs).toBe(true);
+  });
+});
+
+describe("postureOf reads the demo notation", () => {
+  test("down moves come out of a crouch too, rising moves only out of one, the rest from standing", () => {
+    expect(postureOf("sink+r")).toBe("any");
+    expect(postureOf("sink+n.v")).toBe("any");
+    expect(postureOf("rise+t")).toBe("crouching");
+    expect(postureOf("press+t.t.v")).toBe("standing");
+    expect(postureOf("ebb+n")).toBe("standing");
+    expect(postureOf("v.v.t")).toBe("standing");
+    expect(postureOf("drift:v")).toBe("standing");
+  });
+
+  test("the demo's fastest attack and launch threshold are its own and fit its moves", () => {
+    const starts = DEMO_CHARACTERS.flatMap((c) =>
+      flatten(c.data("1-1")).moves.filter((m) => m.stance === null && m.hit.startup !== undefined),
+    );
+    // The opponent's fastest attack is the fastest neutral move any demo fighter has.
+    expect(Math.min(...starts.map((m) => m.hit.startup as number))).toBe(DEMO_GAME.fastest);
+    expect(DEMO_GAME.launchAt).toBeGreaterThan(DEMO_GAME.fastest);
   });
 });

@@ -9,7 +9,7 @@ export const editionParamsSchema = gameParamsSchema.extend({ edition: slug("An E
 export const characterParamsSchema = gameParamsSchema.extend({ character: slug("A character") });
 export const editionCharacterParamsSchema = editionParamsSchema.extend({ character: slug("A character") });
 
-/** A move's or a link's key as a path segment: sent percent-encoded (`1,2` → `1%2C2`), read as it was meant. */
+/** A move's or a link's key as a path segment: sent percent-encoded (`drift:v` → `drift%3Av`), read as it was meant. */
 const keySegment = (what: string, max: number) =>
   z
     .string()

@@ -47,7 +47,7 @@ export type Step = FollowStep | CancelStep;
 export interface Root {
   /** Stance the move is done from, or undefined for neutral. */
   stance?: string;
-  /** Neutral: the whole input. From a stance: what is entered there, e.g. `:2`. */
+  /** Neutral: the whole input. From a stance: what is entered there, e.g. `:v`. */
   input: string;
   hit: Hit & { startup: number };
   next: Step[];
@@ -67,12 +67,12 @@ export interface CharacterData {
 
 /**
  * The demo game's rule for where a move can be done from: down-direction
- * moves also come out of a crouch, rising (`uf+`) moves only out of one,
+ * moves (`sink+`) also come out of a crouch, rising (`rise+`) moves only out of one,
  * everything else from standing.
  */
 export function postureOf(input: string): "standing" | "crouching" | "any" {
-  if (/^(d|db|df)\+/.test(input)) return "any";
-  if (/^uf\+/.test(input)) return "crouching";
+  if (/^sink\+/.test(input)) return "any";
+  if (/^rise\+/.test(input)) return "crouching";
   return "standing";
 }
 
@@ -153,7 +153,7 @@ export interface EdgeRow {
 
 /**
  * Rows for one character. A move's key and input are the whole notation that
- * reaches it (a stance move is prefixed with its stance's abbreviation), so a
+ * reaches it (a stance move is prefixed with its stance's code), so a
  * key names the same move in every edition.
  */
 export function flatten(data: CharacterData): { moves: MoveRow[]; edges: EdgeRow[] } {
