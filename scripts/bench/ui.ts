@@ -14,20 +14,15 @@ import { boards, characters, editions, games, memberships, teams, users } from "
 import { migrateDatabase } from "../../src/server/db/migrate";
 import { seedDemo } from "../../src/server/db/seed";
 import { flatten } from "../../src/server/db/seed/dsl";
-import { DATABASE_URL, DB } from "./bench-db";
+import { DATABASE_URL } from "./bench-db";
+import { benchAppEnv, waitFor } from "./bench-server";
 import { generateBoard } from "./board";
 import { benchCharacter } from "./ui-graph";
 
 const PORT = 3400;
 const BASE = `http://127.0.0.1:${PORT}`;
 // The app's settings; the bench sends no mail, so nothing listens on the SMTP port.
-const APP = {
-  SMTP_URL: "smtp://127.0.0.1:1127",
-  MAIL_FROM: "Framefork bench <no-reply@example.com>",
-  NEXTAUTH_URL: BASE,
-  NEXTAUTH_SECRET: "framefork-bench-only-secret-not-for-real-use",
-};
-const env = { ...process.env, ...DB, ...APP, DATABASE_URL, NEXT_TELEMETRY_DISABLED: "1" };
+const { app: APP, env } = benchAppEnv(BASE);
 const ROUNDS = 15;
 
 const median = (xs: number[]) => {
@@ -39,19 +34,6 @@ const median = (xs: number[]) => {
       : (s[s.length / 2 - 1]! + s[s.length / 2]!) / 2;
 };
 const round = (n: number) => Math.round(n * 100) / 100;
-
-async function waitFor(url: string, ms: number) {
-  const until = Date.now() + ms;
-  while (Date.now() < until) {
-    try {
-      if ((await fetch(url)).ok) return;
-    } catch {
-      // not up yet
-    }
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  throw new Error(`${url} did not answer in ${ms} ms`);
-}
 
 /**
  * Waits for the named measure to appear after `act`, and returns its duration.
