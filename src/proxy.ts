@@ -9,6 +9,7 @@ import {
   RETRY_AFTER_SECONDS,
 } from "@/server/db/unavailable";
 import { crossSiteRefusal } from "@/server/http";
+import { isPublishedAddress, PUBLISHED_PREFIX, publishedAddress } from "@/server/published";
 
 /**
  * Runs before every route (static files aside), for what no route can do
@@ -20,6 +21,8 @@ import { crossSiteRefusal } from "@/server/http";
  * - while MariaDB is not answering, pages (and next-auth's routes) get a 503
  *   page that says so, instead of an error page with status 500;
  * - a forged next-auth return-address cookie is dropped (next-auth answers it with a 500);
+ * - a page of a published Edition of a public game is sent to its cached copy
+ *   (src/server/published.ts); a cached copy's own address is answered only when it is current;
  * - HSTS, when the app is served over https.
  * API routes check the origin and map database errors themselves, in `handle()`.
  */
@@ -39,6 +42,12 @@ export async function proxy(request: NextRequest): Promise<NextResponse> {
     return withHsts(NextResponse.rewrite(new URL("/_malformed-address", request.url)));
   }
 
+  if (pathname === PUBLISHED_PREFIX || pathname.startsWith(`${PUBLISHED_PREFIX}/`)) {
+    if (!(await isPublishedAddress(pathname).catch(() => false))) {
+      return withHsts(NextResponse.rewrite(new URL("/_malformed-address", request.url)));
+    }
+  }
+
   if (!api) {
     const refused = crossSiteRefusal(request);
     if (refused) return withHsts(page(refused.status, "Refused", refused.message));
@@ -54,7 +63,19 @@ export async function proxy(request: NextRequest): Promise<NextResponse> {
     return withHsts(response);
   }
 
+  const cached = !api && !serverAction && isRead(request) ? await cachedCopy(request) : null;
+  if (cached) return withHsts(NextResponse.rewrite(cached));
+
   return withHsts(withoutForgedCallbackCookie(request));
+}
+
+const isRead = (request: NextRequest) => request.method === "GET" || request.method === "HEAD";
+
+/** The cached copy's address, or null; a failed lookup leaves the page to the live route. */
+async function cachedCopy(request: NextRequest): Promise<URL | null> {
+  const { pathname, search, searchParams } = request.nextUrl;
+  const target = await publishedAddress(pathname, searchParams).catch(() => null);
+  return target ? new URL(`${target}${search}`, request.url) : null;
 }
 
 export const config = {

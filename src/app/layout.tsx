@@ -4,7 +4,6 @@ import "@fontsource/jetbrains-mono/700.css";
 import "./globals.css";
 import type { Metadata, Viewport } from "next";
 import { SiteHeader } from "@/components/site-header";
-import { auth } from "@/server/auth";
 
 export function generateMetadata(): Metadata {
   return {
@@ -19,8 +18,7 @@ export function generateMetadata(): Metadata {
 
 export const viewport: Viewport = { themeColor: "#0b0d12", width: "device-width", initialScale: 1 };
 
-export default async function RootLayout({ children }: { children: React.ReactNode }) {
-  const user = await auth();
+export default function RootLayout({ children }: { children: React.ReactNode }) {
   return (
     <html lang="en" className="dark">
       <body>
@@ -30,7 +28,7 @@ export default async function RootLayout({ children }: { children: React.ReactNo
         >
           Skip to content
         </a>
-        <SiteHeader user={user} />
+        <SiteHeader />
         <main id="main" className="mx-auto w-full max-w-7xl px-4 py-6 sm:px-6">
           {children}
         </main>

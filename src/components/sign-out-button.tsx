@@ -2,6 +2,7 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+import { refreshSession } from "./session-refresh";
 
 /**
  * Signs out through next-auth's own endpoint (CSRF token, then POST /api/auth/signout), the
@@ -32,6 +33,7 @@ export function SignOutButton() {
         signOutNow().then(
           () => {
             // The header and every server-rendered part read the session again.
+            refreshSession();
             router.replace("/");
             router.refresh();
           },

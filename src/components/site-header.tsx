@@ -1,8 +1,11 @@
 import Link from "next/link";
-import { SignOutButton } from "./sign-out-button";
+import { AccountArea } from "./account-area";
 
-/** The top bar; the root layout reads the session and passes the signed-in user, or null. */
-export function SiteHeader({ user }: { user: { email: string; name: string | null } | null }) {
+/**
+ * The top bar. It is the same for every visitor, so no page is made dynamic by
+ * it; the account part reads the session in the browser.
+ */
+export function SiteHeader() {
   return (
     <header className="border-b border-ink-800 bg-ink-900/80">
       <nav
@@ -16,40 +19,10 @@ export function SiteHeader({ user }: { user: { email: string; name: string | nul
         <Link href="/games" className="text-sm text-ink-200 hover:text-ink-100 hover:underline">
           Games
         </Link>
-        {user && (
-          <Link href="/teams" className="text-sm text-ink-200 hover:text-ink-100 hover:underline">
-            Teams
-          </Link>
-        )}
         <Link href="/help" className="text-sm text-ink-200 hover:text-ink-100 hover:underline">
           Help
         </Link>
-        <div className="ml-auto flex items-center gap-4 text-sm" data-testid="account-area">
-          {user ? (
-            <>
-              <Link
-                href="/account"
-                className="max-w-[12rem] truncate text-ink-200 hover:text-ink-100 hover:underline"
-                title={user.email}
-              >
-                {user.name ?? user.email}
-              </Link>
-              <SignOutButton />
-            </>
-          ) : (
-            <>
-              <Link href="/sign-in" className="text-ink-200 hover:text-ink-100 hover:underline">
-                Sign in
-              </Link>
-              <Link
-                href="/sign-up"
-                className="rounded border border-accent-muted px-2 py-1 text-accent no-underline hover:bg-ink-800"
-              >
-                Sign up
-              </Link>
-            </>
-          )}
-        </div>
+        <AccountArea />
       </nav>
     </header>
   );

@@ -122,6 +122,7 @@ test("a coach checks a file, sees what it changes, imports it into the draft; a 
   await importPage.done.getByRole("link", { name: "Open Merrith’s moves in 1.0 →" }).click();
   const list = new MoveListPage(page);
   await expect(list.heading).toHaveText("Merrith");
+  await list.openAll();
   await expect(list.rows).toHaveCount(exampleMoves);
   await expect(list.row("lantern:v")).toContainText("Lantern Swing");
 
@@ -144,7 +145,9 @@ test("a coach checks a file, sees what it changes, imports it into the draft; a 
 
   // A player reads the draft's moves with no import link, and the import page says why not.
   await playerPage.goto(`/games/${gameSlug}/merrith`);
-  await expect(new MoveListPage(playerPage).rows).toHaveCount(exampleMoves);
+  const playerList = new MoveListPage(playerPage);
+  await playerList.openAll();
+  await expect(playerList.rows).toHaveCount(exampleMoves);
   await expect(playerPage.getByRole("link", { name: /^Import / })).toHaveCount(0);
   await new ImportPage(playerPage).goto(gameSlug, "merrith");
   await expect(playerPage.getByRole("status")).toContainText("needs the coach role or higher; you are a player");

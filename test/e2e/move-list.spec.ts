@@ -113,17 +113,20 @@ test("a visitor goes from the landing page to a character's move list read from 
   const expected = await movesOf("tarrow", "1-1");
   const cancels = await cancelsOf("tarrow", "1-1");
   expect(expected.length).toBeGreaterThanOrEqual(25);
+  // Closed, a string is one row and its steps are not in the page: far fewer rows than moves.
+  await expect(list.strings.first()).toBeVisible();
+  const strings = await list.strings.count();
+  expect(strings).toBeLessThan(expected.length);
+  await expect(list.rows).toHaveCount(0);
+
+  // Opened, every move of the edition is a step of one string, and every cancel one too.
+  await list.openAll();
   await expect(list.rows).toHaveCount(expected.length);
   await expect(list.cancelRows).toHaveCount(cancels.length);
   const shownKeys = await list.rows.evaluateAll((rows) => rows.map((r) => r.getAttribute("data-move-key")));
   expect([...shownKeys].sort()).toEqual(expected.map((m) => m.key).sort());
-  // Closed, a string is one row: far fewer rows than moves.
-  const strings = await list.strings.count();
-  expect(strings).toBeLessThan(expected.length);
-  await expect(list.rows.first()).toBeHidden();
 
-  // Opened, every figure MariaDB holds for a move shows in its step.
-  await list.openAll();
+  // Every figure MariaDB holds for a move shows in its step.
   const steps = new Map((await shownSteps(page, "tr[data-move-key]")).map((s) => [s.key, s]));
   for (const m of expected) {
     const s = steps.get(m.key);
@@ -212,7 +215,8 @@ test("filters and the order live in the address, survive a reload, and an empty 
   const list = new MoveListPage(page);
   await page.goto("/games/vesper-circuit/tarrow?edition=1-1");
   const all = await list.strings.count();
-  // What each filter should keep, read from the whole list first.
+  // What each filter should keep, read from the whole list first (its steps show when open).
+  await list.openAll();
   const withLow = await page
     .locator('tbody:has(tr[data-move-key] [data-level="low"])')
     .evaluateAll((t) => t.map((b) => b.getAttribute("data-string")));

@@ -114,15 +114,12 @@ function Choice({
  * (a hit with the gap or jail before it, or a cancel with the frames it saves) and how stopping
  * there leaves you. Filters and order live in the address.
  */
-export function MoveTable({
-  list,
-  rules,
-  exploreBase,
-  stanceSheets,
-  edition,
-  editBase,
-  range,
-}: {
+export function MoveTable(props: MoveTableProps) {
+  const params = useSearchParams();
+  return <MoveTableView {...props} search={params.toString()} />;
+}
+
+interface MoveTableProps {
   list: MoveList;
   rules: BlockRules;
   /** How the game measures range: with numbers, the list filters by what reaches a distance. */
@@ -134,10 +131,24 @@ export function MoveTable({
   edition: string;
   /** For a coach on a draft: the moves' address under the edit routes; numbers are then fixed in place. */
   editBase: string | null;
-}) {
-  const params = useSearchParams();
+}
+
+/**
+ * The move list for a given query string. A page served from the cache renders it with no
+ * query (the list as it comes) while the browser reads the address; see MoveTable.
+ */
+export function MoveTableView({
+  search,
+  list,
+  rules,
+  exploreBase,
+  stanceSheets,
+  edition,
+  editBase,
+  range,
+}: MoveTableProps & { search: string }) {
   const pathname = usePathname();
-  const view = readMoveListView(new URLSearchParams(params.toString()));
+  const view = readMoveListView(new URLSearchParams(search));
   const rows = useMemo(() => stringRows(list, rules), [list, rules]);
   const shown = viewStrings(rows, view);
   const [open, setOpen] = useState<ReadonlySet<string>>(new Set());
@@ -147,8 +158,8 @@ export function MoveTable({
   // The address keeps the view (a reload or a shared link opens the same list); Next keeps
   // useSearchParams in step with the history API without asking the server again.
   const go = (next: Partial<MoveListView>) => {
-    const search = moveListSearch(new URLSearchParams(params.toString()), { ...view, ...next });
-    window.history.pushState(null, "", `${pathname}${search}`);
+    const address = moveListSearch(new URLSearchParams(search), { ...view, ...next });
+    window.history.pushState(null, "", `${pathname}${address}`);
   };
   const toggleSort = (id: Exclude<MoveListSort, "list">) => {
     if (view.sort !== id) go({ sort: id, dir: id === "damage" ? "desc" : "asc" });
@@ -388,14 +399,18 @@ function StringRows({
   const branches = row.steps.filter((s) => s.kind === "hit").length - row.mainLine.length;
   const cancels = row.steps.filter((s) => s.kind === "cancel").length;
   return (
-    <tbody className="border-t border-ink-800" data-string={root.key}>
+    <tbody
+      className="border-t border-ink-800"
+      data-string={root.key}
+      data-steps={row.steps.map((s) => (s.kind === "hit" ? s.move.key : s.cancel.key)).join(" ")}
+    >
       <tr data-string-key={root.key} className="hover:bg-ink-900">
         <th scope="row" className={`${td} text-left font-normal`}>
           <span className="flex items-start gap-1.5">
             <button
               type="button"
               aria-expanded={open}
-              aria-controls={row.steps.map((_, n) => `${id}-${n}`).join(" ")}
+              aria-controls={open ? row.steps.map((_, n) => `${id}-${n}`).join(" ") : undefined}
               aria-label={`Steps of ${root.input}`}
               onClick={onToggle}
               className="mt-0.5 h-5 w-5 shrink-0 rounded border border-ink-700 text-[10px] leading-none text-ink-300 hover:border-accent hover:text-accent"
@@ -445,15 +460,17 @@ function StringRows({
           {row.bestDamage}
         </td>
       </tr>
-      {row.steps.map((step, n) => (
-        <Fragment key={`${step.kind} ${step.kind === "hit" ? step.move.id : step.cancel.id}`}>
-          {step.kind === "hit" ? (
-            <HitRow step={step} rules={rules} hidden={!open} id={`${id}-${n}`} editBase={editBase} range={range} />
-          ) : (
-            <CancelRow step={step} rules={rules} hidden={!open} id={`${id}-${n}`} />
-          )}
-        </Fragment>
-      ))}
+      {/* Steps are rendered only when open: a cached page then carries the strings, not every step. */}
+      {open &&
+        row.steps.map((step, n) => (
+          <Fragment key={`${step.kind} ${step.kind === "hit" ? step.move.id : step.cancel.id}`}>
+            {step.kind === "hit" ? (
+              <HitRow step={step} rules={rules} id={`${id}-${n}`} editBase={editBase} range={range} />
+            ) : (
+              <CancelRow step={step} rules={rules} id={`${id}-${n}`} />
+            )}
+          </Fragment>
+        ))}
     </tbody>
   );
 }
@@ -504,14 +521,12 @@ function Outcomes({
 function HitRow({
   step,
   rules,
-  hidden,
   id,
   editBase,
   range,
 }: {
   step: HitStep;
   rules: BlockRules;
-  hidden: boolean;
   id: string;
   editBase: string | null;
   range: RangeScale;
@@ -536,7 +551,7 @@ function HitRow({
   const notes = [...move.tags, move.notes].filter(Boolean).join(" · ");
   const startup = move.startup ?? <span className="text-ink-400">—</span>;
   return (
-    <tr data-move-key={move.key} id={id} hidden={hidden} className="border-t border-ink-850 bg-ink-900/40">
+    <tr data-move-key={move.key} id={id} className="border-t border-ink-850 bg-ink-900/40">
       <th scope="row" className={`${td} text-left font-normal`} style={indent(step.depth)}>
         <span className="font-mono text-ink-100" title={move.input}>
           {step.input}
@@ -594,15 +609,10 @@ function HitRow({
   );
 }
 
-function CancelRow({ step, rules, hidden, id }: { step: CancelStep; rules: BlockRules; hidden: boolean; id: string }) {
+function CancelRow({ step, rules, id }: { step: CancelStep; rules: BlockRules; id: string }) {
   const { cancel, from } = step;
   return (
-    <tr
-      data-cancel-key={cancel.key}
-      id={id}
-      hidden={hidden}
-      className="border-t border-ink-850 bg-ink-900/40 text-ink-300"
-    >
+    <tr data-cancel-key={cancel.key} id={id} className="border-t border-ink-850 bg-ink-900/40 text-ink-300">
       <th scope="row" className={`${td} text-left font-normal`} style={indent(step.depth)}>
         <span className="font-mono text-accent" title={`${from.input}${cancel.input}`}>
           {step.input}

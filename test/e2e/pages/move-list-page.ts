@@ -44,10 +44,7 @@ export class MoveListPage {
 
   /** The string that holds this step (a hit or a cancel), by its key. */
   async openStringOf(stepKey: string) {
-    const root = await this.page
-      .locator(`tbody:has(tr[data-move-key="${stepKey}"]), tbody:has(tr[data-cancel-key="${stepKey}"])`)
-      .first()
-      .getAttribute("data-string");
+    const root = await this.page.locator(`tbody[data-steps~="${stepKey}"]`).first().getAttribute("data-string");
     if (root !== null) await this.open(root);
   }
 

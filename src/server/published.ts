@@ -1,0 +1,145 @@
+import "server-only";
+import { createHash } from "node:crypto";
+import { notFound } from "next/navigation";
+import { cache } from "react";
+import {
+  getGameBySlug,
+  listCharacters,
+  listEditions,
+  type CharacterSummary,
+  type EditionSummary,
+  type GameSummary,
+} from "./db/queries/games";
+
+/**
+ * The pages of a published Edition of a public game are the same for every
+ * reader and never change, so they are rendered once and served from Next's
+ * cache (the routes under src/app/published, static with on-demand
+ * generation). The proxy sends a public address there (`publishedAddress`)
+ * when what it shows is published; anything else (a team's game, a draft, an
+ * unknown Edition or character) goes to the live routes, which render for each
+ * request and check who is reading.
+ *
+ * The cached address names the Edition's id and a signature of the game's
+ * catalog (the game, its Editions, its characters): a page lists the game's
+ * Editions, so a newly published one makes new addresses rather than stale
+ * pages, and nothing is ever invalidated. It works the same with any number of
+ * app servers, each filling its own cache.
+ */
+export const PUBLISHED_PREFIX = "/published";
+
+/** How long a public game's catalog is reused before it is read again. */
+export const CATALOG_SECONDS = 5;
+
+interface PublicCatalog {
+  game: GameSummary;
+  editions: EditionSummary[];
+  characters: CharacterSummary[];
+  signature: string;
+}
+
+const catalogs = new Map<string, { until: number; catalog: Promise<PublicCatalog | "team" | null> }>();
+
+/** A public game's catalog; "team" for a team's game; null for no game by that slug. */
+async function readCatalog(gameSlug: string): Promise<PublicCatalog | "team" | null> {
+  const game = await getGameBySlug({ slug: gameSlug });
+  if (!game) return null;
+  if (game.teamId !== null) return "team";
+  const [editions, characters] = await Promise.all([
+    listEditions({ gameId: game.id }),
+    listCharacters({ gameId: game.id }),
+  ]);
+  const signature = createHash("sha256")
+    .update(JSON.stringify({ game, editions, characters }))
+    .digest("base64url")
+    .slice(0, 16);
+  return { game, editions, characters, signature };
+}
+
+/**
+ * A public game's catalog, read at most once per CATALOG_SECONDS per process;
+ * null for a team's game or an unknown slug. Only games that exist are kept,
+ * so addresses made up by a stranger do not grow the map.
+ */
+async function publicCatalog(gameSlug: string): Promise<PublicCatalog | null> {
+  const now = Date.now();
+  let kept = catalogs.get(gameSlug);
+  if (!kept || kept.until <= now) {
+    kept = { until: now + CATALOG_SECONDS * 1000, catalog: readCatalog(gameSlug) };
+    catalogs.set(gameSlug, kept);
+  }
+  const found = await kept.catalog.catch((error: unknown) => {
+    catalogs.delete(gameSlug);
+    throw error;
+  });
+  if (found === null) catalogs.delete(gameSlug);
+  return found === "team" ? null : found;
+}
+
+/** Forgets what this process knows of public games' catalogs (tests; seeding). */
+export function forgetCatalogs(): void {
+  catalogs.clear();
+}
+
+function decoded(segment: string): string | null {
+  try {
+    return decodeURIComponent(segment);
+  } catch {
+    return null;
+  }
+}
+
+/** The public game and character an address names, with the game's catalog. */
+async function addressed(pathname: string) {
+  const parts = pathname.split("/");
+  // "/games/{game}/{character}" is ["", "games", game, character].
+  if (parts[1] !== "games" || parts.length !== 4) return null;
+  const [gameSlug, characterSlug] = [decoded(parts[2]!), decoded(parts[3]!)];
+  if (!gameSlug || !characterSlug) return null;
+  const catalog = await publicCatalog(gameSlug);
+  if (!catalog || !catalog.characters.some((c) => c.slug === characterSlug)) return null;
+  return catalog;
+}
+
+/**
+ * The cached route for a public address, or null when the live route must
+ * answer. `pathname` is the address's path as sent; `search` its query.
+ */
+export async function publishedAddress(pathname: string, search: URLSearchParams): Promise<string | null> {
+  const catalog = await addressed(pathname);
+  if (!catalog) return null;
+  const wanted = search.getAll("edition");
+  if (wanted.length > 1) return null;
+  const edition = wanted.length === 0 ? catalog.editions[0] : catalog.editions.find((e) => e.slug === wanted[0]);
+  if (!edition || edition.status !== "published") return null;
+  return `${PUBLISHED_PREFIX}/${edition.id}/${catalog.signature}${pathname}`;
+}
+
+/**
+ * Whether a cached route's own address is one `publishedAddress` gives now.
+ * Next's client router may ask for it directly; any other (a made-up Edition
+ * or signature) is refused before it could make a page, so strangers cannot
+ * fill the cache.
+ */
+export async function isPublishedAddress(pathname: string): Promise<boolean> {
+  const [, prefix, editionId, signature, ...rest] = pathname.split("/");
+  if (`/${prefix}` !== PUBLISHED_PREFIX || !editionId || !signature) return false;
+  const publicPath = `/${rest.join("/")}`;
+  const catalog = await addressed(publicPath);
+  const edition = catalog?.editions.find((e) => String(e.id) === editionId);
+  return catalog?.signature === signature && edition?.status === "published";
+}
+
+/**
+ * What a cached page needs, from its own address: the public game, its
+ * Editions, the published Edition and the character. Anything else is the
+ * app's not-found, never a page of a draft or of a team's game.
+ */
+export const loadPublished = cache(async (editionId: string, gameSlug: string, characterSlug: string) => {
+  const read = await readCatalog(gameSlug);
+  const catalog = read === "team" ? null : read;
+  const edition = catalog?.editions.find((e) => String(e.id) === editionId);
+  const character = catalog?.characters.find((c) => c.slug === characterSlug);
+  if (!catalog || !edition || edition.status !== "published" || !character) notFound();
+  return { game: catalog.game, editions: catalog.editions, edition, character };
+});
