@@ -1,32 +1,16 @@
 "use client";
 
 import Link from "next/link";
-import { usePathname } from "next/navigation";
-import useSWR from "swr";
-import { SESSION_URL } from "./session-refresh";
+import { useSession } from "./session";
 import { SignOutButton } from "./sign-out-button";
-
-interface SessionAnswer {
-  user?: { email: string; name: string | null };
-}
-
-async function readSession(url: string): Promise<SessionAnswer> {
-  const response = await fetch(url, { cache: "no-store" });
-  if (!response.ok) throw new Error(`The session could not be read (${response.status}).`);
-  return (await response.json()) as SessionAnswer;
-}
 
 /**
  * The header's account part, read in the browser: the root layout renders no
  * session, so a page of a published Edition is the same HTML for everyone and
- * can be served from the cache. The session is read again on each navigation
- * (a sign-in or sign-out ends in one), keeping the last answer on screen meanwhile.
+ * can be served from the cache.
  */
 export function AccountArea() {
-  const pathname = usePathname();
-  const { data, error } = useSWR([SESSION_URL, pathname], ([url]) => readSession(url), {
-    keepPreviousData: true,
-  });
+  const { data, error } = useSession();
 
   if (!data) {
     return (

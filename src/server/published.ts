@@ -2,6 +2,7 @@ import "server-only";
 import { createHash } from "node:crypto";
 import { notFound } from "next/navigation";
 import { cache } from "react";
+import { readEditionKeys } from "./db/queries/moves";
 import {
   getGameBySlug,
   listCharacters,
@@ -89,16 +90,66 @@ function decoded(segment: string): string | null {
   }
 }
 
-/** The public game and character an address names, with the game's catalog. */
-async function addressed(pathname: string) {
-  const parts = pathname.split("/");
-  // "/games/{game}/{character}" is ["", "games", game, character].
-  if (parts[1] !== "games" || parts.length !== 4) return null;
-  const [gameSlug, characterSlug] = [decoded(parts[2]!), decoded(parts[3]!)];
+/**
+ * The keys of a published Edition's moves and stances for one character, read
+ * once: a published Edition never changes. Only asked for public games, so the
+ * map holds no more than their published Editions' characters.
+ */
+const indexes = new Map<string, Promise<{ moves: Set<string>; stances: Set<string> }>>();
+
+function editionIndex(editionId: number, characterId: number) {
+  const key = `${editionId}:${characterId}`;
+  let index = indexes.get(key);
+  if (!index) {
+    index = readEditionKeys({ editionId, characterId }).then(({ moves, stances }) => ({
+      moves: new Set(moves),
+      stances: new Set(stances),
+    }));
+    index.catch(() => indexes.delete(key));
+    indexes.set(key, index);
+  }
+  return index;
+}
+
+/**
+ * The pages a public address may name, as path segments after "/games":
+ * a move list ({game}/{character}), a stance sheet ({…}/stances/{stance}) and
+ * the Explorer ({…}/explore/{move}).
+ */
+interface PublicPage {
+  gameSlug: string;
+  characterSlug: string;
+  /** What the Edition must hold for the page to exist. */
+  needs: { stance: string } | { move: string } | null;
+}
+
+function pageOf(pathname: string): PublicPage | null {
+  const parts = pathname.split("/").map(decoded);
+  if (parts[0] !== "" || parts[1] !== "games" || parts.some((p) => p === null)) return null;
+  const [gameSlug, characterSlug, kind, key] = parts.slice(2) as string[];
   if (!gameSlug || !characterSlug) return null;
-  const catalog = await publicCatalog(gameSlug);
-  if (!catalog || !catalog.characters.some((c) => c.slug === characterSlug)) return null;
-  return catalog;
+  if (parts.length === 4) return { gameSlug, characterSlug, needs: null };
+  if (parts.length !== 6 || !key) return null;
+  if (kind === "stances") return { gameSlug, characterSlug, needs: { stance: key } };
+  if (kind === "explore") return { gameSlug, characterSlug, needs: { move: key } };
+  return null;
+}
+
+/** The published Edition of a public game an address shows, when there is one, with the game's catalog. */
+async function shown(pathname: string, editionOf: (catalog: PublicCatalog) => EditionSummary | undefined) {
+  const page = pageOf(pathname);
+  if (!page) return null;
+  const catalog = await publicCatalog(page.gameSlug);
+  const character = catalog?.characters.find((c) => c.slug === page.characterSlug);
+  const edition = catalog ? editionOf(catalog) : undefined;
+  if (!catalog || !character || edition?.status !== "published") return null;
+  if (page.needs) {
+    const index = await editionIndex(edition.id, character.id);
+    if ("stance" in page.needs ? !index.stances.has(page.needs.stance) : !index.moves.has(page.needs.move)) {
+      return null;
+    }
+  }
+  return { catalog, edition };
 }
 
 /**
@@ -106,13 +157,12 @@ async function addressed(pathname: string) {
  * answer. `pathname` is the address's path as sent; `search` its query.
  */
 export async function publishedAddress(pathname: string, search: URLSearchParams): Promise<string | null> {
-  const catalog = await addressed(pathname);
-  if (!catalog) return null;
   const wanted = search.getAll("edition");
   if (wanted.length > 1) return null;
-  const edition = wanted.length === 0 ? catalog.editions[0] : catalog.editions.find((e) => e.slug === wanted[0]);
-  if (!edition || edition.status !== "published") return null;
-  return `${PUBLISHED_PREFIX}/${edition.id}/${catalog.signature}${pathname}`;
+  const found = await shown(pathname, (catalog) =>
+    wanted.length === 0 ? catalog.editions[0] : catalog.editions.find((e) => e.slug === wanted[0]),
+  );
+  return found ? `${PUBLISHED_PREFIX}/${found.edition.id}/${found.catalog.signature}${pathname}` : null;
 }
 
 /**
@@ -124,10 +174,10 @@ export async function publishedAddress(pathname: string, search: URLSearchParams
 export async function isPublishedAddress(pathname: string): Promise<boolean> {
   const [, prefix, editionId, signature, ...rest] = pathname.split("/");
   if (`/${prefix}` !== PUBLISHED_PREFIX || !editionId || !signature) return false;
-  const publicPath = `/${rest.join("/")}`;
-  const catalog = await addressed(publicPath);
-  const edition = catalog?.editions.find((e) => String(e.id) === editionId);
-  return catalog?.signature === signature && edition?.status === "published";
+  const found = await shown(`/${rest.join("/")}`, (catalog) =>
+    catalog.editions.find((e) => String(e.id) === editionId),
+  );
+  return found?.catalog.signature === signature;
 }
 
 /**

@@ -128,8 +128,42 @@ const PAGES: Record<string, Target[]> = {
   ],
   "(app)/games/[game]/[character]/(moves)/page.tsx": [
     { what: "team A's character", path: privateCharacter, expect: membersOnly(), membersSee: ["character"] },
-    { what: "a public character", path: "/games/vesper-circuit/tarrow", expect: all(200) },
     { what: "a character that does not exist", path: "/games/vesper-circuit/nobody", expect: all(404) },
+    {
+      what: "a public character in an Edition that does not exist (rendered live, saying so)",
+      path: "/games/vesper-circuit/tarrow?edition=no-such",
+      expect: all(200),
+    },
+  ],
+  // A published Edition of a public game, rendered once and served from the cache (src/server/published.ts).
+  "published/[edition]/[catalog]/games/[game]/[character]/page.tsx": [
+    { what: "a public character", path: "/games/vesper-circuit/tarrow", expect: all(200) },
+    {
+      what: "a public character in an older Edition",
+      path: "/games/vesper-circuit/tarrow?edition=1-0",
+      expect: all(200),
+    },
+    {
+      what: "a cached copy's own address, with a made-up catalog",
+      path: "/published/1/made-up/games/vesper-circuit/tarrow",
+      expect: all(404),
+    },
+  ],
+  "published/[edition]/[catalog]/games/[game]/[character]/explore/[move]/page.tsx": [
+    { what: "a public move", path: demoMove, expect: all(200) },
+    {
+      what: "a cached copy's own address, for a move that does not exist",
+      path: "/published/1/made-up/games/vesper-circuit/tarrow/explore/none",
+      expect: all(404),
+    },
+  ],
+  "published/[edition]/[catalog]/games/[game]/[character]/stances/[stance]/page.tsx": [
+    { what: "a public stance sheet", path: "/games/vesper-circuit/tarrow/stances/drift", expect: all(200) },
+    {
+      what: "a public stance sheet, filtered, in an older Edition",
+      path: "/games/vesper-circuit/tarrow/stances/drift?edition=1-0&safe=1",
+      expect: all(200),
+    },
   ],
   "(app)/games/[game]/[character]/explore/[move]/page.tsx": [
     {
@@ -138,7 +172,6 @@ const PAGES: Record<string, Target[]> = {
       expect: membersOnly(),
       membersSee: ["character", "move"],
     },
-    { what: "a public move", path: demoMove, expect: all(200) },
     {
       what: "a move of team A's character that does not exist",
       path: `${privateCharacter}/explore/none`,
@@ -183,12 +216,6 @@ const PAGES: Record<string, Target[]> = {
       path: `${privateCharacter}/stances/hush`,
       expect: membersOnly(),
       membersSee: ["character", "stance"],
-    },
-    { what: "a public stance sheet", path: "/games/vesper-circuit/tarrow/stances/drift", expect: all(200) },
-    {
-      what: "a public stance sheet, filtered, in an older Edition",
-      path: "/games/vesper-circuit/tarrow/stances/drift?edition=1-0&safe=1",
-      expect: all(200),
     },
     { what: "a stance that does not exist", path: "/games/vesper-circuit/tarrow/stances/nowhere", expect: all(404) },
     {

@@ -4,7 +4,7 @@ import { stanceNodeId, toMoveGraph } from "@/lib/character-file";
 import type { MoveGraph } from "@/lib/engine";
 import type { Starter } from "@/lib/explorer";
 import { getDb } from "../index";
-import { moves } from "../schema";
+import { moves, stances } from "../schema";
 import { loadCharacterRows, portableRows } from "./character-io";
 import type { CancelEntry, MoveEntry, MoveList } from "@/lib/dto";
 
@@ -126,4 +126,20 @@ export async function hasMove({ characterId, key }: { characterId: number; key: 
     .where(and(eq(moves.characterId, characterId), eq(moves.key, key)))
     .limit(1);
   return row !== undefined;
+}
+
+/** The keys of one character's moves and stances in one Edition. */
+export async function readEditionKeys({
+  editionId,
+  characterId,
+}: {
+  editionId: number;
+  characterId: number;
+}): Promise<{ moves: string[]; stances: string[] }> {
+  const scope = (t: typeof moves | typeof stances) => and(eq(t.editionId, editionId), eq(t.characterId, characterId));
+  const [moveRows, stanceRows] = await Promise.all([
+    getDb().select({ key: moves.key }).from(moves).where(scope(moves)),
+    getDb().select({ key: stances.key }).from(stances).where(scope(stances)),
+  ]);
+  return { moves: moveRows.map((r) => r.key), stances: stanceRows.map((r) => r.key) };
 }

@@ -1,13 +1,10 @@
 import type { Metadata } from "next";
-import Link from "next/link";
 import { notFound } from "next/navigation";
-import { Breadcrumb } from "@/components/ui/breadcrumb";
-import { ShareStanceButton } from "@/components/stances/share-stance";
-import { StanceSheetView } from "@/components/stances/stance-sheet-view";
+import { StancePage, stanceTitle } from "@/app/_shared/stance-page";
 import { readDistance } from "@/lib/move-list";
-import { REACH_PARAM, SAFE_ONLY_PARAM } from "@/lib/stance-sheet";
-import { atLeast } from "@/lib/roles";
+import { readerActions } from "@/lib/reader-teams";
 import { decodeSegment } from "@/lib/segment";
+import { REACH_PARAM, SAFE_ONLY_PARAM } from "@/lib/stance-sheet";
 import { auth } from "@/server/auth";
 import { listMyTeams } from "@/server/db/queries/teams";
 import { getStanceSheet } from "@/server/db/queries/stance-sheets";
@@ -31,57 +28,26 @@ async function load(props: Props) {
 }
 
 export async function generateMetadata(props: Props): Promise<Metadata> {
-  const data = await load(props);
-  return { title: `${data.stance.name} · ${data.character.name} · ${data.game.name}` };
+  return stanceTitle(await load(props));
 }
 
-/** A stance's sheet: its ways in, its moves, and the grid of the two (DESIGN.md, "Stance sheet"). */
-export default async function StancePage(props: Props) {
+/**
+ * A stance's sheet, rendered for each request: a team's game, a draft, or an
+ * address the proxy does not send to the cached copy (src/server/published.ts).
+ */
+export default async function LiveStancePage(props: Props) {
   const data = await load(props);
   const search = await props.searchParams;
   const user = await auth();
-  const myTeams = user ? await listMyTeams({ userId: user.id }) : null;
-  const shareTeams = myTeams?.filter((t) => atLeast(t.role, "player")).map((t) => ({ id: t.id, name: t.name }));
-  const { game, character, edition, stance, sheet } = data;
-  const moveList = `/games/${game.slug}/${character.slug}?edition=${edition.slug}`;
-
+  const { share } = readerActions(user ? await listMyTeams({ userId: user.id }) : null);
   return (
-    <div className="space-y-6">
-      <Breadcrumb
-        trail={[
-          { href: "/games", label: "Games" },
-          { href: `/games/${game.slug}`, label: game.name },
-          { href: moveList, label: character.name },
-        ]}
-      />
-      <header className="space-y-1">
-        <h1 className="text-2xl font-semibold">
-          {stance.name} <span className="text-base font-normal text-ink-300">· {character.name}’s stance</span>
-        </h1>
-        <p className="text-sm text-ink-400">
-          {edition.name} · {sheet.waysIn.length} {sheet.waysIn.length === 1 ? "way" : "ways"} in · {sheet.moves.length}{" "}
-          {sheet.moves.length === 1 ? "move" : "moves"} from it · against a fastest attack of {game.fastest}f
-        </p>
-        <p className="text-sm">
-          <Link href={`${moveList}#stance-${encodeURIComponent(stance.key)}`}>Back to the move list</Link>
-        </p>
-      </header>
-      <StanceSheetView
-        data={data}
-        safeOnly={search[SAFE_ONLY_PARAM] === "1"}
-        reach={readDistance(search[REACH_PARAM])}
-        linkToExplorer
-        actions={
-          shareTeams && edition.status === "published" ? (
-            <ShareStanceButton
-              teams={shareTeams}
-              characterId={character.id}
-              edition={edition.slug}
-              stance={stance.key}
-            />
-          ) : null
-        }
-      />
-    </div>
+    <StancePage
+      data={data}
+      live={{
+        safeOnly: search[SAFE_ONLY_PARAM] === "1",
+        reach: readDistance(search[REACH_PARAM]),
+        shareTeams: share?.teams,
+      }}
+    />
   );
 }
