@@ -1,5 +1,6 @@
 import "server-only";
 import { createHash } from "node:crypto";
+import { LRUCache } from "lru-cache";
 import { notFound } from "next/navigation";
 import { cache } from "react";
 import { readEditionKeys } from "./db/queries/moves";
@@ -32,7 +33,7 @@ export const PUBLISHED_PREFIX = "/published";
 /** How long a public game's catalog is reused before it is read again. */
 export const CATALOG_SECONDS = 5;
 
-interface PublicCatalog {
+export interface PublicCatalog {
   game: GameSummary;
   editions: EditionSummary[];
   characters: CharacterSummary[];
@@ -193,3 +194,43 @@ export const loadPublished = cache(async (editionId: string, gameSlug: string, c
   if (!catalog || !edition || edition.status !== "published" || !character) notFound();
   return { game: catalog.game, editions: catalog.editions, edition, character };
 });
+
+/**
+ * Characters of public games, by id, with their game's slug, so a repeat
+ * request for one reads nothing but the game's catalog (itself kept
+ * CATALOG_SECONDS). Only characters the database showed to be in a public
+ * game are kept: a team's character or a made-up id is never remembered.
+ */
+const publicCharacterGames = new LRUCache<number, string>({ max: 10_000 });
+
+/** A character of a public game, with that game's catalog. */
+export interface PublicCharacter {
+  catalog: PublicCatalog;
+  character: CharacterSummary;
+}
+
+/**
+ * The public character with this id and its game's catalog, or null. Without
+ * `gameSlug` only a character remembered from an earlier call is found, and
+ * nothing is read for one never seen (the caller then reads the character
+ * itself, checks who may read it, and calls again with the slug of its game
+ * when that game is public). Null too when the game is no longer public or
+ * the character no longer in it; the id is then forgotten.
+ */
+export async function publicCharacter(characterId: number, gameSlug?: string): Promise<PublicCharacter | null> {
+  const slug = gameSlug ?? publicCharacterGames.get(characterId);
+  if (slug === undefined) return null;
+  const catalog = await publicCatalog(slug);
+  const character = catalog?.characters.find((c) => c.id === characterId);
+  if (!catalog || !character) {
+    publicCharacterGames.delete(characterId);
+    return null;
+  }
+  publicCharacterGames.set(characterId, slug);
+  return { catalog, character };
+}
+
+/** Forgets which characters are public (tests). */
+export function forgetPublicCharacters(): void {
+  publicCharacterGames.clear();
+}

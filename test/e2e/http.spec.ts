@@ -44,6 +44,27 @@ test("pages, JSON answers and our own error answers all carry the security heade
   }
 });
 
+test("the graph API of the demo's published Edition reaches the client with its ETag and public caching, and a matching If-None-Match is 304 with no body", async ({
+  request,
+}) => {
+  const [tarrow] = await query<{ id: number }>(
+    "select c.id from characters c join games g on g.id = c.game_id where g.slug = 'vesper-circuit' and c.slug = 'tarrow'",
+  );
+  const path = `/api/characters/${tarrow!.id}/graph?edition=1-1`;
+  const res = await request.get(path);
+  expect(res.status()).toBe(200);
+  const { etag, "cache-control": cacheControl } = res.headers();
+  // RFC 9110 §8.8.3: a strong entity tag is a quoted string; RFC 9111 §5.2.2.9: "public".
+  expect(etag).toMatch(/^"[\w-]+"$/);
+  expect(cacheControl).toMatch(/^public, max-age=\d+/);
+
+  // RFC 9110 §13.1.2 and §15.4.5: the same validator and caching headers, no body.
+  const again = await request.get(path, { headers: { "if-none-match": etag! } });
+  expect(again.status()).toBe(304);
+  expect(again.headers()).toMatchObject({ etag, "cache-control": cacheControl });
+  expect((await again.body()).length).toBe(0);
+});
+
 test("an address with a broken %-escape answers our 400 JSON on the API and our not-found page elsewhere, never the framework's 500", async ({
   request,
 }) => {

@@ -159,7 +159,16 @@ interface FuzzRow {
   alsoGood?: (() => Record<string, unknown>)[];
   /** The query fields the route reads, so generated queries use them often. */
   query?: string[];
+  /** The request headers the route reads (beyond the body's type), sent filled with arbitrary text. */
+  headers?: string[];
 }
+
+/** A request header's value: arbitrary text (what a header cannot carry is left out) or entity-tag look-alikes. */
+const headerValue: fc.Arbitrary<Text> = fc.oneof(
+  text,
+  fc.constantFrom("*", 'W/"x"', '"a", W/"b"', '"', ",,", "W/", '""', '"\u00ff"'),
+);
+const sendable = (value: string) => /^[\t\x20-\x7e\x80-\xff]*$/.test(value);
 
 /** Every route handler. A new one fails the first test until it has a row. */
 const ROUTES: Record<string, FuzzRow | { overHttp: string }> = {
@@ -174,7 +183,7 @@ const ROUTES: Record<string, FuzzRow | { overHttp: string }> = {
   // next-auth reads cookies() from Next's request scope, which only a running server has.
   "GET /api/auth/[...nextauth]": { overHttp: "test/e2e/fuzz-auth.spec.ts" },
   "POST /api/auth/[...nextauth]": { overHttp: "test/e2e/fuzz-auth.spec.ts" },
-  "GET /api/characters/[id]/graph": { query: ["edition"] },
+  "GET /api/characters/[id]/graph": { query: ["edition"], headers: ["if-none-match"] },
   "GET /api/teams": {},
   "POST /api/teams": { good: () => ({ name: "Fuzz Team" }) },
   "GET /api/teams/[team]/members": {},
@@ -303,15 +312,20 @@ describe("fuzzing every route and action", () => {
         body: bodyArb,
         type: typeArb,
         kind: fc.nat(),
+        headers: row.headers
+          ? fc.array(fc.tuple(fc.constantFrom(...row.headers), headerValue), { maxLength: 2 })
+          : fc.constant([]),
       },
       settings,
-    )(key, async ({ who, params, query, body, type, kind }) => {
+    )(key, async ({ who, params, query, body, type, kind, headers }) => {
       const values = Object.fromEntries(names.map((name, i) => [name, resolve(params[i]!)]));
       const search = new URLSearchParams(query.map(([k, v]) => [k, resolve(v)]));
       const init: RequestInit = { method };
       const goods = row.good ? [row.good, ...(row.alsoGood ?? [])] : [];
       if (row.good) init.body = bodyText(goods[kind % goods.length]!(), body);
       if (row.good && type) init.headers = { "content-type": type };
+      const sent = headers.map(([name, value]) => [name, resolve(value)]).filter(([, value]) => sendable(value!));
+      if (sent.length > 0) init.headers = { ...init.headers, ...Object.fromEntries(sent) };
       setSession(userOf(who));
 
       const before = await tableChecksums();

@@ -32,8 +32,30 @@ interface Case {
   expect: Expected;
 }
 
-/** `form` is sent as multipart/form-data (a file upload), `body` as JSON. */
-type Call = { params?: Record<string, string>; body?: unknown; form?: FormData; query?: string };
+/** `form` is sent as multipart/form-data (a file upload), `body` as JSON; `headers` beside them. */
+type Call = {
+  params?: Record<string, string>;
+  body?: unknown;
+  form?: FormData;
+  query?: string;
+  headers?: Record<string, string>;
+};
+
+/**
+ * The ETag of the graph API's answer to `who` (signed in as them, then signed out again), so a
+ * row can send it back in If-None-Match after that answer has warmed any cache.
+ */
+async function graphEtag(w: World, who: Actor, id: number, query: string): Promise<string> {
+  const graph = (await routeHandlers()).get("GET /api/characters/[id]/graph")!;
+  setSession(userOf(w, who));
+  const res = await graph(new Request(routeUrl("/api/characters/[id]/graph", { id: String(id) }, query)), {
+    params: Promise.resolve({ id: String(id) }),
+  });
+  setSession(null);
+  const etag = res.headers.get("etag");
+  if (res.status !== 200 || etag === null) throw new Error(`${who} got ${res.status} without an ETag`);
+  return etag;
+}
 
 const all = (status: number): Expected => ({
   anonymous: status,
@@ -87,6 +109,35 @@ const MATRIX: Record<string, Case[] | { exempt: string }> = {
       what: "a team's game",
       call: (w) => ({ params: { id: String(w.teamCharacterId) } }),
       expect: { ...members(200), anonymous: 404 },
+    },
+    {
+      // A member's answer came first: whatever it warmed, a stranger sending its ETag is not told "unchanged".
+      what: "a team's published Edition, sent the ETag a member got",
+      call: async (w) => ({
+        params: { id: String(w.teamCharacterId) },
+        query: "?edition=0-1",
+        headers: { "if-none-match": await graphEtag(w, "viewer", w.teamCharacterId, "?edition=0-1") },
+      }),
+      expect: { ...members(304), anonymous: 404 },
+    },
+    {
+      what: "a team's draft",
+      call: async (w) => ({ params: { id: String(w.teamCharacterId) }, query: `?edition=${await draftOf(w)}` }),
+      expect: { ...members(200), anonymous: 404 },
+    },
+    {
+      what: "the demo game's published Edition",
+      call: (w) => ({ params: { id: String(w.demoCharacterId) }, query: "?edition=1-1" }),
+      expect: all(200),
+    },
+    {
+      what: "the demo game's published Edition, sent its ETag",
+      call: async (w) => ({
+        params: { id: String(w.demoCharacterId) },
+        query: "?edition=1-1",
+        headers: { "if-none-match": await graphEtag(w, "anonymous", w.demoCharacterId, "?edition=1-1") },
+      }),
+      expect: all(304),
     },
   ],
   "GET /api/auth/[...nextauth]": { exempt: "next-auth's own sign-in endpoints: public by design, rate limited" },
@@ -494,10 +545,10 @@ describe("role matrix", () => {
     for (const actor of ACTORS) {
       // A fresh world per caller: a change one caller makes must not decide the next one's answer.
       const w = await world();
-      const { params = {}, body, form, query = "" } = await c.call(w);
+      const { params = {}, body, form, query = "", headers } = await c.call(w);
       setSession(userOf(w, actor));
       // Each call from its own address, like the actions above: no route's per-address limit decides a row.
-      const from = { "x-forwarded-for": nextAddress() };
+      const from = { ...headers, "x-forwarded-for": nextAddress() };
       const request = new Request(routeUrl(path, params, query), {
         method,
         headers: body === undefined ? from : { ...from, "content-type": "application/json" },
