@@ -1,5 +1,5 @@
 import { randomBytes } from "node:crypto";
-import { expect, test, type APIRequestContext } from "@playwright/test";
+import { expect, test, type APIRequestContext, type Browser } from "@playwright/test";
 import { query } from "./db";
 import { ExplorerPage } from "./pages/explorer-page";
 import { MoveListPage } from "./pages/move-list-page";
@@ -20,10 +20,17 @@ import {
 
 test.describe.configure({ timeout: 180_000 });
 
-test.beforeEach(async () => {
+test.beforeEach(async ({}, testInfo) => {
+  test.skip(testInfo.project.name !== "desktop", "what the server answers: one screen size is enough");
   // Sign-in is rate limited per address, and every request here comes from 127.0.0.1.
   await query("delete from rate_limits");
 });
+
+/** A coach signed in in a browser context of their own, with a team game holding the demo's Tarrow. */
+async function coachWithTeamGame(browser: Browser, baseURL: string, publish: boolean) {
+  const coach = await signedIn(browser, baseURL, "coach");
+  return { coach, t: await teamGameWithDemoTarrow(coach.page, coach.person.email, { publish }) };
+}
 
 /** Opens every string, once the page answers clicks (a click before hydration does nothing). */
 async function openEveryString(list: MoveListPage) {
@@ -36,10 +43,8 @@ async function openEveryString(list: MoveListPage) {
 test("a draft Edition is never served from a cache: a coach changes a number, reloads, and sees the change", async ({
   browser,
   baseURL,
-}, testInfo) => {
-  test.skip(testInfo.project.name !== "desktop", "what the server answers: one screen size is enough");
-  const coach = await signedIn(browser, baseURL!, "coach");
-  const t = await teamGameWithDemoTarrow(coach.page, coach.person.email, { publish: false });
+}) => {
+  const { coach, t } = await coachWithTeamGame(browser, baseURL!, false);
   const page = coach.page;
   const list = new MoveListPage(page);
   const address = `/games/${t.game}/tarrow?edition=${t.edition}`;
@@ -92,12 +97,10 @@ test("a published Edition's move list shows the same figures served from the cac
   browser,
   baseURL,
   request,
-}, testInfo) => {
-  test.skip(testInfo.project.name !== "desktop", "what the server answers: one screen size is enough");
+}) => {
   // The demo's Tarrow of 1-1, imported into a team's game with the demo's rules and published:
   // the team's page is rendered for each request (members only), the demo's comes from the cache.
-  const coach = await signedIn(browser, baseURL!, "coach");
-  const t = await teamGameWithDemoTarrow(coach.page, coach.person.email, { publish: true });
+  const { coach, t } = await coachWithTeamGame(browser, baseURL!, true);
 
   for (const p of CACHED_PAGES) {
     const demo = `${p.path("vesper-circuit")}?edition=1-1`;
@@ -148,10 +151,8 @@ test("a team's published pages and team-only links reach its members only, and n
   browser,
   baseURL,
   playwright,
-}, testInfo) => {
-  test.skip(testInfo.project.name !== "desktop", "what the server answers: one screen size is enough");
-  const coach = await signedIn(browser, baseURL!, "coach");
-  const t = await teamGameWithDemoTarrow(coach.page, coach.person.email, { publish: true });
+}) => {
+  const { coach, t } = await coachWithTeamGame(browser, baseURL!, true);
   // A team-only link to Tarrow in the team's published Edition.
   const linkSlug = randomBytes(18).toString("base64url");
   const linkTitle = `Team-only drill ${linkSlug.slice(0, 8)}`;
@@ -217,8 +218,7 @@ test("a team's published pages and team-only links reach its members only, and n
   await coach.context.close();
 });
 
-test("a cached copy answers only at the address the proxy sends a public page to", async ({ request }, testInfo) => {
-  test.skip(testInfo.project.name !== "desktop", "what the server answers: one screen size is enough");
+test("a cached copy answers only at the address the proxy sends a public page to", async ({ request }) => {
   const [demo] = await query<{ id: number }>(
     "select e.id from editions e join games g on g.id = e.game_id where g.slug = 'vesper-circuit' and e.slug = '1-1'",
   );
@@ -250,14 +250,8 @@ test("a cached copy answers only at the address the proxy sends a public page to
   }
 });
 
-test("a team's published Edition has no cached copy, whatever its address", async ({
-  browser,
-  baseURL,
-  request,
-}, testInfo) => {
-  test.skip(testInfo.project.name !== "desktop", "what the server answers: one screen size is enough");
-  const coach = await signedIn(browser, baseURL!, "coach");
-  const t = await teamGameWithDemoTarrow(coach.page, coach.person.email, { publish: true });
+test("a team's published Edition has no cached copy, whatever its address", async ({ browser, baseURL, request }) => {
+  const { coach, t } = await coachWithTeamGame(browser, baseURL!, true);
   const [team] = await query<{ id: number }>(
     "select e.id from editions e join games g on g.id = e.game_id where g.slug = ?",
     [t.game],
