@@ -4,6 +4,7 @@ import { join, relative } from "node:path";
 import { expect, request, test, type APIRequestContext } from "@playwright/test";
 import { query } from "./db";
 import { signUpAs } from "./pages/team-pages";
+import { cachedAddressOf } from "./published";
 
 // The page inventory, beside the route inventory of the role matrix: every page, not-found page
 // and link-preview image under src/app has a row, and each row says what each kind of visitor
@@ -88,7 +89,8 @@ const SECRETS: Record<Secret, string> = {
 interface Target {
   /** What the address shows, for the failure message. */
   what: string;
-  path: string;
+  /** The address, or how to find it when it is known only once the app runs. */
+  path: string | (() => Promise<string>);
   expect: Record<Visitor, Answer>;
   /** Private names a member must see here: proof that the stranger's check looks at the right page. */
   membersSee?: Secret[];
@@ -107,6 +109,9 @@ const signedIn: Record<Visitor, Answer> = { ...all(200), anonymous: "sign-in" };
 const signedOut: Record<Visitor, Answer> = { ...all("home"), anonymous: 200 };
 
 const demoMove = "/games/vesper-circuit/tarrow/explore/v";
+/** Where the proxy sends the demo's Tarrow move list of 1-1 (the address names the Edition and a signature). */
+const demoCachedMoveList = () =>
+  cachedAddressOf(visitors.get("anonymous")!, "/games/vesper-circuit/tarrow?edition=1-1");
 const privateCharacter = `/games/${data.gameSlug}/hidden-lantern`;
 
 /**
@@ -247,6 +252,32 @@ const PAGES: Record<string, Target[]> = {
     {
       what: "importing into a character that does not exist",
       path: "/games/vesper-circuit/nobody/import",
+      expect: all(404),
+    },
+  ],
+  // The cached copy of a published Edition's move list of a public game (src/server/published.ts):
+  // the proxy sends the public address there; any other address of it is "not found".
+  "published/[edition]/[catalog]/games/[game]/[character]/page.tsx": [
+    {
+      what: "the demo's cached move list, at the address the proxy sends it to",
+      path: demoCachedMoveList,
+      expect: all(200),
+    },
+    {
+      what: "a cached move list with a made-up Edition and signature",
+      path: "/published/1/made-up-signature/games/vesper-circuit/tarrow",
+      expect: all(404),
+    },
+    {
+      what: "team A's character at a cached address, with team A's Edition and the demo's signature",
+      path: async () => {
+        const [edition] = await query<{ id: number }>(
+          "select e.id from editions e join games g on g.id = e.game_id where g.slug = ?",
+          [data.gameSlug],
+        );
+        const signature = (await demoCachedMoveList()).split("/")[3];
+        return `/published/${edition!.id}/${signature}${privateCharacter}`;
+      },
       expect: all(404),
     },
   ],
@@ -406,8 +437,9 @@ test.describe("page inventory", () => {
       test(`${file}: ${t.what}`, async () => {
         const got: Partial<Record<Visitor, Answer | number>> = {};
         const problems: string[] = [];
+        const path = typeof t.path === "string" ? t.path : await t.path();
         for (const v of VISITORS) {
-          const res = await visitors.get(v)!.get(t.path, { maxRedirects: 0 });
+          const res = await visitors.get(v)!.get(path, { maxRedirects: 0 });
           got[v] = answerOf(res.status(), res.headers().location);
           const html = await res.text();
           if (res.status() >= 500) problems.push(`${v}: ${res.status()}`);
@@ -418,7 +450,7 @@ test.describe("page inventory", () => {
               problems.push(`${v} did not see ${name}`);
           }
         }
-        expect(got, `${t.path}`).toEqual(t.expect);
+        expect(got, path).toEqual(t.expect);
         expect(problems).toEqual([]);
       });
     }

@@ -48,6 +48,52 @@ export class MoveListPage {
     if (root !== null) await this.open(root);
   }
 
+  /**
+   * Every figure the list shows, as the eye reads it: each stance's heading, the count, each
+   * string's input, level chips, endings by block class, startup and best damage, and each open
+   * step's outcomes, gap, startup and damage, with each row's whole visible text. Addresses of
+   * links are left out: they name the game.
+   */
+  async figures() {
+    return this.page.evaluate(() => {
+      const text = (e: Element | null) => (e as HTMLElement | null)?.innerText.trim() ?? null;
+      const shown = (row: Element, field: string) =>
+        [...row.querySelectorAll<HTMLElement>(`[data-field="${field}"]`)]
+          .filter((e) => e.checkVisibility())
+          .map((e) => e.innerText.trim());
+      return {
+        sections: [...document.querySelectorAll("section:has(tr[data-string-key]) h2")].map(text),
+        count: text(document.querySelector('[data-testid="strings-count"]')),
+        strings: [...document.querySelectorAll("tr[data-string-key]")].map((row) => ({
+          key: row.getAttribute("data-string-key"),
+          input: text(row.querySelector("th a")),
+          levels: [...row.querySelectorAll('[data-field="levels"] [data-level]')].map((e) =>
+            e.getAttribute("data-level"),
+          ),
+          endings: [...row.querySelectorAll('[data-field="endings"] li')].map(
+            (e) =>
+              `${e.getAttribute("data-block-class")}${e.hasAttribute("data-via-cancel") ? " via cancel" : ""}: ${text(e)}`,
+          ),
+          startup: text(row.querySelector('[data-field="startup"]')),
+          bestDamage: text(row.querySelector('[data-field="bestDamage"]')),
+          text: (row as HTMLElement).innerText,
+        })),
+        steps: [...document.querySelectorAll("tr[data-move-key], tr[data-cancel-key]")].map((row) => ({
+          key: row.getAttribute("data-move-key") ?? `cancel ${row.getAttribute("data-cancel-key")}`,
+          level: row.querySelector("[data-level]")?.getAttribute("data-level") ?? null,
+          onBlock: shown(row, "onBlock"),
+          onHit: shown(row, "onHit"),
+          onCounterHit: shown(row, "onCounterHit"),
+          gapOnBlock: shown(row, "gapOnBlock"),
+          framesSaved: shown(row, "framesSaved"),
+          startup: shown(row, "startup"),
+          damage: shown(row, "damage"),
+          text: (row as HTMLElement).innerText,
+        })),
+      };
+    });
+  }
+
   async chooseEdition(name: string) {
     await this.page.getByRole("navigation", { name: "Edition" }).getByRole("link", { name }).click();
   }
