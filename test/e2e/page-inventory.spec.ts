@@ -149,8 +149,25 @@ const PAGES: Record<string, Target[]> = {
       expect: all(200),
     },
     {
-      what: "a cached copy's own address, with a made-up catalog",
-      path: "/published/1/made-up/games/vesper-circuit/tarrow",
+      what: "the demo's cached move list, at the address the proxy sends it to",
+      path: demoCachedMoveList,
+      expect: all(200),
+    },
+    {
+      what: "a cached move list with a made-up Edition and signature",
+      path: "/published/1/made-up-signature/games/vesper-circuit/tarrow",
+      expect: all(404),
+    },
+    {
+      what: "team A's character at a cached address, with team A's Edition and the demo's signature",
+      path: async () => {
+        const [edition] = await query<{ id: number }>(
+          "select e.id from editions e join games g on g.id = e.game_id where g.slug = ?",
+          [data.gameSlug],
+        );
+        const signature = (await demoCachedMoveList()).split("/")[3];
+        return `/published/${edition!.id}/${signature}${privateCharacter}`;
+      },
       expect: all(404),
     },
   ],
@@ -252,32 +269,6 @@ const PAGES: Record<string, Target[]> = {
     {
       what: "importing into a character that does not exist",
       path: "/games/vesper-circuit/nobody/import",
-      expect: all(404),
-    },
-  ],
-  // The cached copy of a published Edition's move list of a public game (src/server/published.ts):
-  // the proxy sends the public address there; any other address of it is "not found".
-  "published/[edition]/[catalog]/games/[game]/[character]/page.tsx": [
-    {
-      what: "the demo's cached move list, at the address the proxy sends it to",
-      path: demoCachedMoveList,
-      expect: all(200),
-    },
-    {
-      what: "a cached move list with a made-up Edition and signature",
-      path: "/published/1/made-up-signature/games/vesper-circuit/tarrow",
-      expect: all(404),
-    },
-    {
-      what: "team A's character at a cached address, with team A's Edition and the demo's signature",
-      path: async () => {
-        const [edition] = await query<{ id: number }>(
-          "select e.id from editions e join games g on g.id = e.game_id where g.slug = ?",
-          [data.gameSlug],
-        );
-        const signature = (await demoCachedMoveList()).split("/")[3];
-        return `/published/${edition!.id}/${signature}${privateCharacter}`;
-      },
       expect: all(404),
     },
   ],

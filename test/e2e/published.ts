@@ -12,6 +12,8 @@ import { personWithPassword, signInOverHttp } from "./http";
  */
 export const CACHED_PAGES: { what: string; path: (game: string) => string }[] = [
   { what: "Tarrow's move list", path: (game) => `/games/${game}/tarrow` },
+  { what: "Tarrow's Drift stance sheet", path: (game) => `/games/${game}/tarrow/stances/drift` },
+  { what: "Tarrow's n in the Explorer", path: (game) => `/games/${game}/tarrow/explore/n` },
 ];
 
 /** What a response says about caching: Next's cache header and the Cache-Control shared caches obey. */
