@@ -2,6 +2,8 @@
 // A benchmark, not a test: it prints figures and targets, never fails on them. Starts its own
 // MariaDB (port 3327, .data/bench-mariadb) with the demo data, builds if there is no build (or
 // always, without --no-build), serves on 127.0.0.1:3401 and stops both when done.
+// Every request asks for gzip as a browser does (the server compresses each answer, static files
+// too); --identity measures uncompressed answers instead.
 import { execFileSync, spawn, type ChildProcess } from "node:child_process";
 import { existsSync, readFileSync } from "node:fs";
 import { gzipSync } from "node:zlib";
@@ -20,6 +22,8 @@ const BASE = `http://127.0.0.1:${PORT}`;
 const { app: APP, env } = benchAppEnv(BASE);
 const CONNECTIONS = 50;
 const SECONDS = Number(process.env.LOAD_SECONDS ?? 10);
+/** What a browser sends; null with --identity. */
+const ACCEPT_ENCODING = process.argv.includes("--identity") ? null : "gzip, deflate, br";
 
 /** The resident memory of a process and its children, in MB, from /proc. */
 function rssMb(pid: number): number {
@@ -85,7 +89,8 @@ interface Figure {
   errors: number;
 }
 
-async function hammer(name: string, url: string, headers: Record<string, string> = {}): Promise<Figure> {
+async function hammer(name: string, url: string, extra: Record<string, string> = {}): Promise<Figure> {
+  const headers = ACCEPT_ENCODING ? { "accept-encoding": ACCEPT_ENCODING, ...extra } : extra;
   // One request first, so a page's first render and a cold cache are not what is measured.
   const first = await fetch(url, { headers });
   if (!first.ok) throw new Error(`${name}: ${url} answered ${first.status}`);
@@ -101,7 +106,9 @@ async function hammer(name: string, url: string, headers: Record<string, string>
 }
 
 async function main() {
-  console.log(`Framefork load bench: ${CONNECTIONS} connections, ${SECONDS} s per address`);
+  console.log(
+    `Framefork load bench: ${CONNECTIONS} connections, ${SECONDS} s per address, ${ACCEPT_ENCODING ? `accept-encoding: ${ACCEPT_ENCODING}` : "uncompressed (--identity)"}`,
+  );
   execFileSync("bash", ["scripts/db.sh", "start"], { env, stdio: "inherit" });
   let server: ChildProcess | undefined;
   let peak = 0;
@@ -170,6 +177,7 @@ async function main() {
         worst_p99_over_p50: Number(worst.toFixed(2)),
         peak_rss_mb: Math.round(peak),
         movelist_gzip_kb: Number(moveListGzipKb.toFixed(1)),
+        compressed: ACCEPT_ENCODING !== null,
       }),
     );
   } finally {

@@ -4,6 +4,7 @@ import { LRUCache } from "lru-cache";
 import { notFound } from "next/navigation";
 import { cache } from "react";
 import { readEditionKeys } from "./db/queries/moves";
+import { isCacheableLink } from "./db/queries/permalinks";
 import {
   getGameBySlug,
   listCharacters,
@@ -27,8 +28,21 @@ import {
  * Editions, so a newly published one makes new addresses rather than stale
  * pages, and nothing is ever invalidated. It works the same with any number of
  * app servers, each filling its own cache.
+ *
+ * A Permalink that anyone may open (not a board's) is cached the same way by
+ * its slug: it is pinned to a published Edition. Whether it may still be
+ * opened (revoked, team-only) is asked on every visit, before the cache.
  */
 export const PUBLISHED_PREFIX = "/published";
+
+/** Where the cached copies of Permalinks live: by slug, as a link never changes. */
+const LINKS_PREFIX = `${PUBLISHED_PREFIX}/links`;
+
+/** The slug of a Permalink page's address ("/s/{slug}"), or null for any other address. */
+function linkSlug(pathname: string): string | null {
+  const parts = pathname.split("/");
+  return parts.length === 3 && parts[1] === "s" && parts[2] ? parts[2] : null;
+}
 
 /** How long a public game's catalog is reused before it is read again. */
 export const CATALOG_SECONDS = 5;
@@ -158,6 +172,9 @@ async function shown(pathname: string, editionOf: (catalog: PublicCatalog) => Ed
  * answer. `pathname` is the address's path as sent; `search` its query.
  */
 export async function publishedAddress(pathname: string, search: URLSearchParams): Promise<string | null> {
+  const link = linkSlug(pathname);
+  // A link with a query (a stance sheet's filter) is rendered live: the cached copy has none.
+  if (link !== null) return search.size === 0 && (await isCacheableLink(link)) ? `${LINKS_PREFIX}/${link}` : null;
   const wanted = search.getAll("edition");
   if (wanted.length > 1) return null;
   const found = await shown(pathname, (catalog) =>
@@ -173,6 +190,10 @@ export async function publishedAddress(pathname: string, search: URLSearchParams
  * fill the cache.
  */
 export async function isPublishedAddress(pathname: string): Promise<boolean> {
+  if (pathname.startsWith(`${LINKS_PREFIX}/`)) {
+    const link = linkSlug(`/s/${pathname.slice(LINKS_PREFIX.length + 1)}`);
+    return link !== null && (await isCacheableLink(link));
+  }
   const [, prefix, editionId, signature, ...rest] = pathname.split("/");
   if (`/${prefix}` !== PUBLISHED_PREFIX || !editionId || !signature) return false;
   const found = await shown(`/${rest.join("/")}`, (catalog) =>

@@ -343,8 +343,6 @@ const PAGES: Record<string, Target[]> = {
       expect: membersOnly(),
       membersSee: ["team-only link"],
     },
-    // Anyone with the address may open it, by design: it shows the path and who shared it.
-    { what: "team A's public link", path: `/s/${data.linkSlug}`, expect: all(200), disclosed: ["player's name"] },
     {
       what: "team A's team-only link to a board",
       path: `/s/${data.boardTeamOnlySlug}`,
@@ -364,12 +362,35 @@ const PAGES: Record<string, Target[]> = {
       expect: membersOnly(),
       membersSee: ["team-only stance link"],
     },
+    // With a query (the sheet's filter), a public link is rendered live rather than from the cache.
+    {
+      what: "team A's public link to a stance sheet, filtered",
+      path: `/s/${data.stanceLinkSlug}?safe=1`,
+      expect: all(200),
+      disclosed: ["player's name"],
+    },
+  ],
+  // A link anyone may open (not a board's), rendered once and served from the cache by its slug.
+  "published/links/[slug]/page.tsx": [
+    // Anyone with the address may open it, by design: it shows the path and who shared it.
+    { what: "team A's public link", path: `/s/${data.linkSlug}`, expect: all(200), disclosed: ["player's name"] },
     // A stance sheet shared with anyone shows the sheet and who shared it.
     {
       what: "team A's public link to a stance sheet",
       path: `/s/${data.stanceLinkSlug}`,
       expect: all(200),
       disclosed: ["player's name"],
+    },
+    // The cached copy's own address answers only for a link anyone may open: never a team-only one.
+    {
+      what: "a team-only link at the cached copy's address",
+      path: `/published/links/${data.teamOnlySlug}`,
+      expect: all(404),
+    },
+    {
+      what: "a board's link at the cached copy's address",
+      path: `/published/links/${data.boardLinkSlug}`,
+      expect: all(404),
     },
   ],
   "s/[slug]/not-found.tsx": [

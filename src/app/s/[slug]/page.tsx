@@ -9,7 +9,8 @@ import { loadSharedView } from "@/server/db/queries/permalinks";
 
 type Props = PageProps<"/s/[slug]">;
 
-// A permalink can be revoked at any moment: never serve it from a cache.
+// Rendered for each visit: a team-only link, a board's, a revoked or unknown one, or one with a
+// query. A link anyone may open is sent to its cached copy by the proxy (src/server/published.ts).
 export const dynamic = "force-dynamic";
 
 async function load(slug: string) {

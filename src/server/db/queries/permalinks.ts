@@ -466,3 +466,20 @@ function affectedRows(result: unknown): number {
     : (result as { affectedRows?: number });
   return header?.affectedRows ?? 0;
 }
+
+/**
+ * Whether a link's page is the same for everyone and never changes, so it may
+ * be served from the cache: anyone may open it, it is not revoked, and it is
+ * not a board's (a board's link shows the board as saved now). Its Edition is
+ * published, as every link's is. Asked on each visit, so a revoked link stops
+ * being served at once.
+ */
+export async function isCacheableLink(slug: string): Promise<boolean> {
+  if (!SLUG_PATTERN.test(slug)) return false;
+  const [row] = await getDb()
+    .select({ visibility: permalinks.visibility, revokedAt: permalinks.revokedAt, kind: permalinks.kind })
+    .from(permalinks)
+    .where(eq(permalinks.slug, slug))
+    .limit(1);
+  return row !== undefined && row.visibility === "link" && row.revokedAt === null && row.kind !== "board";
+}
