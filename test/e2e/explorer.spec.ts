@@ -6,7 +6,8 @@ import { ExplorerPage } from "./pages/explorer-page";
 async function onBlockIn(table: "moves" | "edges", key: string, edition: string): Promise<number> {
   const [row] = await query<{ on_block: string }>(
     `select x.on_block from ${table} x join characters c on c.id = x.character_id join editions e on e.id = x.edition_id
-     where c.slug = 'tarrow' and e.slug = ? and x.\`key\` = ?`,
+       join games gm on gm.id = c.game_id
+     where gm.slug = 'vesper-circuit' and c.slug = 'tarrow' and e.slug = ? and x.\`key\` = ?`,
     [edition, key],
   );
   return Number(row?.on_block);
@@ -110,8 +111,8 @@ test("a blocked low leaves the defender crouching, and the card lists the punish
   await expect(panel.getByTestId("punish-verdict")).toContainText("crouching");
   const startups = await query<{ input: string; startup: number; from_posture: string }>(
     `select m.input, m.startup, m.from_posture from moves m join characters c on c.id = m.character_id
-       join editions e on e.id = m.edition_id
-     where c.slug = 'tarrow' and e.slug = '1-1' and m.startup is not null and m.stance_id is null`,
+       join editions e on e.id = m.edition_id join games gm on gm.id = c.game_id
+     where gm.slug = 'vesper-circuit' and c.slug = 'tarrow' and e.slug = '1-1' and m.startup is not null and m.stance_id is null`,
   );
   // A long list starts folded to the best few; unfold it to read every punisher.
   const more = panel.getByRole("button", { name: /^Show all \d+$/ }).first();
@@ -218,7 +219,8 @@ test("the Path card reads each hit's level and the path's damage from the data",
   await explorer.node("n.v.t").dispatchEvent("click");
   const rows = await query<{ key: string; level: string; damage: number }>(
     `select m.\`key\`, m.level, m.damage from moves m join characters c on c.id = m.character_id join editions e on e.id = m.edition_id
-     where c.slug = 'tarrow' and e.slug = '1-1' and m.\`key\` in ('n', 'n.v', 'n.v.t')`,
+       join games gm on gm.id = c.game_id
+     where gm.slug = 'vesper-circuit' and c.slug = 'tarrow' and e.slug = '1-1' and m.\`key\` in ('n', 'n.v', 'n.v.t')`,
   );
   const byKey = new Map(rows.map((r) => [r.key, r]));
   const levels = await explorer.card

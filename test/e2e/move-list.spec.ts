@@ -34,7 +34,8 @@ async function movesOf(character: string, edition: string) {
        from moves m
        join characters c on c.id = m.character_id
        join editions e on e.id = m.edition_id
-     where c.slug = ? and e.slug = ? order by m.sort`,
+       join games gm on gm.id = c.game_id
+     where gm.slug = 'vesper-circuit' and c.slug = ? and e.slug = ? order by m.sort`,
     [character, edition],
   );
 }
@@ -50,7 +51,8 @@ async function cancelsOf(character: string, edition: string) {
     `select g.\`key\`, g.on_block, g.on_hit, g.on_counter_hit, g.auto_guard from edges g
        join characters c on c.id = g.character_id
        join editions e on e.id = g.edition_id
-     where c.slug = ? and e.slug = ? and g.kind = 'cancel'`,
+       join games gm on gm.id = c.game_id
+     where gm.slug = 'vesper-circuit' and c.slug = ? and e.slug = ? and g.kind = 'cancel'`,
     [character, edition],
   );
 }
