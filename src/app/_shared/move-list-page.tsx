@@ -102,7 +102,7 @@ export function MoveListPage({
       ) : cached ? (
         // A cached page is rendered without a query string: it shows the list as it comes, and
         // the browser applies the address's filters and order once it runs.
-        <Suspense fallback={<MoveTableView {...table} search="" />}>
+        <Suspense fallback={<MoveTableView {...table} search="" ready={false} />}>
           <MoveTable {...table} />
         </Suspense>
       ) : (

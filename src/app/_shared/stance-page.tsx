@@ -56,7 +56,7 @@ export function StancePage({
         />
       ) : (
         // Rendered without the address's filters; the browser applies them once it runs.
-        <Suspense fallback={<StanceSheetView data={data} safeOnly={false} reach={null} linkToExplorer />}>
+        <Suspense fallback={<StanceSheetView data={data} safeOnly={false} reach={null} linkToExplorer ready={false} />}>
           <StanceSheetFromAddress data={data} />
         </Suspense>
       )}

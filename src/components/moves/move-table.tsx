@@ -146,7 +146,12 @@ export function MoveTableView({
   edition,
   editBase,
   range,
-}: MoveTableProps & { search: string }) {
+  ready = true,
+}: MoveTableProps & {
+  search: string;
+  /** False while a cached page shows the list before the browser has read its address. */
+  ready?: boolean;
+}) {
   const pathname = usePathname();
   const view = readMoveListView(new URLSearchParams(search));
   const rows = useMemo(() => stringRows(list, rules), [list, rules]);
@@ -181,58 +186,61 @@ export function MoveTableView({
         className="flex flex-wrap items-end gap-x-4 gap-y-2 text-sm"
         onSubmit={(e) => e.preventDefault()}
       >
-        <Choice
-          label="A hit that is"
-          value={view.level}
-          onChange={(v) => go({ level: v as MoveListView["level"] })}
-          options={[["any", "any level"], ...LEVELS.map((l) => [l, l] as const)]}
-        />
-        <Choice
-          label="An ending that is"
-          value={view.ending}
-          onChange={(v) => go({ ending: v as MoveListView["ending"] })}
-          options={[["any", "any block class"], ...BLOCK_CLASSES.map((c) => [c, BLOCK_CLASS_WORD[c]] as const)]}
-        />
-        {list.stances.length > 0 && (
+        {/* Inert until the address is read (see `ready`): a value typed earlier would be lost. */}
+        <fieldset disabled={!ready} className="contents">
           <Choice
-            label="Done from"
-            value={view.stance}
-            onChange={(v) => go({ stance: v })}
-            options={[
-              ["any", "anywhere"],
-              [NEUTRAL_SECTION, "neutral"],
-              ...list.stances.map((st) => [st.key, st.name] as const),
-            ]}
+            label="A hit that is"
+            value={view.level}
+            onChange={(v) => go({ level: v as MoveListView["level"] })}
+            options={[["any", "any level"], ...LEVELS.map((l) => [l, l] as const)]}
           />
-        )}
-        <fieldset className="flex flex-col gap-1">
-          <legend className="text-xs text-ink-400">First hit&apos;s startup</legend>
-          <span className="flex items-center gap-1">
-            <StartupInput label="Startup from" value={view.startupFrom} onChange={(n) => go({ startupFrom: n })} />
-            <span className="text-ink-400">to</span>
-            <StartupInput label="Startup to" value={view.startupTo} onChange={(n) => go({ startupTo: n })} />
-          </span>
+          <Choice
+            label="An ending that is"
+            value={view.ending}
+            onChange={(v) => go({ ending: v as MoveListView["ending"] })}
+            options={[["any", "any block class"], ...BLOCK_CLASSES.map((c) => [c, BLOCK_CLASS_WORD[c]] as const)]}
+          />
+          {list.stances.length > 0 && (
+            <Choice
+              label="Done from"
+              value={view.stance}
+              onChange={(v) => go({ stance: v })}
+              options={[
+                ["any", "anywhere"],
+                [NEUTRAL_SECTION, "neutral"],
+                ...list.stances.map((st) => [st.key, st.name] as const),
+              ]}
+            />
+          )}
+          <fieldset className="flex flex-col gap-1">
+            <legend className="text-xs text-ink-400">First hit&apos;s startup</legend>
+            <span className="flex items-center gap-1">
+              <StartupInput label="Startup from" value={view.startupFrom} onChange={(n) => go({ startupFrom: n })} />
+              <span className="text-ink-400">to</span>
+              <StartupInput label="Startup to" value={view.startupTo} onChange={(n) => go({ startupTo: n })} />
+            </span>
+          </fieldset>
+          {range.kind === "number" && (
+            <DistanceInput
+              stacked
+              label="First hit reaches at"
+              title="Only strings whose first hit connects at this distance"
+              unit={range.unit}
+              value={view.reach}
+              onChange={(d) => go({ reach: d })}
+            />
+          )}
+          <Choice
+            label="Order"
+            value={view.sort === "list" ? "list" : `${view.sort} ${view.dir}`}
+            onChange={(v) => {
+              const [sort, dir] = v.split(" ") as [MoveListSort, MoveListView["dir"] | undefined];
+              go({ sort, dir: dir ?? "asc" });
+            }}
+            options={ORDERS}
+          />
+          <ClearFilters onClear={clear} filtered={filtered} />
         </fieldset>
-        {range.kind === "number" && (
-          <DistanceInput
-            stacked
-            label="First hit reaches at"
-            title="Only strings whose first hit connects at this distance"
-            unit={range.unit}
-            value={view.reach}
-            onChange={(d) => go({ reach: d })}
-          />
-        )}
-        <Choice
-          label="Order"
-          value={view.sort === "list" ? "list" : `${view.sort} ${view.dir}`}
-          onChange={(v) => {
-            const [sort, dir] = v.split(" ") as [MoveListSort, MoveListView["dir"] | undefined];
-            go({ sort, dir: dir ?? "asc" });
-          }}
-          options={ORDERS}
-        />
-        <ClearFilters onClear={clear} filtered={filtered} />
       </form>
 
       <div className="flex flex-wrap items-center justify-between gap-2">

@@ -45,7 +45,10 @@ export function StanceSheetView({
   reach: initialReach = null,
   linkToExplorer,
   actions,
+  ready = true,
 }: {
+  /** False while a cached page shows the sheet before the browser has read its address. */
+  ready?: boolean;
   data: StanceSheetDto;
   safeOnly: boolean;
   /** In a game that measures range in numbers: only the stance's moves that reach this far. */
@@ -107,23 +110,26 @@ export function StanceSheetView({
   return (
     <div className="space-y-6">
       <div className="flex flex-wrap items-center gap-3">
-        <label className="flex items-center gap-2 text-sm text-ink-200">
-          <input
-            type="checkbox"
-            checked={safeOnly}
-            onChange={(e) => toggle(e.target.checked)}
-            className="accent-accent"
-          />
-          Only cancels that turn a punishable ending safe
-        </label>
-        {data.game.range.kind === "number" && (
-          <DistanceInput
-            label="Stance moves that reach at"
-            unit={data.game.range.unit}
-            value={reach}
-            onChange={changeReach}
-          />
-        )}
+        {/* Inert until the address is read (see `ready`): a choice made earlier would be lost. */}
+        <fieldset disabled={!ready} className="contents">
+          <label className="flex items-center gap-2 text-sm text-ink-200">
+            <input
+              type="checkbox"
+              checked={safeOnly}
+              onChange={(e) => toggle(e.target.checked)}
+              className="accent-accent"
+            />
+            Only cancels that turn a punishable ending safe
+          </label>
+          {data.game.range.kind === "number" && (
+            <DistanceInput
+              label="Stance moves that reach at"
+              unit={data.game.range.unit}
+              value={reach}
+              onChange={changeReach}
+            />
+          )}
+        </fieldset>
         <div className="ml-auto flex items-center gap-2">
           {actions}
           <ExportSheetButton target={sheetRef} fileName={fileName} />
