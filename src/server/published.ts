@@ -92,7 +92,7 @@ async function publicCatalog(gameSlug: string): Promise<PublicCatalog | null> {
   return found === "team" ? null : found;
 }
 
-/** Forgets what this process knows of public games' catalogs (tests; seeding). */
+/** Forgets what this process knows of public games' catalogs (tests). */
 export function forgetCatalogs(): void {
   catalogs.clear();
 }
