@@ -16,7 +16,10 @@ const hostname = values.hostname;
 // As `next start` does, before Next is loaded.
 process.env.NODE_ENV ||= "production";
 const { default: next } = await import("next");
-const app = next({ dev: false, hostname, port });
+// No hostname here: Next then takes the proxy's rewrites (to same-origin addresses it builds as
+// http://localhost:PORT) as its own. Given the listening host, it would see another origin in
+// each rewrite and fetch it over HTTP from itself, doubling the work of every cached page.
+const app = next({ dev: false, port });
 await app.prepare();
 const handle = app.getRequestHandler();
 
