@@ -9,7 +9,7 @@ import {
   RETRY_AFTER_SECONDS,
 } from "@/server/db/unavailable";
 import { crossSiteRefusal } from "@/server/http";
-import { isPublishedAddress, PUBLISHED_PREFIX, publishedAddress } from "@/server/published";
+import { isPublishedAddress, PUBLISHED_PREFIX, publishedAddress, publishedGraphAnswer } from "@/server/published";
 
 /**
  * Runs before every route (static files aside), for what no route can do
@@ -19,14 +19,17 @@ import { isPublishedAddress, PUBLISHED_PREFIX, publishedAddress } from "@/server
  * - a page POST (a server action) from another site gets a 403 here, where
  *   Next's own check would answer 500;
  * - while MariaDB is not answering, pages (and next-auth's routes) get a 503
- *   page that says so, instead of an error page with status 500;
+ *   page that says so, instead of an error page with status 500; a cached
+ *   copy (below) is still served;
  * - a forged next-auth return-address cookie is dropped (next-auth answers it with a 500);
  * - a page of a published Edition of a public game is sent to its cached copy
  *   (src/server/published.ts); a cached copy's own address is answered only when it is current;
+ * - the graph API's body of a published Edition of a public game is sent from
+ *   memory once this process holds it (the route makes it the first time);
  * - HSTS, when the app is served over https.
  * API routes check the origin and map database errors themselves, in `handle()`.
  */
-export async function proxy(request: NextRequest): Promise<NextResponse> {
+export async function proxy(request: NextRequest): Promise<Response> {
   const { pathname } = request.nextUrl;
   const api = pathname.startsWith("/api/");
 
@@ -53,7 +56,20 @@ export async function proxy(request: NextRequest): Promise<NextResponse> {
     if (refused) return withHsts(page(refused.status, "Refused", refused.message));
   }
 
+  if (api && isRead(request)) {
+    const { searchParams } = request.nextUrl;
+    const kept = await publishedGraphAnswer(request, pathname, searchParams).catch(() => null);
+    if (kept) return withHsts(kept);
+  }
+
   const serverAction = request.headers.has("next-action");
+  // A cached copy needs no database: what the proxy asks to find it is mostly kept in memory.
+  const cached = !api && !serverAction && isRead(request) ? await cachedCopy(request) : null;
+  if (cached) {
+    // Next keeps a Cache-Control the answer already has instead of its own.
+    return withHsts(NextResponse.rewrite(cached.url, { headers: { "cache-control": cached.cacheControl } }));
+  }
+
   const needsDatabase = (!api && !serverAction) || pathname.startsWith("/api/auth/");
   if (needsDatabase && !(await databaseAnswers())) {
     const headers = { "retry-after": String(RETRY_AFTER_SECONDS) };
@@ -63,19 +79,16 @@ export async function proxy(request: NextRequest): Promise<NextResponse> {
     return withHsts(response);
   }
 
-  const cached = !api && !serverAction && isRead(request) ? await cachedCopy(request) : null;
-  if (cached) return withHsts(NextResponse.rewrite(cached));
-
   return withHsts(withoutForgedCallbackCookie(request));
 }
 
 const isRead = (request: NextRequest) => request.method === "GET" || request.method === "HEAD";
 
-/** The cached copy's address, or null; a failed lookup leaves the page to the live route. */
-async function cachedCopy(request: NextRequest): Promise<URL | null> {
+/** The cached copy's address and caching, or null; a failed lookup leaves the page to the live route. */
+async function cachedCopy(request: NextRequest): Promise<{ url: URL; cacheControl: string } | null> {
   const { pathname, search, searchParams } = request.nextUrl;
   const target = await publishedAddress(pathname, searchParams).catch(() => null);
-  return target ? new URL(`${target}${search}`, request.url) : null;
+  return target ? { url: new URL(`${target.path}${search}`, request.url), cacheControl: target.cacheControl } : null;
 }
 
 export const config = {
@@ -110,7 +123,7 @@ function withoutForgedCallbackCookie(request: NextRequest): NextResponse {
   return response;
 }
 
-function withHsts(response: NextResponse): NextResponse {
+function withHsts<R extends Response>(response: R): R {
   // Only over https: a browser ignores it on http, and a local http setup must stay reachable.
   // A year, for this host only: whether sibling subdomains are https is not the app's to say.
   if (new URL(env().NEXTAUTH_URL).protocol === "https:") {

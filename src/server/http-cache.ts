@@ -46,6 +46,7 @@ export function ifNoneMatchHits(header: string | null, etag: string): boolean {
  */
 export function jsonWithEtag(request: Request, body: JsonBody, headers: Record<string, string>): Response {
   const common = { ...headers, etag: body.etag };
+  // Next compresses the answer itself, per request: it drops a Content-Encoding set here.
   if (ifNoneMatchHits(request.headers.get("if-none-match"), body.etag)) {
     return new Response(null, { status: 304, headers: common });
   }

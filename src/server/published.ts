@@ -3,9 +3,11 @@ import { createHash } from "node:crypto";
 import { LRUCache } from "lru-cache";
 import { notFound } from "next/navigation";
 import { cache } from "react";
+import { graphParamsSchema, graphQuerySchema } from "@/lib/graph-request";
 import { readEditionKeys } from "./db/queries/moves";
 import { isCacheableLink } from "./db/queries/permalinks";
 import {
+  getCharacterById,
   getGameBySlug,
   listCharacters,
   listEditions,
@@ -13,6 +15,8 @@ import {
   type EditionSummary,
   type GameSummary,
 } from "./db/queries/games";
+import { GRAPH_CACHE, publishedGraphBody } from "./graph-bodies";
+import { jsonWithEtag } from "./http-cache";
 
 /**
  * The pages of a published Edition of a public game are the same for every
@@ -168,19 +172,50 @@ async function shown(pathname: string, editionOf: (catalog: PublicCatalog) => Ed
 }
 
 /**
+ * How long a shared cache in front of the app (a CDN) may keep a cached page;
+ * Next's own header would say a year. Inside the app a new Edition makes new
+ * addresses, but the public address stays the same:
+ * - a page pinned by `?edition=` lists the game's Editions, which grows when
+ *   the next one is published: five minutes, then a day of serving the old
+ *   copy while it is checked again;
+ * - the newest Edition (no `?edition=`) is replaced by the next one: a minute;
+ * - a link is checked on every visit, so it can be revoked: kept by no one.
+ * Browsers keep none of them (no max-age).
+ */
+export const PUBLISHED_PAGE_CACHE = {
+  edition: "public, s-maxage=300, stale-while-revalidate=86400",
+  newest: "public, s-maxage=60, stale-while-revalidate=600",
+  link: "no-cache",
+} as const;
+
+/** Where the proxy sends a public address, and the Cache-Control of the answer. */
+export interface PublishedTarget {
+  path: string;
+  cacheControl: string;
+}
+
+/**
  * The cached route for a public address, or null when the live route must
  * answer. `pathname` is the address's path as sent; `search` its query.
  */
-export async function publishedAddress(pathname: string, search: URLSearchParams): Promise<string | null> {
+export async function publishedAddress(pathname: string, search: URLSearchParams): Promise<PublishedTarget | null> {
   const link = linkSlug(pathname);
   // A link with a query (a stance sheet's filter) is rendered live: the cached copy has none.
-  if (link !== null) return search.size === 0 && (await isCacheableLink(link)) ? `${LINKS_PREFIX}/${link}` : null;
+  if (link !== null) {
+    return search.size === 0 && (await isCacheableLink(link))
+      ? { path: `${LINKS_PREFIX}/${link}`, cacheControl: PUBLISHED_PAGE_CACHE.link }
+      : null;
+  }
   const wanted = search.getAll("edition");
   if (wanted.length > 1) return null;
   const found = await shown(pathname, (catalog) =>
     wanted.length === 0 ? catalog.editions[0] : catalog.editions.find((e) => e.slug === wanted[0]),
   );
-  return found ? `${PUBLISHED_PREFIX}/${found.edition.id}/${found.catalog.signature}${pathname}` : null;
+  if (!found) return null;
+  return {
+    path: `${PUBLISHED_PREFIX}/${found.edition.id}/${found.catalog.signature}${pathname}`,
+    cacheControl: wanted.length === 0 ? PUBLISHED_PAGE_CACHE.newest : PUBLISHED_PAGE_CACHE.edition,
+  };
 }
 
 /**
@@ -254,4 +289,37 @@ export async function publicCharacter(characterId: number, gameSlug?: string): P
 /** Forgets which characters are public (tests). */
 export function forgetPublicCharacters(): void {
   publicCharacterGames.clear();
+}
+
+/** The graph API's address: `/api/characters/{id}/graph`. */
+const GRAPH_PATH = /^\/api\/characters\/([^/]+)\/graph$/;
+
+/**
+ * The graph API's answer for a public game's published Edition: the proxy
+ * sends it from memory, as a cache in front of the app would, and the route
+ * never runs. Null for anything else (a team's game, a draft, an unknown
+ * character or Edition, an address the route must refuse), which the route
+ * answers. The proxy is bundled apart from the routes, so it keeps its own
+ * copies of what `publicCharacter` and `publishedGraphBody` remember.
+ */
+export async function publishedGraphAnswer(request: Request, pathname: string, search: URLSearchParams) {
+  const id = GRAPH_PATH.exec(pathname)?.[1];
+  if (id === undefined) return null;
+  const params = graphParamsSchema.safeParse({ id });
+  const query = graphQuerySchema.safeParse(Object.fromEntries(search));
+  if (!params.success || !query.success) return null;
+  const { id: characterId } = params.data;
+  let known = await publicCharacter(characterId);
+  if (!known) {
+    const owner = await getCharacterById({ id: characterId });
+    if (owner?.game.teamId === null) known = await publicCharacter(characterId, owner.game.slug);
+  }
+  const body = known && (await publishedGraphBody(known, query.data.edition));
+  if (!body) return null;
+  return jsonWithEtag(request, body, publicGraphHeaders(query.data.edition));
+}
+
+/** How a public published graph may be cached: shorter for the newest Edition, which changes at the next release. */
+export function publicGraphHeaders(edition: string | undefined): Record<string, string> {
+  return { "cache-control": edition === undefined ? GRAPH_CACHE.publicNewest : GRAPH_CACHE.publicEdition };
 }

@@ -32,6 +32,33 @@ async function coachWithTeamGame(browser: Browser, baseURL: string, publish: boo
   return { coach, t: await teamGameWithDemoTarrow(coach.page, coach.person.email, { publish }) };
 }
 
+/** A link to Tarrow's n, written straight into the database, as another app server would. */
+async function insertLink(link: {
+  slug: string;
+  teamId: number;
+  userId: string;
+  editionId: number;
+  characterId: number;
+  visibility: "team" | "link";
+  title: string;
+}) {
+  const view = { root: "n", path: null, options: { maxDepth: 8, maxStanceVisits: 1, fastest: 11 }, opponent: null };
+  await query(
+    `insert into permalinks (slug, team_id, created_by, visibility, edition_id, character_id, view, title)
+     values (?, ?, ?, ?, ?, ?, ?, ?)`,
+    [
+      link.slug,
+      link.teamId,
+      link.userId,
+      link.visibility,
+      link.editionId,
+      link.characterId,
+      JSON.stringify(view),
+      link.title,
+    ],
+  );
+}
+
 /** Opens every string, once the page answers clicks (a click before hydration does nothing). */
 async function openEveryString(list: MoveListPage) {
   await expect(async () => {
@@ -170,24 +197,15 @@ test("a team's published pages and team-only links reach its members only, and n
      where g.slug = ? and c.slug = 'tarrow' and u.email = ?`,
     [t.game, coach.person.email],
   );
-  await query(
-    `insert into permalinks (slug, team_id, created_by, visibility, edition_id, character_id, view, title)
-     values (?, ?, ?, 'team', ?, ?, ?, ?)`,
-    [
-      linkSlug,
-      t.teamId,
-      where!.userId,
-      where!.editionId,
-      where!.characterId,
-      JSON.stringify({
-        root: "n",
-        path: null,
-        options: { maxDepth: 8, maxStanceVisits: 1, fastest: 11 },
-        opponent: null,
-      }),
-      linkTitle,
-    ],
-  );
+  await insertLink({
+    slug: linkSlug,
+    teamId: t.teamId,
+    userId: where!.userId,
+    editionId: where!.editionId,
+    characterId: where!.characterId,
+    visibility: "team",
+    title: linkTitle,
+  });
 
   const addresses = [
     ...CACHED_PAGES.flatMap((p) => [p.path(t.game), `${p.path(t.game)}?edition=${t.edition}`]),
@@ -284,4 +302,55 @@ test("a team's published Edition has no cached copy, whatever its address", asyn
     }
   }
   await coach.context.close();
+});
+
+test("what a shared cache in front of the app may keep: a pinned page five minutes, the newest Edition's a minute, a link nothing, and a link revoked elsewhere stops within a second", async ({
+  request,
+}) => {
+  // RFC 9111 §5.2.2.10: s-maxage speaks to shared caches only; with no max-age, browsers keep none.
+  for (const p of CACHED_PAGES) {
+    const pinned = await request.get(`${p.path("vesper-circuit")}?edition=1-1`);
+    expect(pinned.headers()["cache-control"], `${p.what}, ?edition=1-1`).toBe(
+      "public, s-maxage=300, stale-while-revalidate=86400",
+    );
+    const newest = await request.get(p.path("vesper-circuit"));
+    expect(newest.headers()["cache-control"], `${p.what}, the newest`).toBe(
+      "public, s-maxage=60, stale-while-revalidate=600",
+    );
+  }
+
+  // A link anyone may open to the demo's Tarrow in 1-1, from a team and person of this test's own.
+  const tag = randomBytes(6).toString("hex");
+  const userId = `cache-${tag}`;
+  await query("insert into users (id, name, email) values (?, ?, ?)", [
+    userId,
+    "Cache Coach",
+    `${userId}@example.test`,
+  ]);
+  await query("insert into teams (slug, name) values (?, ?)", [`cache-${tag}`, `Cache ${tag}`]);
+  const [where] = await query<{ teamId: number; editionId: number; characterId: number }>(
+    `select t.id as teamId, e.id as editionId, c.id as characterId
+       from teams t, games g join editions e on e.game_id = g.id join characters c on c.game_id = g.id
+     where t.slug = ? and g.slug = 'vesper-circuit' and e.slug = '1-1' and c.slug = 'tarrow'`,
+    [`cache-${tag}`],
+  );
+  const slug = randomBytes(18).toString("base64url");
+  const title = `Open drill ${tag}`;
+  await insertLink({ slug, userId, ...where!, visibility: "link", title });
+  expect(await cachedAddressOf(request, `/s/${slug}`)).toBe(`/published/links/${slug}`);
+  const link = await request.get(`/s/${slug}`);
+  expect(await link.text()).toContain(title);
+  expect(link.headers()["cache-control"]).toBe("no-cache");
+
+  // Revoked by a change this server did not make (another app server's, say): within a second
+  // (LINK_STATE_SECONDS) the link is gone, from its cached copy's address too.
+  await query("update permalinks set revoked_at = now() where slug = ?", [slug]);
+  await expect(async () => {
+    const gone = await request.get(`/s/${slug}`);
+    expect(gone.headers()["x-middleware-rewrite"]).toBeUndefined();
+    expect(await gone.text()).not.toContain(title);
+  }).toPass({ timeout: 3_000, intervals: [250] });
+  const direct = await request.get(`/published/links/${slug}`);
+  expect(direct.status()).toBe(404);
+  expect(await direct.text()).not.toContain(title);
 });

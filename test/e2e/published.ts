@@ -99,12 +99,14 @@ export async function teamGameWithDemoTarrow(coach: Page, coachEmail: string, { 
 
 /**
  * The cached copy's own address for a public page, as the proxy sends the page there: Next
- * names a proxy's rewrite in the answer's `x-middleware-rewrite` header.
+ * names a proxy's rewrite in the answer's `x-middleware-rewrite` header. It is a path, which Next
+ * serves itself; a full URL there would mean Next took the rewrite for another origin's and
+ * fetched the page over HTTP from itself.
  */
 export async function cachedAddressOf(request: APIRequestContext, publicPath: string): Promise<string> {
   const res = await request.get(publicPath);
   expect(res.status(), publicPath).toBe(200);
   const rewrite = res.headers()["x-middleware-rewrite"];
-  expect(rewrite, `${publicPath} is sent to a cached copy`).toBeDefined();
-  return new URL(rewrite!).pathname;
+  expect(rewrite, `${publicPath} is sent to a cached copy`).toMatch(/^\/published\//);
+  return rewrite!.split("?")[0]!;
 }

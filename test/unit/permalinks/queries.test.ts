@@ -6,6 +6,8 @@ import { auditLog, permalinks } from "@/server/db/schema";
 import {
   createPermalink,
   getPermalinkBySlug,
+  isCacheableLink,
+  LINK_STATE_SECONDS,
   listTeamPermalinks,
   loadSharedView,
   revokePermalink,
@@ -176,6 +178,28 @@ describe("revokePermalink", () => {
     await expectAppError(revokePermalink({ slug: made.slug, actorId: outsider }), "not_found", /no such permalink/);
     expect((await getPermalinkBySlug({ slug: made.slug }))?.revokedAt).toBeNull();
     expect((await revokePermalink({ slug: made.slug, actorId: coach })).revokedAt).not.toBeNull();
+  });
+});
+
+describe("isCacheableLink", () => {
+  test("a link anyone may open is cacheable; a team-only one is not; revoking it stops it at once in this process", async () => {
+    const shared = await make();
+    const teamOnly = await make({ visibility: "team" });
+    expect(await isCacheableLink(shared.slug)).toBe(true);
+    expect(await isCacheableLink(teamOnly.slug)).toBe(false);
+    expect(await isCacheableLink("AAAAAAAAAAAAAAAAAAAAAAAA")).toBe(false);
+    expect(await isCacheableLink("not a slug")).toBe(false);
+    await revokePermalink({ slug: shared.slug, actorId: player });
+    expect(await isCacheableLink(shared.slug)).toBe(false);
+  });
+
+  test("a link revoked by another app server (a change to its row this process did not make) stops within LINK_STATE_SECONDS", async () => {
+    const shared = await make();
+    expect(await isCacheableLink(shared.slug)).toBe(true);
+    const db = getDb();
+    await db.update(permalinks).set({ revokedAt: new Date() }).where(eq(permalinks.slug, shared.slug));
+    await new Promise((resolve) => setTimeout(resolve, LINK_STATE_SECONDS * 1000 + 50));
+    expect(await isCacheableLink(shared.slug)).toBe(false);
   });
 });
 

@@ -1,5 +1,6 @@
 import "server-only";
 import { and, desc, eq, isNull } from "drizzle-orm";
+import { LRUCache } from "lru-cache";
 import { AppError } from "@/lib/errors";
 import {
   boardLinkViewSchema,
@@ -380,6 +381,7 @@ export async function revokePermalink({ slug, actorId }: { slug: string; actorId
       detail: { slug, title: row.title },
     });
   });
+  linkStates.delete(slug);
   const after = await findRow(slug);
   if (!after) throw new Error(`permalink ${slug} vanished while being revoked`);
   return toDto(after.row, after.view);
@@ -467,15 +469,36 @@ function affectedRows(result: unknown): number {
   return header?.affectedRows ?? 0;
 }
 
+/** How long a link's state is reused before it is read again, per process. */
+export const LINK_STATE_SECONDS = 1;
+
+/**
+ * Recent answers of `isCacheableLink`, with the reads in flight: fifty readers
+ * opening one link make one read a second, not fifty. Bounded by count, so
+ * made-up slugs only push out older answers.
+ */
+const linkStates = new LRUCache<string, Promise<boolean>>({ max: 10_000, ttl: LINK_STATE_SECONDS * 1000 });
+
 /**
  * Whether a link's page is the same for everyone and never changes, so it may
  * be served from the cache: anyone may open it, it is not revoked, and it is
  * not a board's (a board's link shows the board as saved now). Its Edition is
- * published, as every link's is. Asked on each visit, so a revoked link stops
- * being served at once.
+ * published, as every link's is. Read again at most LINK_STATE_SECONDS after
+ * the last read: revoking a link forgets the answer in the process that
+ * revoked it, and any other app server stops serving it within that time.
  */
-export async function isCacheableLink(slug: string): Promise<boolean> {
-  if (!SLUG_PATTERN.test(slug)) return false;
+export function isCacheableLink(slug: string): Promise<boolean> {
+  if (!SLUG_PATTERN.test(slug)) return Promise.resolve(false);
+  let state = linkStates.get(slug);
+  if (!state) {
+    state = readLinkState(slug);
+    linkStates.set(slug, state);
+    state.catch(() => linkStates.delete(slug));
+  }
+  return state;
+}
+
+async function readLinkState(slug: string): Promise<boolean> {
   const [row] = await getDb()
     .select({ visibility: permalinks.visibility, revokedAt: permalinks.revokedAt, kind: permalinks.kind })
     .from(permalinks)
