@@ -1,7 +1,14 @@
-import { describe, expect, test } from "vitest";
-import { createPermalink, loadSharedView } from "@/server/db/queries/permalinks";
+import { describe, expect, test, vi } from "vitest";
+import { createPermalink, loadSharedView, revokePermalink } from "@/server/db/queries/permalinks";
 import { permalinkImageForSlug, renderPermalinkImage, summarizeSharedView } from "@/server/og";
+import { renderPermalinkImage as drawn } from "@/server/og/permalink-image";
 import { playerInTeam, stringView } from "../permalinks/fixtures";
+
+// The drawing is counted, to see that a preview is drawn once.
+vi.mock("@/server/og/permalink-image", async (original) => {
+  const real = await original<typeof import("@/server/og/permalink-image")>();
+  return { ...real, renderPermalinkImage: vi.fn(real.renderPermalinkImage) };
+});
 
 // PNG layout (W3C PNG spec, section 5): an 8-byte signature, then the IHDR chunk with width and height at bytes 16 and 20.
 const PNG_SIGNATURE = [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a];
@@ -89,5 +96,18 @@ describe("renderPermalinkImage", () => {
     expect((await png(await permalinkImageForSlug({ slug: "B".repeat(24) }))).bytes.equals(generic)).toBe(true);
     const open = await share("link");
     expect((await png(await permalinkImageForSlug({ slug: open.slug }))).bytes.equals(generic)).toBe(false);
+  });
+
+  test("a link's preview is drawn once, then sent from memory; revoked, it is the generic card at once", async () => {
+    const generic = (await png(await renderPermalinkImage({ kind: "private" }))).bytes;
+    const open = await share("link", stringView({ path: "v>v.v" }));
+    const first = (await png(await permalinkImageForSlug({ slug: open.slug }))).bytes;
+    vi.mocked(drawn).mockClear();
+    const again = (await png(await permalinkImageForSlug({ slug: open.slug }))).bytes;
+    expect(again.equals(first)).toBe(true);
+    expect(drawn).not.toHaveBeenCalled();
+
+    await revokePermalink({ slug: open.slug, actorId: ctx.player });
+    expect((await png(await permalinkImageForSlug({ slug: open.slug }))).bytes.equals(generic)).toBe(true);
   });
 });
