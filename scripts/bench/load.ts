@@ -87,9 +87,11 @@ interface Figure {
   p50: number;
   p99: number;
   errors: number;
+  /** The server's peak resident memory while this address was measured, in MB. */
+  rssMb: number;
 }
 
-async function hammer(name: string, url: string, extra: Record<string, string> = {}): Promise<Figure> {
+async function hammer(name: string, url: string, extra: Record<string, string> = {}): Promise<Omit<Figure, "rssMb">> {
   const headers = ACCEPT_ENCODING ? { "accept-encoding": ACCEPT_ENCODING, ...extra } : extra;
   // One request first, so a page's first render and a cold cache are not what is measured.
   const first = await fetch(url, { headers });
@@ -136,6 +138,7 @@ async function main() {
     const moveListGzipKb = gzipSync(moveListHtml).length / 1024;
 
     const figures: Figure[] = [];
+    let addressPeak = 0;
     for (const [name, url, headers] of [
       ["static asset", `${BASE}${chunk}`],
       ["move list", moveList],
@@ -146,16 +149,20 @@ async function main() {
       ["Permalink image", `${BASE}${link}/opengraph-image`],
       ["team page (signed in)", `${BASE}/teams/load-team`, { cookie }],
     ] as [string, string, Record<string, string>?][]) {
-      figures.push(await hammer(name, url, headers));
+      addressPeak = 0;
+      const sample = setInterval(() => (addressPeak = Math.max(addressPeak, rssMb(pid))), 200);
+      const figure = await hammer(name, url, headers);
+      clearInterval(sample);
+      figures.push({ ...figure, rssMb: addressPeak });
     }
 
     const staticRps = figures[0]!.rps;
     const ratio = (name: string) => figures.find((f) => f.name === name)!.rps / staticRps;
     console.log("");
-    console.log("address                  req/s    p50 ms   p99 ms   ratio to static   errors");
+    console.log("address                  req/s    p50 ms   p99 ms   ratio to static   errors   RSS MB");
     for (const f of figures) {
       console.log(
-        `${f.name.padEnd(22)} ${f.rps.toFixed(0).padStart(7)} ${String(f.p50).padStart(9)} ${String(f.p99).padStart(8)}   ${(f.rps / staticRps).toFixed(3).padStart(15)}   ${f.errors}`,
+        `${f.name.padEnd(22)} ${f.rps.toFixed(0).padStart(7)} ${String(f.p50).padStart(9)} ${String(f.p99).padStart(8)}   ${(f.rps / staticRps).toFixed(3).padStart(15)}   ${String(f.errors).padStart(6)}   ${f.rssMb.toFixed(0).padStart(6)}`,
       );
     }
     const pages = figures.filter((f) => f.name !== "static asset");
