@@ -50,9 +50,9 @@ export default defineConfig({
     },
   ],
   webServer: {
-    // The app's own server (`next start` that writes the caller's address), run by `node`, not
-    // `npm run`, so Playwright stops the server itself.
-    command: `node scripts/serve.mjs -p ${port} -H 127.0.0.1`,
+    // The app's own server (`next start` that writes the caller's address), through a script that
+    // execs `node` (not `npm run`), so Playwright stops the server itself.
+    command: `bash scripts/serve.sh -p ${port} -H 127.0.0.1`,
     url: `${baseURL}/api/health`,
     reuseExistingServer: false,
     timeout: 60_000,

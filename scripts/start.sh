@@ -50,4 +50,4 @@ echo "  Mail it sends lands in the inbox at http://127.0.0.1:$MAIL_WEB_PORT"
 echo "  (Ctrl-C stops the app; \`npm run stop\` stops MariaDB and the mail service)"
 echo
 # Not exec: the EXIT trap above stops the mail service when the app stops.
-node scripts/serve.mjs -p "$PORT" -H 127.0.0.1
+bash scripts/serve.sh -p "$PORT" -H 127.0.0.1

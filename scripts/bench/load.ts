@@ -124,7 +124,7 @@ async function main() {
       console.log("building…");
       execFileSync("node", ["node_modules/next/dist/bin/next", "build"], { env, stdio: "ignore" });
     }
-    server = spawn("node", ["scripts/serve.mjs", "-p", String(PORT), "-H", "127.0.0.1"], { env, stdio: "ignore" });
+    server = spawn("bash", ["scripts/serve.sh", "-p", String(PORT), "-H", "127.0.0.1"], { env, stdio: "ignore" });
     await waitFor(`${BASE}/api/health`, 60_000);
     const pid = server.pid!;
     sampler = setInterval(() => (peak = Math.max(peak, rssMb(pid))), 200);

@@ -227,7 +227,7 @@ async function main() {
       console.log("building…");
       execFileSync("node", ["node_modules/next/dist/bin/next", "build"], { env, stdio: "ignore" });
     }
-    server = spawn("node", ["scripts/serve.mjs", "-p", String(PORT), "-H", "127.0.0.1"], {
+    server = spawn("bash", ["scripts/serve.sh", "-p", String(PORT), "-H", "127.0.0.1"], {
       env,
       stdio: "ignore",
     });
