@@ -67,7 +67,7 @@ function sectionsOf(list: MoveList): Section[] {
 }
 
 const th = "px-2 py-2 text-left text-xs font-medium text-ink-400";
-const td = "px-2 py-1.5 align-top";
+const td = "move-cell";
 /** Startup and damage have their own columns from a tablet up; on a phone they sit under the input. */
 const wide = "hidden sm:table-cell";
 const control = "rounded border border-ink-700 bg-ink-900 px-1.5 py-0.5 text-ink-100";
@@ -421,16 +421,12 @@ function StringRows({
               aria-controls={open ? row.steps.map((_, n) => `${id}-${n}`).join(" ") : undefined}
               aria-label={`Steps of ${root.input}`}
               onClick={onToggle}
-              className="mt-0.5 h-5 w-5 shrink-0 rounded border border-ink-700 text-[10px] leading-none text-ink-300 hover:border-accent hover:text-accent"
+              className="steps-toggle"
             >
               <span aria-hidden="true">{open ? "▾" : "▸"}</span>
             </button>
             <span className="min-w-0">
-              <Link
-                href={exploreHref}
-                className="font-mono text-ink-100 underline decoration-ink-600 hover:decoration-accent"
-                title={`Open ${root.input} in the Explorer`}
-              >
+              <Link href={exploreHref} className="string-link" title={`Open ${root.input} in the Explorer`}>
                 {root.input}
               </Link>
               <span className="block text-xs text-ink-400">{root.name}</span>
@@ -461,10 +457,10 @@ function StringRows({
         <td className={td} data-field="endings">
           <EndingSummary row={row} rules={rules} />
         </td>
-        <td className={`${td} ${wide} font-mono tabular-nums`} data-field="startup">
+        <td className="move-figure" data-field="startup">
           {root.startup ?? <span className="text-ink-400">—</span>}
         </td>
-        <td className={`${td} ${wide} font-mono tabular-nums`} data-field="bestDamage">
+        <td className="move-figure" data-field="bestDamage">
           {row.bestDamage}
         </td>
       </tr>
@@ -606,10 +602,10 @@ function HitRow({
           tag={<BlockClassTag onBlock={move.onBlock} rules={rules} />}
         />
       </td>
-      <td className={`${td} ${wide} font-mono tabular-nums`}>
+      <td className="move-figure">
         <span data-field="startup">{fixable("startup", startup)}</span>
       </td>
-      <td className={`${td} ${wide} font-mono tabular-nums`}>
+      <td className="move-figure">
         <span data-field="damage">{fixable("damage", move.damage)}</span>
         {step.depth > 0 && <span className="block text-[11px] text-ink-400">{step.damage} in all</span>}
       </td>

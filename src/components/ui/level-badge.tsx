@@ -12,10 +12,7 @@ const LEVEL_STYLE: Record<Level, string> = {
 /** A hit level as a word in its colour: the colour never stands alone. */
 export function LevelBadge({ level }: { level: Level }) {
   return (
-    <span
-      data-level={level}
-      className={`inline-block rounded border px-1.5 py-px font-mono text-xs leading-4 tracking-wide uppercase ${LEVEL_STYLE[level]}`}
-    >
+    <span data-level={level} className={`level-badge ${LEVEL_STYLE[level]}`}>
       {level}
     </span>
   );
