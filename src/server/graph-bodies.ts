@@ -40,7 +40,7 @@ export const GRAPH_CACHE = {
 const bodies = new LRUCache<string, JsonBody>({
   max: 500,
   maxSize: 64_000_000,
-  sizeCalculation: (b) => b.json.length,
+  sizeCalculation: (b) => b.bytes.byteLength,
 });
 
 /** Cold requests for the same key share one read. */

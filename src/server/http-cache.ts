@@ -9,16 +9,16 @@ import { createHash } from "node:crypto";
  * 200 would have been given to.
  */
 
-/** A JSON body, serialised once, with its strong ETag. */
+/** A JSON body, serialised and encoded once (a kept body is sent many times), with its strong ETag. */
 export interface JsonBody {
-  json: string;
+  bytes: Uint8Array<ArrayBuffer>;
   etag: string;
 }
 
-/** The body and its ETag: a quoted SHA-256 of the text, base64url (no quote or comma can appear inside). */
+/** The body and its ETag: a quoted SHA-256 of the bytes, base64url (no quote or comma can appear inside). */
 export function jsonBody(value: unknown): JsonBody {
-  const json = JSON.stringify(value);
-  return { json, etag: `"${createHash("sha256").update(json).digest("base64url")}"` };
+  const bytes = new TextEncoder().encode(JSON.stringify(value));
+  return { bytes, etag: `"${createHash("sha256").update(bytes).digest("base64url")}"` };
 }
 
 // RFC 9110 §8.8.3: entity-tag = [ "W/" ] DQUOTE *etagc DQUOTE, etagc = %x21 / %x23-7E / obs-text.
@@ -50,5 +50,5 @@ export function jsonWithEtag(request: Request, body: JsonBody, headers: Record<s
   if (ifNoneMatchHits(request.headers.get("if-none-match"), body.etag)) {
     return new Response(null, { status: 304, headers: common });
   }
-  return new Response(body.json, { status: 200, headers: { ...common, "content-type": "application/json" } });
+  return new Response(body.bytes, { status: 200, headers: { ...common, "content-type": "application/json" } });
 }
