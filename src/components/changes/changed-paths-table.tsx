@@ -380,7 +380,7 @@ export function ChangedPathsTable({
                     <td
                       key={cell.id}
                       data-field={cell.column.id}
-                      className={`border-t border-ink-850 px-2 py-1 align-middle whitespace-nowrap ${cell.column.id === "input" ? "sticky left-0 bg-ink-900" : ""}`}
+                      className={`path-cell ${cell.column.id === "input" ? "sticky left-0 bg-ink-900" : ""}`}
                     >
                       <FlexRender cell={cell} />
                     </td>

@@ -496,7 +496,7 @@ const PathRow = memo(function PathRow({
       aria-selected={selected}
       onClick={() => onSelect(key)}
       onKeyDown={(e) => onRowKey(e, key, index, onSelect, virtualizer)}
-      className={`group cursor-pointer focus-visible:outline focus-visible:outline-2 focus-visible:-outline-offset-2 focus-visible:outline-accent ${bg}`}
+      className={`path-row group ${bg}`}
     >
       {row.getAllCells().map((cell) => {
         const id = cell.column.id;
@@ -505,7 +505,7 @@ const PathRow = memo(function PathRow({
           <td
             key={cell.id}
             data-field={id}
-            className={`border-t border-ink-850 px-2 py-1 align-middle whitespace-nowrap ${
+            className={`path-cell ${
               first
                 ? `sticky left-0 z-[1] border-l-2 ${selected ? "border-l-accent" : "border-l-transparent"} ${stickyBg}`
                 : ""
