@@ -6,7 +6,7 @@
 // too); --identity measures uncompressed answers instead.
 import { execFileSync, spawn, type ChildProcess } from "node:child_process";
 import { existsSync, readFileSync } from "node:fs";
-import { gzipSync } from "node:zlib";
+import { get } from "node:http";
 import autocannon from "autocannon";
 import { and, eq } from "drizzle-orm";
 import { encode } from "next-auth/jwt";
@@ -22,6 +22,7 @@ const BASE = `http://127.0.0.1:${PORT}`;
 const { app: APP, env } = benchAppEnv(BASE);
 const CONNECTIONS = 50;
 const SECONDS = Number(process.env.LOAD_SECONDS ?? 10);
+const WARM_UP_SECONDS = 2;
 /** What a browser sends; null with --identity. */
 const ACCEPT_ENCODING = process.argv.includes("--identity") ? null : "gzip, deflate, br";
 
@@ -81,6 +82,18 @@ async function fixtures() {
   return { characterId: tarrow!.id, link: link.path, cookie: `next-auth.session-token=${token}` };
 }
 
+/** How many bytes the server sends for an address, compressed as asked (fetch would decompress them). */
+function bytesOnTheWire(url: string, acceptEncoding: string): Promise<number> {
+  return new Promise((resolve, reject) => {
+    get(url, { headers: { "accept-encoding": acceptEncoding } }, (res) => {
+      let bytes = 0;
+      res.on("data", (chunk: Buffer) => (bytes += chunk.length));
+      res.on("end", () => resolve(bytes));
+      res.on("error", reject);
+    }).on("error", reject);
+  });
+}
+
 interface Figure {
   name: string;
   rps: number;
@@ -93,10 +106,13 @@ interface Figure {
 
 async function hammer(name: string, url: string, extra: Record<string, string> = {}): Promise<Omit<Figure, "rssMb">> {
   const headers = ACCEPT_ENCODING ? { "accept-encoding": ACCEPT_ENCODING, ...extra } : extra;
-  // One request first, so a page's first render and a cold cache are not what is measured.
+  // One request first, so a page's first render and a cold cache are not what is measured; then
+  // WARM_UP_SECONDS of the same load, not counted, so the server's code for this address is
+  // compiled by V8 as it is for the rest of the run.
   const first = await fetch(url, { headers });
   if (!first.ok) throw new Error(`${name}: ${url} answered ${first.status}`);
   await first.arrayBuffer();
+  await autocannon({ url, connections: CONNECTIONS, duration: WARM_UP_SECONDS, headers });
   const result = await autocannon({ url, connections: CONNECTIONS, duration: SECONDS, headers });
   return {
     name,
@@ -109,7 +125,7 @@ async function hammer(name: string, url: string, extra: Record<string, string> =
 
 async function main() {
   console.log(
-    `Framefork load bench: ${CONNECTIONS} connections, ${SECONDS} s per address, ${ACCEPT_ENCODING ? `accept-encoding: ${ACCEPT_ENCODING}` : "uncompressed (--identity)"}`,
+    `Framefork load bench: ${CONNECTIONS} connections, ${SECONDS} s per address after ${WARM_UP_SECONDS} s of warm-up, ${ACCEPT_ENCODING ? `accept-encoding: ${ACCEPT_ENCODING}` : "uncompressed (--identity)"}`,
   );
   execFileSync("bash", ["scripts/db.sh", "start"], { env, stdio: "inherit" });
   let server: ChildProcess | undefined;
@@ -134,8 +150,7 @@ async function main() {
     if (!chunk) throw new Error("no script chunk on the landing page");
 
     const moveList = `${BASE}/games/vesper-circuit/tarrow`;
-    const moveListHtml = await (await fetch(moveList)).text();
-    const moveListGzipKb = gzipSync(moveListHtml).length / 1024;
+    const moveListGzipKb = (await bytesOnTheWire(moveList, "gzip")) / 1024;
 
     const figures: Figure[] = [];
     let addressPeak = 0;
