@@ -42,8 +42,6 @@ const nextConfig: NextConfig = {
   // from its cache and are a few KB gzipped, so the hash costs more CPU than a 304 saves in
   // bytes; the graph API makes its own ETags (src/server/http-cache.ts).
   generateEtags: false,
-  // scripts/serve.mjs compresses every answer, at a faster setting than Next's own.
-  compress: false,
   typedRoutes: false,
   async headers() {
     return [{ source: "/:path*", headers: securityHeaders }];
