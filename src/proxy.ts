@@ -24,8 +24,8 @@ import { isPublishedAddress, PUBLISHED_PREFIX, publishedAddress, publishedGraphA
  * - a forged next-auth return-address cookie is dropped (next-auth answers it with a 500);
  * - a page of a published Edition of a public game is sent to its cached copy
  *   (src/server/published.ts); a cached copy's own address is answered only when it is current;
- * - the graph API's body of a published Edition of a public game is sent from
- *   memory once this process holds it (the route makes it the first time);
+ * - the graph API's answer for a published Edition of a public game is sent
+ *   from memory, made once per process (src/server/published.ts);
  * - HSTS, when the app is served over https.
  * API routes check the origin and map database errors themselves, in `handle()`.
  */
