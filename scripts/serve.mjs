@@ -6,6 +6,7 @@
 // TRUSTED_PROXY_HOPS saying how many proxies in front of this server to believe).
 import { createServer } from "node:http";
 import { parseArgs } from "node:util";
+import { createSharedCache } from "./shared-cache.mjs";
 
 const { values } = parseArgs({
   options: { port: { type: "string", short: "p" }, hostname: { type: "string", short: "H" } },
@@ -22,12 +23,14 @@ const { default: next } = await import("next");
 const app = next({ dev: false, port });
 await app.prepare();
 const handle = app.getRequestHandler();
+// What the app addresses to shared caches is kept here and sent again without Next.
+const sharedCache = createSharedCache();
 
 createServer((req, res) => {
   const socketAddress = req.socket.remoteAddress ?? "unknown";
   const forwarded = req.headers["x-forwarded-for"];
   req.headers["x-forwarded-for"] = forwarded ? `${forwarded}, ${socketAddress}` : socketAddress;
-  handle(req, res).catch((error) => {
+  sharedCache(req, res, () => handle(req, res)).catch((error) => {
     console.error("[serve] unexpected error:", error);
     if (!res.headersSent) res.statusCode = 500;
     res.end();

@@ -10,7 +10,8 @@ import type { PublicCharacter } from "./published";
  * How long each kind of answer may be reused. Every 200 carries a strong ETag,
  * and a request naming it in If-None-Match gets a 304 without a body.
  * - A published Edition of a public game: the same for everyone, so shared
- *   caches may keep it. Its rows never change, but the body lists the game's
+ *   caches may keep it (s-maxage says so apart, for the app's own shared
+ *   cache, scripts/shared-cache.mjs, which keeps only what says it). Its rows never change, but the body lists the game's
  *   Editions, which grows when the next one is published: five minutes when
  *   the address names the Edition (the Explorer always does), then a day of
  *   serving the old copy while it is checked again; a minute for the newest.
@@ -21,8 +22,8 @@ import type { PublicCharacter } from "./published";
  * - A draft: its coaches change it any time, so nothing keeps it anywhere.
  */
 export const GRAPH_CACHE = {
-  publicEdition: "public, max-age=300, stale-while-revalidate=86400",
-  publicNewest: "public, max-age=60, stale-while-revalidate=600",
+  publicEdition: "public, max-age=300, s-maxage=300, stale-while-revalidate=86400",
+  publicNewest: "public, max-age=60, s-maxage=60, stale-while-revalidate=600",
   teamPublished: "private, no-cache",
   draft: "private, no-store",
 } as const;

@@ -179,13 +179,15 @@ async function shown(pathname: string, editionOf: (catalog: PublicCatalog) => Ed
  *   the next one is published: five minutes, then a day of serving the old
  *   copy while it is checked again;
  * - the newest Edition (no `?edition=`) is replaced by the next one: a minute;
- * - a link is checked on every visit, so it can be revoked: kept by no one.
- * Browsers keep none of them (no max-age).
+ * - a link can be revoked, and whether it still opens is read at most once a
+ *   second (LINK_STATE_SECONDS): a second, so a revoked link stops within two.
+ * Browsers keep none of them (no max-age). The app's own shared cache
+ * (scripts/shared-cache.mjs) keeps them the same way.
  */
 export const PUBLISHED_PAGE_CACHE = {
   edition: "public, s-maxage=300, stale-while-revalidate=86400",
   newest: "public, s-maxage=60, stale-while-revalidate=600",
-  link: "no-cache",
+  link: "public, s-maxage=1",
 } as const;
 
 /** Where the proxy sends a public address, and the Cache-Control of the answer. */

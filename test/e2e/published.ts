@@ -16,19 +16,33 @@ export const CACHED_PAGES: { what: string; path: (game: string) => string }[] = 
   { what: "Tarrow's n in the Explorer", path: (game) => `/games/${game}/tarrow/explore/n` },
 ];
 
-/** What a response says about caching: Next's cache header and the Cache-Control shared caches obey. */
+/**
+ * What a response says about caching: Next's cache header, the Cache-Status of the app's shared
+ * cache in front of Next (scripts/shared-cache.mjs) and the Cache-Control shared caches obey.
+ */
 export function cachingOf(headers: Record<string, string>) {
-  return { nextCache: headers["x-nextjs-cache"] ?? null, cacheControl: headers["cache-control"] ?? "" };
+  return {
+    nextCache: headers["x-nextjs-cache"] ?? null,
+    sharedCache: headers["cache-status"] ?? null,
+    cacheControl: headers["cache-control"] ?? "",
+  };
+}
+
+/** Sent from a cache: Next's (its header says HIT) or the shared cache in front of it (a hit). */
+export function servedFromCache(headers: Record<string, string>): boolean {
+  const { nextCache, sharedCache } = cachingOf(headers);
+  return nextCache === "HIT" || /^framefork; hit\b/.test(sharedCache ?? "");
 }
 
 /**
- * A page rendered for this request: not from Next's cache, and nothing a shared cache may keep
+ * A page rendered for this request: from no cache, and nothing a shared cache may keep
  * (RFC 9111 §5.2.2.9: only `public` lets a shared cache store an answer to a request with
  * credentials).
  */
 export function expectRenderedFresh(headers: Record<string, string>, where: string) {
-  const { nextCache, cacheControl } = cachingOf(headers);
+  const { nextCache, sharedCache, cacheControl } = cachingOf(headers);
   expect(nextCache, `${where}: x-nextjs-cache`).toBeNull();
+  expect(sharedCache, `${where}: cache-status`).toBeNull();
   expect(cacheControl, `${where}: cache-control`).not.toMatch(/\bpublic\b/i);
 }
 
