@@ -183,7 +183,7 @@ test("a published Edition's move list shows the same figures served from the cac
   await coach.context.close();
 });
 
-test("a team's published pages and team-only links reach its members only, and never from a cache", async ({
+test("a team's published pages, graph data and team-only links reach its members only, and never from a cache", async ({
   browser,
   baseURL,
   playwright,
@@ -210,6 +210,8 @@ test("a team's published pages and team-only links reach its members only, and n
 
   const addresses = [
     ...CACHED_PAGES.flatMap((p) => [p.path(t.game), `${p.path(t.game)}?edition=${t.edition}`]),
+    `/api/characters/${where!.characterId}/graph`,
+    `/api/characters/${where!.characterId}/graph?edition=${t.edition}`,
     `/s/${linkSlug}`,
   ];
   // A member reads each twice: a cache that kept the first answer would give the second.
@@ -314,6 +316,10 @@ test("what a shared cache in front of the app may keep: a pinned page five minut
     expect(pinned.headers()["cache-control"], `${p.what}, ?edition=1-1`).toBe(
       "public, s-maxage=300, stale-while-revalidate=86400",
     );
+    // The app's own shared cache (scripts/shared-cache.mjs) keeps it: the next request is a hit.
+    const again = await request.get(`${p.path("vesper-circuit")}?edition=1-1`);
+    expect(again.headers()["cache-status"], `${p.what}, again`).toMatch(/^framefork; hit; ttl=\d+$/);
+    expect(await again.text()).toBe(await pinned.text());
     const newest = await request.get(p.path("vesper-circuit"));
     expect(newest.headers()["cache-control"], `${p.what}, the newest`).toBe(
       "public, s-maxage=60, stale-while-revalidate=600",
