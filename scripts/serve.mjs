@@ -1,9 +1,12 @@
-// Serves the production build (`next build` first), like `next start -p PORT -H HOST`, with one
-// difference: X-Forwarded-For always ends with the address of whoever opened the connection,
-// appended the way a proxy appends it. `next start` writes that address only when the header is
-// absent, so a client that sends its own X-Forwarded-For hides where it comes from. The
-// per-address rate limits read this list (clientIp in src/server/auth/rate-limit.ts, with
-// TRUSTED_PROXY_HOPS saying how many proxies in front of this server to believe).
+// Serves the production build (`next build` first), like `next start -p PORT -H HOST`, with two
+// differences:
+// - X-Forwarded-For always ends with the address of whoever opened the connection, appended the
+//   way a proxy appends it. `next start` writes that address only when the header is absent, so a
+//   client that sends its own X-Forwarded-For hides where it comes from. The per-address rate
+//   limits read this list (clientIp in src/server/auth/rate-limit.ts, with TRUSTED_PROXY_HOPS
+//   saying how many proxies in front of this server to believe).
+// - A shared cache in front of Next (shared-cache.mjs) keeps what the app addresses to shared
+//   caches, such as the pages of a published Edition, and sends it again without Next.
 import { createServer } from "node:http";
 import { parseArgs } from "node:util";
 import { createSharedCache } from "./shared-cache.mjs";
@@ -23,7 +26,6 @@ const { default: next } = await import("next");
 const app = next({ dev: false, port });
 await app.prepare();
 const handle = app.getRequestHandler();
-// What the app addresses to shared caches is kept here and sent again without Next.
 const sharedCache = createSharedCache();
 
 createServer((req, res) => {

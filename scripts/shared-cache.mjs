@@ -1,16 +1,16 @@
 // The shared cache in front of Next in scripts/serve.mjs, as a CDN in front of the app would be:
 // an answer the app addresses to shared caches (`s-maxage`) is kept for as long as it says and
 // sent again without asking Next. Those are the pages of a published Edition of a public game,
-// its graph data and the links anyone may open (src/server/published.ts, graph-bodies.ts); a
-// page rendered for one reader (`private, no-store`), a draft, a team's page, an answer with a
-// cookie, is never kept. Static files are not either: Next sends them from disk, and browsers
-// keep them a year.
+// its graph data, the links anyone may open (src/server/published.ts, graph-bodies.ts) and the
+// pages Next prerenders at build, which it marks so itself. A page rendered for one reader
+// (`private, no-store`), a draft, a team's page, an answer that sets a cookie, is never kept.
+// Static files are not either: Next sends them from disk, and browsers keep them a year.
 //
 // Whether an answer may be kept, for how long and for which later request (Vary) follows
 // RFC 9111 for a shared cache, as http-cache-semantics reads it; this file only stores and
 // sends. Each answer is kept as it leaves, compressed, so each Accept-Encoding a browser sends
 // is a variant of its own (Next's answers Vary on it). Only plain GETs are answered from here:
-// a Range, a conditional request or a reload's `no-cache` goes to Next. An answer sent from here
+// a HEAD, a Range, a conditional request or a reload's `no-cache` goes to Next. An answer sent from here
 // says so in a Cache-Status header (RFC 9211).
 import CachePolicy from "http-cache-semantics";
 import { LRUCache } from "lru-cache";
