@@ -9,7 +9,7 @@ import {
   RETRY_AFTER_SECONDS,
 } from "@/server/db/unavailable";
 import { crossSiteRefusal } from "@/server/http";
-import { isPublishedAddress, PUBLISHED_PREFIX, publishedAddress, publishedGraphAnswer } from "@/server/published";
+import { isPublishedAddress, PUBLISHED_PREFIX, publishedAddress } from "@/server/published";
 
 /**
  * Runs before every route (static files aside), for what no route can do
@@ -24,8 +24,6 @@ import { isPublishedAddress, PUBLISHED_PREFIX, publishedAddress, publishedGraphA
  * - a forged next-auth return-address cookie is dropped (next-auth answers it with a 500);
  * - a page of a published Edition of a public game is sent to its cached copy
  *   (src/server/published.ts); a cached copy's own address is answered only when it is current;
- * - the graph API's answer for a published Edition of a public game is sent
- *   from memory, made once per process (src/server/published.ts);
  * - HSTS, when the app is served over https.
  * API routes check the origin and map database errors themselves, in `handle()`.
  */
@@ -54,12 +52,6 @@ export async function proxy(request: NextRequest): Promise<Response> {
   if (!api) {
     const refused = crossSiteRefusal(request);
     if (refused) return withHsts(page(refused.status, "Refused", refused.message));
-  }
-
-  if (api && isRead(request)) {
-    const { searchParams } = request.nextUrl;
-    const kept = await publishedGraphAnswer(request, pathname, searchParams).catch(() => null);
-    if (kept) return withHsts(kept);
   }
 
   const serverAction = request.headers.has("next-action");

@@ -3,11 +3,9 @@ import { createHash } from "node:crypto";
 import { LRUCache } from "lru-cache";
 import { notFound } from "next/navigation";
 import { cache } from "react";
-import { graphParamsSchema, graphQuerySchema } from "@/lib/graph-request";
 import { readEditionKeys } from "./db/queries/moves";
 import { isCacheableLink } from "./db/queries/permalinks";
 import {
-  getCharacterById,
   getGameBySlug,
   listCharacters,
   listEditions,
@@ -15,8 +13,6 @@ import {
   type EditionSummary,
   type GameSummary,
 } from "./db/queries/games";
-import { GRAPH_CACHE, publishedGraphBody } from "./graph-bodies";
-import { jsonWithEtag } from "./http-cache";
 
 /**
  * The pages of a published Edition of a public game are the same for every
@@ -291,37 +287,4 @@ export async function publicCharacter(characterId: number, gameSlug?: string): P
 /** Forgets which characters are public (tests). */
 export function forgetPublicCharacters(): void {
   publicCharacterGames.clear();
-}
-
-/** The graph API's address: `/api/characters/{id}/graph`. */
-const GRAPH_PATH = /^\/api\/characters\/([^/]+)\/graph$/;
-
-/**
- * The graph API's answer for a public game's published Edition: the proxy
- * sends it from memory, as a cache in front of the app would, and the route
- * never runs. Null for anything else (a team's game, a draft, an unknown
- * character or Edition, an address the route must refuse), which the route
- * answers. The proxy is bundled apart from the routes, so it keeps its own
- * copies of what `publicCharacter` and `publishedGraphBody` remember.
- */
-export async function publishedGraphAnswer(request: Request, pathname: string, search: URLSearchParams) {
-  const id = GRAPH_PATH.exec(pathname)?.[1];
-  if (id === undefined) return null;
-  const params = graphParamsSchema.safeParse({ id });
-  const query = graphQuerySchema.safeParse(Object.fromEntries(search));
-  if (!params.success || !query.success) return null;
-  const { id: characterId } = params.data;
-  let known = await publicCharacter(characterId);
-  if (!known) {
-    const owner = await getCharacterById({ id: characterId });
-    if (owner?.game.teamId === null) known = await publicCharacter(characterId, owner.game.slug);
-  }
-  const body = known && (await publishedGraphBody(known, query.data.edition));
-  if (!body) return null;
-  return jsonWithEtag(request, body, publicGraphHeaders(query.data.edition));
-}
-
-/** How a public published graph may be cached: shorter for the newest Edition, which changes at the next release. */
-export function publicGraphHeaders(edition: string | undefined): Record<string, string> {
-  return { "cache-control": edition === undefined ? GRAPH_CACHE.publicNewest : GRAPH_CACHE.publicEdition };
 }

@@ -9,7 +9,7 @@ import { getExplorerData } from "@/server/db/queries/explorer";
 import { gameEdition, getCharacterById, getCharacterBySlug, getGameBySlug } from "@/server/db/queries/games";
 import { DEMO_GAME } from "@/server/db/seed/demo";
 import { forgetGraphBodies, GRAPH_CACHE, publishedGraphBody } from "@/server/graph-bodies";
-import { forgetCatalogs, forgetPublicCharacters, publicCharacter, publishedGraphAnswer } from "@/server/published";
+import { forgetCatalogs, forgetPublicCharacters, publicCharacter } from "@/server/published";
 import { setSession } from "../authz/session-mock";
 import { draftOf, world, type World } from "../authz/world";
 
@@ -237,61 +237,5 @@ describe("GET /api/characters/[id]/graph: caching", () => {
     expect(after.headers.get("cache-control")).toBe("private, no-store");
     const afterBody = (await after.json()) as { graph: MoveGraph };
     expect(afterBody.graph.nodes.some((n) => n.id === "3")).toBe(true);
-  });
-});
-
-describe("the proxy's answer for the graph API (publishedGraphAnswer)", () => {
-  const fromProxy = (id: string | number, query = "", headers: Record<string, string> = {}) => {
-    const url = new URL(`http://test/api/characters/${id}/graph${query}`);
-    return publishedGraphAnswer(new Request(url, { headers }), url.pathname, url.searchParams);
-  };
-
-  test("a public game's published Edition: the route's very answer (bytes, ETag, caching), read once per process", async () => {
-    const id = await tarrowId();
-    for (const query of ["?edition=1-1", "?edition=1-0", ""]) {
-      const route = await get(id, query);
-      forgetGraphBodies();
-      forgetPublicCharacters();
-      const proxied = await fromProxy(id, query);
-      expect(proxied, query).not.toBeNull();
-      expect(caching(proxied!), query).toEqual(caching(route));
-      expect(await proxied!.text(), query).toBe(await route.text());
-    }
-
-    vi.mocked(getExplorerData).mockClear();
-    vi.mocked(getCharacterById).mockClear();
-    const again = await fromProxy(id, "?edition=1-1");
-    expect(again?.status).toBe(200);
-    expect(getExplorerData).not.toHaveBeenCalled();
-    expect(getCharacterById).not.toHaveBeenCalled();
-
-    // RFC 9110 §13.1.2: the validator it sent back is a 304 with no body.
-    const etag = again!.headers.get("etag")!;
-    const revalidated = await fromProxy(id, "?edition=1-1", { "if-none-match": etag });
-    expect(revalidated?.status).toBe(304);
-    expect(await revalidated!.text()).toBe("");
-  });
-
-  test("anything else is left to the route: a team's game (published or draft), an unknown Edition, an address the route refuses", async () => {
-    const w = await world();
-    const slug = await draftOf(w);
-    const id = await tarrowId();
-    for (const [who, query] of [
-      [w.teamCharacterId, "?edition=0-1"],
-      [w.teamCharacterId, `?edition=${slug}`],
-      [w.teamCharacterId, ""],
-      [id, "?edition=9-9"],
-      [id, "?edition=Not A Slug"],
-      [id + 1_000_000, ""],
-      ["abc", ""],
-      ["-1", ""],
-      ["1.5", ""],
-    ] as const) {
-      expect(await fromProxy(who, query), `${who}${query}`).toBeNull();
-    }
-    for (const path of [`/api/characters/${id}/graphs`, `/api/characters/${id}/graph/x`, `/api/characters//graph`]) {
-      const url = new URL(`http://test${path}`);
-      expect(await publishedGraphAnswer(new Request(url), url.pathname, url.searchParams), path).toBeNull();
-    }
   });
 });

@@ -6,8 +6,8 @@ import { canReadGame } from "@/server/games-access";
 import { GRAPH_CACHE, graphBody, publishedGraphBody } from "@/server/graph-bodies";
 import { handle, parseWith } from "@/server/http";
 import { jsonWithEtag } from "@/server/http-cache";
-import { publicCharacter, publicGraphHeaders } from "@/server/published";
-import { graphParamsSchema, graphQuerySchema } from "@/lib/graph-request";
+import { publicCharacter } from "@/server/published";
+import { graphParamsSchema, graphQuerySchema } from "./schema";
 
 export const dynamic = "force-dynamic";
 
@@ -16,15 +16,16 @@ export const dynamic = "force-dynamic";
  * engine's JSON shape, with the game's frame rules. The demo game is public;
  * a team's game is read by its members only: anyone else, signed in or not,
  * gets the very answer an unknown id gets, whatever they send in
- * If-None-Match. A public game's published Edition is answered by the proxy
- * from memory (`publishedGraphAnswer`, with the same body and headers) and
- * comes here only when the proxy could not read it; it is then answered from
- * this bundle's memory (`publishedGraphBody`).
+ * If-None-Match. A public game's published Edition is answered from memory
+ * (`publishedGraphBody`), reading nothing for a character seen before, and is
+ * kept by the shared cache in front of Next (scripts/shared-cache.mjs).
  */
 export const GET = handle(async (request: Request, ctx: RouteContext<"/api/characters/[id]/graph">) => {
   const { id } = parseWith(graphParamsSchema, await ctx.params, "path");
   const { edition } = parseWith(graphQuerySchema, Object.fromEntries(new URL(request.url).searchParams), "query");
-  const publicAnswer = publicGraphHeaders(edition);
+  const publicAnswer = {
+    "cache-control": edition === undefined ? GRAPH_CACHE.publicNewest : GRAPH_CACHE.publicEdition,
+  };
 
   const noSuchCharacter = new AppError("not_found", `There is no character ${id}.`);
   // A public game's character seen before: nothing to read, no one to check.

@@ -1,7 +1,5 @@
 import { z } from "zod";
 
-// The graph API's address, `/api/characters/{id}/graph?edition=`: read by its route and by the proxy.
-
 export const graphParamsSchema = z.object({
   id: z.coerce
     .number({ error: "a character id is a positive whole number" })
